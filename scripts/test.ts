@@ -1,0 +1,102 @@
+// npm test: the same set-up as npm start against a fresh test database and the test ports, then
+// type checks (svelte-check), and one Vitest run of the unit, integration and end-to-end projects
+// against a freshly built server. Exits non-zero on any failure and ends with "N passed, N failed".
+import type { ChildProcess } from 'node:child_process';
+import { spawn, spawnSync } from 'node:child_process';
+import { once } from 'node:events';
+import { existsSync, mkdirSync, readFileSync, rmSync } from 'node:fs';
+import { join } from 'node:path';
+import { buildApp, buildIsStale, serveApp, waitForApp } from './app';
+import { aptInstall } from './postgres';
+import { profile, root } from './profile';
+import { runningProfile } from './run-state';
+import { bringUp } from './stack';
+import { step, StepError, StepFailed } from './steps';
+
+export const chromiumPath = '/usr/bin/chromium';
+const bin = (name: string) => join(root, 'node_modules', '.bin', name);
+const results = join(root, 'test-results');
+const vitestJson = join(results, 'vitest.json');
+
+interface VitestSummary {
+	numPassedTests: number;
+	numFailedTests: number;
+	numPendingTests: number;
+	testResults: { status: string; assertionResults: unknown[] }[];
+}
+
+const p = profile('test');
+const already = runningProfile('test');
+if (already) {
+	console.error(`npm test is already running (pid ${already.pid}); wait for it or run \`npm run stop\`.`);
+	process.exit(1);
+}
+
+let stack: Awaited<ReturnType<typeof bringUp>> | undefined;
+let app: ChildProcess | undefined;
+
+async function tearDown() {
+	if (app && app.exitCode === null) {
+		app.kill('SIGTERM');
+		await once(app, 'exit');
+	}
+	await stack?.shutdown();
+}
+for (const signal of ['SIGINT', 'SIGTERM'] as const) {
+	process.on(signal, () => void tearDown().then(() => process.exit(130)));
+}
+
+let exitCode = 1;
+try {
+	await step('Chromium for the end-to-end tests', () => {
+		if (existsSync(chromiumPath)) return 'present';
+		if (process.getuid?.() !== 0) throw new StepError('Chromium is not installed.', 'Install it with `sudo apt-get install -y chromium`.');
+		aptInstall(['chromium']);
+		return 'installed from Debian';
+	}, (r) => `${chromiumPath} ${r}`);
+
+	stack = await bringUp(p, { freshDatabase: true });
+
+	const typesOk = await step('Type check (svelte-check)', () => {
+		spawnSync(bin('svelte-kit'), ['sync'], { cwd: root, stdio: 'inherit' });
+		const res = spawnSync(bin('svelte-check'), ['--tsconfig', './tsconfig.json', '--fail-on-warnings', '--output', 'human'], { cwd: root, stdio: 'inherit' });
+		return res.status === 0;
+	}, (ok) => (ok ? 'no errors, no warnings' : 'FAILED (see above)'));
+
+	await step('Build', () => (buildIsStale() ? (buildApp(), 'built into build/') : 'up to date'), (r) => r);
+	const server = serveApp(stack.env);
+	app = server;
+	stack.track(server);
+	await step(`Test server on ${stack.env.APP_URL}`, () => waitForApp(stack!.env.APP_URL!, server), (s) => `health check answered ${s}`);
+
+	console.log('▸ Tests (Vitest: unit, integration, e2e)');
+	mkdirSync(results, { recursive: true });
+	rmSync(vitestJson, { force: true });
+	// Not spawnSync: the fakes run in this process and must keep answering while the tests run.
+	const vitest = spawn(bin('vitest'), ['run', '--reporter=default', '--reporter=json', `--outputFile.json=${vitestJson}`], {
+		cwd: root,
+		stdio: 'inherit',
+		env: { ...process.env, ...stack.env, CHROMIUM_PATH: chromiumPath }
+	});
+	await once(vitest, 'exit');
+	const counts = existsSync(vitestJson)
+		? (JSON.parse(readFileSync(vitestJson, 'utf8')) as VitestSummary)
+		: undefined;
+	// A test file that fails to load has no tests of its own; count it as one failure.
+	const failed = counts ? counts.numFailedTests + counts.testResults.filter((f) => f.status === 'failed' && f.assertionResults.length === 0).length : 0;
+
+	console.log('');
+	console.log(`type check: ${typesOk ? 'passed' : 'FAILED'}`);
+	if (!counts) {
+		console.log('tests: Vitest wrote no results (it crashed; see above)');
+	} else {
+		const skipped = counts.numPendingTests ? `, ${counts.numPendingTests} skipped` : '';
+		console.log(`tests: ${counts.numPassedTests} passed, ${failed} failed${skipped}`);
+	}
+	exitCode = typesOk && counts && failed === 0 && counts.numPassedTests > 0 ? 0 : 1;
+} catch (err) {
+	if (!(err instanceof StepFailed)) console.error(err);
+} finally {
+	await tearDown();
+}
+process.exit(exitCode);

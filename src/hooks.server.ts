@@ -1,0 +1,18 @@
+import type { Handle } from '@sveltejs/kit';
+import { sequence } from '@sveltejs/kit/hooks';
+import { parseTheme, themeCookie } from '$lib/theme';
+
+/**
+ * Reads the theme choice from its cookie and writes it into <html data-theme>, so the first paint
+ * already has the right colours (no flash of the wrong theme).
+ */
+export const themeHandle: Handle = async ({ event, resolve }) => {
+	const theme = parseTheme(event.cookies.get(themeCookie));
+	event.locals.theme = theme;
+	return resolve(event, {
+		transformPageChunk: ({ html }) => html.replace('%pw.theme%', theme)
+	});
+};
+
+// Other handles (auth, access) are added to this sequence as they arrive.
+export const handle: Handle = sequence(themeHandle);

@@ -1,0 +1,55 @@
+import { z } from 'zod';
+
+/**
+ * Every setting the server reads, in one place, from the environment. Read lazily: `vite build`
+ * imports server modules to analyse them, and must not need a database address to do so.
+ * The names and their local defaults are listed in README.md.
+ */
+const Env = z.object({
+	DATABASE_URL: z.url({ protocol: /^postgres(ql)?$/ }),
+	SMTP_URL: z.url({ protocol: /^smtps?$/ }),
+	MAIL_FROM: z.string().min(3).default('Phasewright <no-reply@phasewright.invalid>'),
+	S3_ENDPOINT: z.url().optional(),
+	S3_REGION: z.string().min(1).default('us-east-1'),
+	S3_BUCKET: z.string().min(3).max(63),
+	S3_ACCESS_KEY_ID: z.string().min(1).optional(),
+	S3_SECRET_ACCESS_KEY: z.string().min(1).optional(),
+	S3_FORCE_PATH_STYLE: z.enum(['true', 'false']).optional(),
+	/** HTTP address of the local SMTP fake's message list; set by the local scripts only. */
+	MAILBOX_URL: z.url().optional()
+});
+
+export type Config = ReturnType<typeof parseConfig>;
+
+export function parseConfig(env: Record<string, string | undefined>) {
+	const parsed = Env.safeParse(env);
+	if (!parsed.success) {
+		const lines = parsed.error.issues.map((i) => `  ${i.path.join('.')}: ${i.message}`);
+		throw new Error(`Phasewright is not configured:\n${lines.join('\n')}\nSee README.md, "Configuration".`);
+	}
+	const e = parsed.data;
+	return {
+		databaseUrl: e.DATABASE_URL,
+		smtpUrl: e.SMTP_URL,
+		mailFrom: e.MAIL_FROM,
+		s3: {
+			endpoint: e.S3_ENDPOINT,
+			region: e.S3_REGION,
+			bucket: e.S3_BUCKET,
+			credentials:
+				e.S3_ACCESS_KEY_ID && e.S3_SECRET_ACCESS_KEY
+					? { accessKeyId: e.S3_ACCESS_KEY_ID, secretAccessKey: e.S3_SECRET_ACCESS_KEY }
+					: undefined,
+			// Self-hosted S3-compatible stores rarely have per-bucket DNS names.
+			forcePathStyle: e.S3_FORCE_PATH_STYLE ? e.S3_FORCE_PATH_STYLE === 'true' : !!e.S3_ENDPOINT
+		},
+		mailboxUrl: e.MAILBOX_URL
+	};
+}
+
+let current: Config | undefined;
+
+export function config(): Config {
+	current ??= parseConfig(process.env);
+	return current;
+}

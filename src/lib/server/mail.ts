@@ -1,0 +1,18 @@
+import nodemailer, { type Transporter } from 'nodemailer';
+import type Mail from 'nodemailer/lib/mailer';
+import { config } from './config';
+
+let transport: Transporter | undefined;
+
+function mailer(): Transporter {
+	transport ??= nodemailer.createTransport(config().smtpUrl);
+	return transport;
+}
+
+export type Message = Pick<Mail.Options, 'to' | 'cc' | 'subject' | 'text' | 'html' | 'attachments' | 'replyTo'>;
+
+/** Sends one message from the configured sender; resolves with the SMTP message id. */
+export async function sendMail(message: Message): Promise<string> {
+	const info = await mailer().sendMail({ from: config().mailFrom, ...message });
+	return info.messageId;
+}

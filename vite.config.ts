@@ -1,0 +1,41 @@
+import { sveltekit } from '@sveltejs/kit/vite';
+import tailwindcss from '@tailwindcss/vite';
+import { defineConfig } from 'vitest/config';
+
+// One Vitest run, three projects. `npm test` (scripts/test.ts) sets up PostgreSQL, the fakes and a
+// built server first and passes their addresses in the environment; see DEVELOPERS.md.
+export default defineConfig({
+	plugins: [tailwindcss(), sveltekit()],
+	build: { rolldownOptions: { checks: { bundlerTimings: false } } },
+	server: { host: '127.0.0.1' },
+	test: {
+		projects: [
+			{
+				extends: true,
+				test: { name: 'unit', include: ['src/**/*.test.ts'], environment: 'node' }
+			},
+			{
+				extends: true,
+				test: {
+					name: 'integration',
+					include: ['tests/integration/**/*.test.ts'],
+					environment: 'node',
+					setupFiles: ['tests/integration/require-stack.ts'],
+					fileParallelism: false,
+					testTimeout: 20_000
+				}
+			},
+			{
+				extends: true,
+				test: {
+					name: 'e2e',
+					include: ['tests/e2e/**/*.test.ts'],
+					environment: 'node',
+					fileParallelism: false,
+					testTimeout: 60_000,
+					hookTimeout: 60_000
+				}
+			}
+		]
+	}
+});
