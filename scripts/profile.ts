@@ -68,6 +68,8 @@ export function appEnv(p: Profile): Record<string, string> {
 		S3_SECRET_ACCESS_KEY: s3Fake.secretAccessKey,
 		HOST: '127.0.0.1',
 		PORT: String(p.appPort),
+		// adapter-node assumes https unless told the public origin; form posts are checked against it.
+		ORIGIN: `http://127.0.0.1:${p.appPort}`,
 		APP_URL: `http://127.0.0.1:${p.appPort}`
 	};
 	return local;

@@ -1,8 +1,9 @@
 // The demo: an invented small shop with three conversions under way. Safe to run any number of
 // times; rows are matched by their natural keys (workshop slug, build name) and never doubled.
-import { eq } from 'drizzle-orm';
+import { hash } from '@node-rs/argon2';
+import { eq, inArray } from 'drizzle-orm';
 import { connect, type Database } from '../src/lib/server/db';
-import { build, workshop } from '../src/lib/server/db/schema';
+import { build, member, user, workshop } from '../src/lib/server/db/schema';
 
 export const demoWorkshop = { slug: 'demo', name: 'Marrow Street Motor Works (demo)' };
 
@@ -24,7 +25,14 @@ export const demoBuilds = [
 	}
 ] as const;
 
+/** For local use only (README lists them); the seed never runs in production. */
+export const demoUsers = [
+	{ name: 'Ines Okafor', email: 'owner@marrow-street.test', password: 'demo-owner-2026', role: 'owner' },
+	{ name: 'Tom Reyes', email: 'viewer@marrow-street.test', password: 'demo-viewer-2026', role: 'viewer' }
+] as const;
+
 export async function seedDemo(database: Database) {
+	const hashes = await Promise.all(demoUsers.map((u) => hash(u.password)));
 	return database.transaction(async (tx) => {
 		const inserted = await tx.insert(workshop).values(demoWorkshop).onConflictDoNothing({ target: workshop.slug }).returning();
 		const [shop] = inserted.length ? inserted : await tx.select().from(workshop).where(eq(workshop.slug, demoWorkshop.slug));
@@ -34,7 +42,17 @@ export async function seedDemo(database: Database) {
 			.values(demoBuilds.map((b) => ({ ...b, workshopId: shop.id })))
 			.onConflictDoNothing({ target: [build.workshopId, build.name] })
 			.returning({ id: build.id });
-		return { workshopCreated: inserted.length > 0, buildsCreated: builds.length };
+		const users = await tx
+			.insert(user)
+			.values(demoUsers.map((u, i) => ({ name: u.name, email: u.email, passwordHash: hashes[i]!, emailVerified: new Date() })))
+			.onConflictDoNothing({ target: user.email })
+			.returning({ id: user.id });
+		const ids = await tx.select({ id: user.id, email: user.email }).from(user).where(inArray(user.email, demoUsers.map((u) => u.email)));
+		await tx
+			.insert(member)
+			.values(ids.map((u) => ({ workshopId: shop.id, userId: u.id, role: demoUsers.find((d) => d.email === u.email)!.role })))
+			.onConflictDoNothing();
+		return { workshopCreated: inserted.length > 0, buildsCreated: builds.length, usersCreated: users.length };
 	});
 }
 

@@ -2,11 +2,14 @@
 // migrations, the demo seed and the local fakes. Returns the environment the app and the tests
 // need, and a shutdown that stops what this run started (and nothing it found running).
 import type { ChildProcess } from 'node:child_process';
+import { randomBytes } from 'node:crypto';
+import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
+import { join } from 'node:path';
 import { seedDemo } from './seed';
 import { migrateDatabase } from './db';
 import { startFakes } from './fakes';
 import * as pgCluster from './postgres';
-import { appEnv, type Profile } from './profile';
+import { appEnv, dataDir, type Profile } from './profile';
 import { clearState, liveStates, saveState, type RunState } from './run-state';
 import { step } from './steps';
 import { connect } from '../src/lib/server/db';
@@ -19,10 +22,20 @@ export interface Real {
 
 const none: Real = { database: false, mail: false, storage: false };
 
+/** The local session-signing secret: made once, kept in .data (mode 600), never committed. */
+function localAuthSecret(): string {
+	const file = join(dataDir, 'auth-secret');
+	if (!existsSync(file)) {
+		mkdirSync(dataDir, { recursive: true });
+		writeFileSync(file, randomBytes(33).toString('base64'), { mode: 0o600 });
+	}
+	return readFileSync(file, 'utf8').trim();
+}
+
 export async function bringUp(p: Profile, opts: { freshDatabase: boolean; real?: Real }) {
 	const real = opts.real ?? none;
 	const state: RunState = { pid: process.pid, profile: p.name, children: [], startedPostgres: false };
-	const env = appEnv(p);
+	const env: Record<string, string> = { ...appEnv(p), AUTH_SECRET: process.env.AUTH_SECRET ?? localAuthSecret() };
 	let closeFakes: () => Promise<void> = async () => {};
 	let cluster: { bin: string; dir: string } | undefined;
 
@@ -69,7 +82,7 @@ export async function bringUp(p: Profile, opts: { freshDatabase: boolean; real?:
 						await database.$client.end();
 					}
 				},
-				(r) => (r.workshopCreated || r.buildsCreated ? `seeded (${r.buildsCreated} builds)` : 'already there')
+				(r) => (r.workshopCreated || r.buildsCreated || r.usersCreated ? `seeded (${r.buildsCreated} builds, ${r.usersCreated} users)` : 'already there')
 			);
 		}
 		if (real.mail) {

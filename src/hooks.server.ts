@@ -1,6 +1,7 @@
 import type { Handle } from '@sveltejs/kit';
 import { sequence } from '@sveltejs/kit/hooks';
 import { parseTheme, themeCookie } from '$lib/theme';
+import { authHandle } from './auth';
 
 /**
  * Reads the theme choice from its cookie and writes it into <html data-theme>, so the first paint
@@ -14,5 +15,5 @@ export const themeHandle: Handle = async ({ event, resolve }) => {
 	});
 };
 
-// Other handles (auth, access) are added to this sequence as they arrive.
-export const handle: Handle = sequence(themeHandle);
+// Auth.js first: it answers its own routes under /auth and gives every request locals.auth().
+export const handle: Handle = sequence(authHandle, themeHandle);

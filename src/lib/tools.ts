@@ -52,7 +52,7 @@ export const tools: readonly Tool[] = [
 		title: 'Builds',
 		summary:
 			'Keep each engine’s wheel designs, TDC records and build sheets together, versioned, in your workshop.',
-		ready: false
+		ready: true
 	}
 ];
 

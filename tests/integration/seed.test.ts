@@ -1,8 +1,8 @@
 import { eq, sql } from 'drizzle-orm';
 import { afterAll, describe, expect, it } from 'vitest';
 import { connect } from '../../src/lib/server/db';
-import { build, workshop } from '../../src/lib/server/db/schema';
-import { demoBuilds, demoWorkshop, seedDemo } from '../../scripts/seed';
+import { build, member, user, workshop } from '../../src/lib/server/db/schema';
+import { demoBuilds, demoUsers, demoWorkshop, seedDemo } from '../../scripts/seed';
 
 const database = connect(process.env.DATABASE_URL!);
 afterAll(() => database.$client.end());
@@ -23,7 +23,21 @@ describe('demo seed', () => {
 
 	it('can run again without failing or doubling anything', async () => {
 		const again = await seedDemo(database);
-		expect(again).toEqual({ workshopCreated: false, buildsCreated: 0 });
+		expect(again).toEqual({ workshopCreated: false, buildsCreated: 0, usersCreated: 0 });
 		expect(await demoCounts()).toEqual({ workshops: 1, builds: demoBuilds.length });
+	});
+});
+
+describe('demo users', () => {
+	it('are members of the demo workshop at two different roles', async () => {
+		const rows = await database
+			.select({ email: user.email, role: member.role })
+			.from(member)
+			.innerJoin(user, eq(member.userId, user.id))
+			.innerJoin(workshop, eq(member.workshopId, workshop.id))
+			.where(eq(workshop.slug, demoWorkshop.slug));
+		expect(rows.sort((a, b) => a.email.localeCompare(b.email))).toEqual(
+			demoUsers.map((u) => ({ email: u.email, role: u.role })).sort((a, b) => a.email.localeCompare(b.email))
+		);
 	});
 });

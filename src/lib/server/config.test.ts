@@ -4,7 +4,8 @@ import { parseConfig } from './config';
 const minimal = {
 	DATABASE_URL: 'postgres://u:p@127.0.0.1:5432/db',
 	SMTP_URL: 'smtp://127.0.0.1:25',
-	S3_BUCKET: 'uploads'
+	S3_BUCKET: 'uploads',
+	AUTH_SECRET: 'x'.repeat(32)
 };
 
 describe('server configuration', () => {

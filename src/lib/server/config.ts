@@ -15,6 +15,8 @@ const Env = z.object({
 	S3_ACCESS_KEY_ID: z.string().min(1).optional(),
 	S3_SECRET_ACCESS_KEY: z.string().min(1).optional(),
 	S3_FORCE_PATH_STYLE: z.enum(['true', 'false']).optional(),
+	/** Signs the session cookies (JWT). At least 32 random characters: `openssl rand -base64 33`. */
+	AUTH_SECRET: z.string().min(32, { error: 'AUTH_SECRET: at least 32 characters' }),
 	/** HTTP address of the local SMTP fake's message list; set by the local scripts only. */
 	MAILBOX_URL: z.url().optional()
 });
@@ -43,6 +45,7 @@ export function parseConfig(env: Record<string, string | undefined>) {
 			// Self-hosted S3-compatible stores rarely have per-bucket DNS names.
 			forcePathStyle: e.S3_FORCE_PATH_STYLE ? e.S3_FORCE_PATH_STYLE === 'true' : !!e.S3_ENDPOINT
 		},
+		authSecret: e.AUTH_SECRET,
 		mailboxUrl: e.MAILBOX_URL
 	};
 }

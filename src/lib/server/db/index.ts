@@ -5,6 +5,9 @@ import { config } from '../config';
 import * as schema from './schema';
 
 export type Database = NodePgDatabase<typeof schema> & { $client: pg.Pool };
+export type Transaction = Parameters<Parameters<Database['transaction']>[0]>[0];
+/** Either the pool or an open transaction: what query helpers take, so callers can compose them. */
+export type Queryable = Database | Transaction;
 
 /** A pool and its Drizzle handle. Scripts and tests call this with their own address. */
 export function connect(url: string): Database {

@@ -1,0 +1,43 @@
+import { z } from 'zod';
+
+export const passwordLimits = { min: 10, max: 200 } as const;
+
+export const email = z
+	.string({ error: 'email: required' })
+	.trim()
+	.toLowerCase()
+	.max(254, { error: 'email: at most 254 characters' })
+	.pipe(z.email({ error: 'email: an address like name@example.com' }));
+
+export const password = z
+	.string({ error: 'password: required' })
+	.min(passwordLimits.min, { error: `password: ${passwordLimits.min} to ${passwordLimits.max} characters` })
+	.max(passwordLimits.max, { error: `password: ${passwordLimits.min} to ${passwordLimits.max} characters` });
+
+/** A same-site path to go to afterwards; anything else becomes "/" (no open redirects). */
+export const redirectTo = z
+	.string()
+	.optional()
+	.transform((v) => (v && v.startsWith('/') && !v.startsWith('//') && !v.startsWith('/\\') ? v : '/'));
+
+export const signUp = z.object({
+	name: z.string().trim().min(1, { error: 'name: 1 to 80 characters' }).max(80, { error: 'name: 1 to 80 characters' }),
+	email,
+	password,
+	redirectTo
+});
+
+export const signIn = z.object({
+	email,
+	// Any length is accepted here: a sign-in must not say which rule a stored password follows.
+	password: z.string({ error: 'password: required' }).min(1, { error: 'password: required' }).max(1000, { error: 'password: at most 1000 characters' }),
+	redirectTo
+});
+
+export const signInLink = z.object({ email, redirectTo });
+
+export const resetRequest = z.object({ email });
+
+export const resetPassword = z
+	.object({ password, confirm: z.string() })
+	.refine((v) => v.password === v.confirm, { error: 'confirm: must match the new password', path: ['confirm'] });

@@ -1,0 +1,97 @@
+import { error, redirect, type RequestEvent } from '@sveltejs/kit';
+import { eq } from 'drizzle-orm';
+import { db } from './db';
+import { user, type Role } from './db/schema';
+import { workshopsOf, type WorkshopMembership } from './workshops';
+
+// Who may do what, in one place. Every load, form action and API route that touches a workshop's
+// data starts here; what it gets back (the workshop id) is what scopes its queries.
+
+export type Action = 'read' | 'edit' | 'manage';
+
+/** Viewers read; editors change builds; owners also manage members. */
+export const leastRole: Record<Action, Role> = { read: 'viewer', edit: 'editor', manage: 'owner' };
+const rank: Record<Role, number> = { viewer: 1, editor: 2, owner: 3 };
+
+export function allows(role: Role, action: Action): boolean {
+	return rank[role] >= rank[leastRole[action]];
+}
+
+export const workshopCookie = 'pw-workshop';
+
+export interface SessionUser {
+	id: string;
+	email: string;
+	name: string | null;
+}
+
+export interface WorkshopAccess {
+	user: SessionUser;
+	workshop: WorkshopMembership;
+	workshops: WorkshopMembership[];
+	can: Record<Action, boolean>;
+}
+
+const perRequest = new WeakMap<Request, Promise<SessionUser | null>>();
+
+/** The signed-in user, or null. The session cookie may outlive the account, so the account is looked up. */
+export function signedInUser(event: RequestEvent): Promise<SessionUser | null> {
+	let found = perRequest.get(event.request);
+	if (!found) {
+		found = (async () => {
+			const session = await event.locals.auth();
+			const id = session?.user?.id;
+			if (!id) return null;
+			const [row] = await db().select({ id: user.id, email: user.email, name: user.name }).from(user).where(eq(user.id, id));
+			return row ?? null;
+		})();
+		perRequest.set(event.request, found);
+	}
+	return found;
+}
+
+const isApi = (event: RequestEvent) => event.url.pathname.startsWith('/api/');
+
+/** Pages send a signed-out visitor to sign in and back; API routes answer 401. */
+export async function requireUser(event: RequestEvent): Promise<SessionUser> {
+	const found = await signedInUser(event);
+	if (found) return found;
+	if (isApi(event)) error(401, { message: 'Sign in first: this needs an account.', code: 'unauthenticated' });
+	redirect(303, `/signin?redirectTo=${encodeURIComponent(event.url.pathname + event.url.search)}`);
+}
+
+/**
+ * The workshop the request works in, checked for `action`: the one named (API ?workshop=), else
+ * the one chosen in the switcher (cookie), else the user's first. A workshop the user is not in
+ * answers 404 (as if it did not exist); one where the role is too low answers 403.
+ */
+export async function workshopAccess(event: RequestEvent, action: Action, workshopId?: string): Promise<WorkshopAccess> {
+	const me = await requireUser(event);
+	const workshops = await workshopsOf(db(), me.id);
+	const chosen = event.cookies.get(workshopCookie);
+	const current = workshopId
+		? workshops.find((w) => w.id === workshopId)
+		: (workshops.find((w) => w.id === chosen) ?? workshops[0]);
+	if (!current) error(404, { message: 'No such workshop among yours.', code: 'not-found' });
+	if (!allows(current.role, action)) {
+		error(403, {
+			message: `Your role in ${current.name} is ${current.role}; this needs ${leastRole[action]} or above.`,
+			code: 'forbidden'
+		});
+	}
+	const can = { read: allows(current.role, 'read'), edit: allows(current.role, 'edit'), manage: allows(current.role, 'manage') };
+	return { user: me, workshop: current, workshops, can };
+}
+
+/** Makes `workshopId` the one the user works in, if they belong to it. */
+export async function chooseWorkshop(event: RequestEvent, workshopId: string) {
+	const access = await workshopAccess(event, 'read', workshopId);
+	event.cookies.set(workshopCookie, access.workshop.id, {
+		path: '/',
+		httpOnly: true,
+		sameSite: 'lax',
+		secure: event.url.protocol === 'https:',
+		maxAge: 365 * 24 * 60 * 60
+	});
+	return access;
+}

@@ -1,0 +1,39 @@
+import type { Message } from './mail';
+
+// The wording of every e-mail the app sends, in one place. Plain text first: workshop inboxes
+// are often read on a phone, and a cutting shop's mail filter trusts plain text.
+
+const footer = '\n\n-- \nPhasewright: trigger wheels, degree tapes and timing for ECU conversions.\nIf you did not ask for this, ignore this message; nothing changes.';
+
+export function signInLinkMessage(to: string, url: string): Message {
+	return {
+		to,
+		subject: 'Your Phasewright sign-in link',
+		text: `Open this link to sign in to Phasewright:\n\n${url}\n\nThe link works once, for 30 minutes.${footer}`
+	};
+}
+
+export function passwordResetMessage(to: string, url: string): Message {
+	return {
+		to,
+		subject: 'Reset your Phasewright password',
+		text: `Someone (hopefully you) asked to reset the password of this Phasewright account.\n\nChoose a new password here:\n\n${url}\n\nThe link works once, for 1 hour.${footer}`
+	};
+}
+
+export function accountExistsMessage(to: string, signInUrl: string): Message {
+	return {
+		to,
+		subject: 'You already have a Phasewright account',
+		text: `Someone tried to create a Phasewright account with this address, which already has one.\n\nSign in, or reset the password, here:\n\n${signInUrl}${footer}`
+	};
+}
+
+export function invitationMessage(input: { to: string; workshop: string; inviter: string | null; role: string; url: string }): Message {
+	const who = input.inviter ? `${input.inviter} invites you` : 'You are invited';
+	return {
+		to: input.to,
+		subject: `Invitation to ${input.workshop} on Phasewright`,
+		text: `${who} to join the workshop "${input.workshop}" on Phasewright as ${input.role}.\n\nAccept here (sign in or create an account with this address, ${input.to}):\n\n${input.url}\n\nThe link works once, for 7 days.${footer}`
+	};
+}

@@ -1,0 +1,49 @@
+import { fail } from '@sveltejs/kit';
+import { buildId, createBuild as createSchema, renameBuild as renameSchema } from '$lib/schemas/build';
+import { parseForm } from '$lib/schemas/form';
+import { workshopAccess } from '$lib/server/access';
+import { createBuild, deleteBuild, listBuilds, renameBuild } from '$lib/server/builds';
+import { db } from '$lib/server/db';
+import type { Actions, PageServerLoad } from './$types';
+
+const refusals = {
+	'name-taken': 'name: another build in this workshop has that name',
+	'not-found': 'No such build in this workshop.'
+} as const;
+
+export const load: PageServerLoad = async (event) => {
+	const access = await workshopAccess(event, 'read');
+	return { workshop: access.workshop, can: access.can, builds: await listBuilds(db(), access.workshop.id) };
+};
+
+export const actions: Actions = {
+	create: async (event) => {
+		const access = await workshopAccess(event, 'edit');
+		const form = await event.request.formData();
+		const parsed = parseForm(createSchema, form);
+		const echo = { name: String(form.get('name') ?? ''), engine: String(form.get('engine') ?? '') };
+		if (!parsed.ok) return fail(400, { action: 'create', ...echo, errors: parsed.errors });
+		const result = await createBuild(db(), access.workshop.id, parsed.data);
+		if (!result.ok) return fail(409, { action: 'create', ...echo, errors: { name: refusals[result.reason] } });
+		return { action: 'create', created: result.id };
+	},
+
+	rename: async (event) => {
+		const access = await workshopAccess(event, 'edit');
+		const form = await event.request.formData();
+		const parsed = parseForm(renameSchema, form);
+		if (!parsed.ok) return fail(400, { action: 'rename', buildId: String(form.get('buildId') ?? ''), errors: parsed.errors });
+		const result = await renameBuild(db(), access.workshop.id, parsed.data.buildId, parsed.data.name);
+		if (!result.ok) return fail(result.reason === 'not-found' ? 404 : 409, { action: 'rename', buildId: parsed.data.buildId, errors: { name: refusals[result.reason] } });
+		return { action: 'rename' };
+	},
+
+	delete: async (event) => {
+		const access = await workshopAccess(event, 'edit');
+		const parsed = parseForm(buildId, await event.request.formData());
+		if (!parsed.ok) return fail(400, { action: 'delete', errors: parsed.errors });
+		const result = await deleteBuild(db(), access.workshop.id, parsed.data.buildId);
+		if (!result.ok) return fail(404, { action: 'delete', message: refusals['not-found'] });
+		return { action: 'delete' };
+	}
+};

@@ -1,0 +1,87 @@
+import { fail, redirect } from '@sveltejs/kit';
+import { invitationId, invite, memberId, memberRole, workshopId } from '$lib/schemas/workshop';
+import { parseForm } from '$lib/schemas/form';
+import { chooseWorkshop, workshopAccess } from '$lib/server/access';
+import { db } from '$lib/server/db';
+import { sendMail } from '$lib/server/mail';
+import { invitationMessage } from '$lib/server/messages';
+import { createInvitation, membersOf, pendingInvitations, removeMember, revokeInvitation, setRole } from '$lib/server/workshops';
+import type { Actions, PageServerLoad } from './$types';
+
+const memberRefusals = {
+	'not-a-member': 'That person is not a member of this workshop.',
+	'last-owner': 'A workshop needs at least one owner: make someone else owner first.'
+} as const;
+
+export const load: PageServerLoad = async (event) => {
+	const access = await workshopAccess(event, 'read');
+	return {
+		workshop: access.workshop,
+		me: access.user.id,
+		can: access.can,
+		members: await membersOf(db(), access.workshop.id),
+		invitations: access.can.manage ? await pendingInvitations(db(), access.workshop.id) : []
+	};
+};
+
+export const actions: Actions = {
+	invite: async (event) => {
+		const access = await workshopAccess(event, 'manage');
+		const form = await event.request.formData();
+		const parsed = parseForm(invite, form);
+		if (!parsed.ok) return fail(400, { action: 'invite', email: String(form.get('email') ?? ''), errors: parsed.errors });
+		const { token } = await createInvitation(db(), {
+			workshopId: access.workshop.id,
+			email: parsed.data.email,
+			role: parsed.data.role as 'editor' | 'viewer',
+			invitedBy: access.user.id
+		});
+		await sendMail(
+			invitationMessage({
+				to: parsed.data.email,
+				workshop: access.workshop.name,
+				inviter: access.user.name,
+				role: parsed.data.role,
+				url: `${event.url.origin}/invite/${token}`
+			})
+		);
+		return { action: 'invite', invited: parsed.data.email };
+	},
+
+	role: async (event) => {
+		const access = await workshopAccess(event, 'manage');
+		const parsed = parseForm(memberRole, await event.request.formData());
+		if (!parsed.ok) return fail(400, { action: 'role', errors: parsed.errors });
+		const result = await setRole(db(), access.workshop.id, parsed.data.userId, parsed.data.role as 'owner' | 'editor' | 'viewer');
+		if (!result.ok) return fail(409, { action: 'role', message: memberRefusals[result.reason] });
+		return { action: 'role' };
+	},
+
+	remove: async (event) => {
+		const access = await workshopAccess(event, 'manage');
+		const parsed = parseForm(memberId, await event.request.formData());
+		if (!parsed.ok) return fail(400, { action: 'remove', errors: parsed.errors });
+		const result = await removeMember(db(), access.workshop.id, parsed.data.userId);
+		if (!result.ok) return fail(409, { action: 'remove', message: memberRefusals[result.reason] });
+		return { action: 'remove' };
+	},
+
+	revoke: async (event) => {
+		const access = await workshopAccess(event, 'manage');
+		const parsed = parseForm(invitationId, await event.request.formData());
+		if (!parsed.ok) return fail(400, { action: 'revoke', errors: parsed.errors });
+		if (!(await revokeInvitation(db(), access.workshop.id, parsed.data.invitationId))) {
+			return fail(404, { action: 'revoke', message: 'No such open invitation.' });
+		}
+		return { action: 'revoke' };
+	},
+
+	switch: async (event) => {
+		const form = await event.request.formData();
+		const parsed = parseForm(workshopId, form);
+		if (!parsed.ok) return fail(400, { action: 'switch', errors: parsed.errors });
+		await chooseWorkshop(event, parsed.data.workshopId);
+		const back = String(form.get('redirectTo') ?? '/builds');
+		redirect(303, back.startsWith('/') && !back.startsWith('//') ? back : '/builds');
+	}
+};
