@@ -1,0 +1,78 @@
+// Tooth patterns. A wheel has N equally spaced tooth positions (pitch p = 360/N, the missing
+// positions counted: 36-1 -> 10°, 60-2 -> 6°; common practice). Position 0 is the first tooth
+// after the gap; tooth k's leading edge is k*p after position 0's, in the sense of rotation.
+
+export type Pattern =
+	| { kind: 'missing'; teeth: number; missing: number }
+	| { kind: 'custom'; teeth: number; missingPositions: number[] }
+	| { kind: 'single'; teeth: number }
+	| { kind: 'extra'; teeth: number; extraAfter: number };
+
+export interface Tooth {
+	/** Position number on the N grid; an extra (cam-sync) tooth has position k + 0.5. */
+	position: number;
+	/** Leading and trailing edges, degrees after position 0's leading edge, in the rotation sense. */
+	leadDeg: number;
+	trailDeg: number;
+}
+
+export const pitchDeg = (teeth: number) => 360 / teeth;
+
+/** The positions left empty by a pattern. */
+export function missingPositions(p: Pattern): number[] {
+	switch (p.kind) {
+		case 'missing':
+			return Array.from({ length: p.missing }, (_, i) => p.teeth - p.missing + i);
+		case 'custom':
+			return [...new Set(p.missingPositions)].sort((a, b) => a - b);
+		case 'single':
+			return Array.from({ length: p.teeth - 1 }, (_, i) => i + 1);
+		case 'extra':
+			return [];
+	}
+}
+
+/** Every tooth present, in rotation order, each `duty` of a pitch wide. */
+export function teethOf(p: Pattern, duty: number): Tooth[] {
+	const pitch = pitchDeg(p.teeth);
+	const width = duty * pitch;
+	const gone = new Set(missingPositions(p));
+	const teeth: Tooth[] = [];
+	for (let k = 0; k < p.teeth; k++) {
+		if (!gone.has(k)) teeth.push({ position: k, leadDeg: k * pitch, trailDeg: k * pitch + width });
+		// The extra tooth of an N+1 cam wheel sits half-way between two regular ones.
+		if (p.kind === 'extra' && k === p.extraAfter) {
+			teeth.push({ position: k + 0.5, leadDeg: (k + 0.5) * pitch, trailDeg: (k + 0.5) * pitch + width });
+		}
+	}
+	return teeth;
+}
+
+/** The usual N-M name: 36-1, 60-2, 24-2+1 ... */
+export function patternName(p: Pattern): string {
+	switch (p.kind) {
+		case 'missing':
+			return `${p.teeth}-${p.missing}`;
+		case 'custom':
+			return `${p.teeth}-${missingPositions(p).length} (gaps at ${missingPositions(p).join(', ')})`;
+		case 'single':
+			return `1 tooth (${p.teeth}-position width)`;
+		case 'extra':
+			return `${p.teeth}+1`;
+	}
+}
+
+/** Runs of consecutive missing positions (wrapping), as [first, count]: the gaps a sensor sees. */
+export function gapsOf(p: Pattern): { first: number; count: number }[] {
+	const gone = new Set(missingPositions(p));
+	if (gone.size === 0 || gone.size === p.teeth) return gone.size ? [{ first: 0, count: p.teeth }] : [];
+	const gaps: { first: number; count: number }[] = [];
+	for (let k = 0; k < p.teeth; k++) {
+		if (gone.has(k) && !gone.has((k - 1 + p.teeth) % p.teeth)) {
+			let count = 0;
+			while (gone.has((k + count) % p.teeth)) count++;
+			gaps.push({ first: k, count });
+		}
+	}
+	return gaps;
+}

@@ -1,0 +1,64 @@
+// Everything a builder, fabricator and tuner read off a wheel design, in one object: what the API
+// answers as JSON and what the page and the spec sheets show.
+import { balanceHoles, massProperties, permissibleUnbalanceGmm, unbalanceForceN } from './balance';
+import { refusals, warnings, type Refusal, type Running, type Warning } from './checks';
+import { gapsOf, patternName, pitchDeg, teethOf } from './pattern';
+import type { Units } from './units';
+import { rootRadius, type HoleCircle, type WheelSpec } from './wheel';
+
+export interface WheelSummary {
+	pattern: string;
+	positions: number;
+	teethPresent: number;
+	pitchDeg: number;
+	toothWidthDeg: number;
+	teeth: { position: number; leadDeg: number; trailDeg: number }[];
+	gaps: { firstPosition: number; positions: number; spanDeg: number }[];
+	rootDiameterMm: number;
+	areaMm2: number;
+	massG: number;
+	unbalance: { gmm: number; heavySideDeg: number; forceAtRpmN: number; rpm: number };
+	permissible: { gmm: number; grade: number; standard: 'ISO 21940-11' };
+	balanceSuggestion: HoleCircle | null;
+	warnings: Warning[];
+}
+
+const round = (x: number, places = 4) => Math.round(x * 10 ** places) / 10 ** places;
+
+export function summarize(spec: WheelSpec, units: Units, running: Running): { ok: true; summary: WheelSummary } | { ok: false; refusals: Refusal[] } {
+	const refused = refusals(spec, units);
+	if (refused.length) return { ok: false, refusals: refused };
+	const pitch = pitchDeg(spec.pattern.teeth);
+	const teeth = teethOf(spec.pattern, spec.duty);
+	const mass = massProperties(spec);
+	const permissible = permissibleUnbalanceGmm(running.gradeMmS, mass.massG / 1000, running.rpm);
+	return {
+		ok: true,
+		summary: {
+			pattern: patternName(spec.pattern),
+			positions: spec.pattern.teeth,
+			teethPresent: teeth.length,
+			pitchDeg: round(pitch),
+			toothWidthDeg: round(spec.duty * pitch),
+			teeth: teeth.map((t) => ({ position: t.position, leadDeg: round(t.leadDeg), trailDeg: round(t.trailDeg) })),
+			gaps: gapsOf(spec.pattern).map((g) => ({
+				firstPosition: g.first,
+				positions: g.count,
+				// From the trailing edge before the gap to the leading edge after it: (M + 1)·p − tooth width.
+				spanDeg: round((g.count + 1) * pitch - spec.duty * pitch)
+			})),
+			rootDiameterMm: round(2 * rootRadius(spec)),
+			areaMm2: round(mass.areaMm2, 2),
+			massG: round(mass.massG, 2),
+			unbalance: {
+				gmm: round(mass.unbalanceGmm, 2),
+				heavySideDeg: round(mass.heavyDeg, 1),
+				forceAtRpmN: round(unbalanceForceN(mass.unbalanceGmm, running.rpm), 2),
+				rpm: running.rpm
+			},
+			permissible: { gmm: round(permissible, 2), grade: running.gradeMmS, standard: 'ISO 21940-11' },
+			balanceSuggestion: mass.unbalanceGmm > 0.01 ? balanceHoles(spec) : null,
+			warnings: warnings(spec, units, running)
+		}
+	};
+}
