@@ -14,6 +14,13 @@ import { bringUp } from './stack';
 import { step, StepError, StepFailed } from './steps';
 
 export const chromiumPath = '/usr/bin/chromium';
+
+/** What the tests check the product against, and the Debian package that brings each. */
+const referenceTools = [
+	{ pkg: 'chromium', present: () => existsSync(chromiumPath) },
+	{ pkg: 'python3-ezdxf', present: () => spawnSync('/usr/bin/python3', ['-c', 'import ezdxf']).status === 0 },
+	{ pkg: 'poppler-utils', present: () => existsSync('/usr/bin/pdfinfo') && existsSync('/usr/bin/pdftotext') }
+];
 const bin = (name: string) => join(root, 'node_modules', '.bin', name);
 const results = join(root, 'test-results');
 const vitestJson = join(results, 'vitest.json');
@@ -48,12 +55,13 @@ for (const signal of ['SIGINT', 'SIGTERM'] as const) {
 
 let exitCode = 1;
 try {
-	await step('Chromium for the end-to-end tests', () => {
-		if (existsSync(chromiumPath)) return 'present';
-		if (process.getuid?.() !== 0) throw new StepError('Chromium is not installed.', 'Install it with `sudo apt-get install -y chromium`.');
-		aptInstall(['chromium']);
-		return 'installed from Debian';
-	}, (r) => `${chromiumPath} ${r}`);
+	await step('Reference tools from Debian (Chromium, ezdxf, poppler)', () => {
+		const missing = referenceTools.filter((t) => !t.present()).map((t) => t.pkg);
+		if (!missing.length) return 'present';
+		if (process.getuid?.() !== 0) throw new StepError(`Missing: ${missing.join(', ')}.`, `Install them with \`sudo apt-get install -y ${missing.join(' ')}\`.`);
+		aptInstall(missing);
+		return `installed ${missing.join(', ')}`;
+	}, (r) => r);
 
 	stack = await bringUp(p, { freshDatabase: true });
 

@@ -20,7 +20,7 @@ export const tools: readonly Tool[] = [
 		title: 'Wheel designer',
 		summary:
 			'Lay out a missing-tooth trigger wheel (N-M pattern, tooth depth, bore, keyway, bolt circle) and export DXF, SVG or a 1:1 PDF template for the cutter.',
-		ready: false
+		ready: true
 	},
 	{
 		id: 'tape',

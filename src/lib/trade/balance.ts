@@ -44,9 +44,8 @@ export const balanceGrades = [1, 2.5, 6.3, 16, 40] as const;
  * and as small as fit in the web between the bore (with keyway) and the tooth roots, clear of the
  * bolt circle, hole sizes rounded to 0.1 mm. Null when nothing needs cancelling or nothing fits.
  */
-export function balanceHoles(spec: WheelSpec): HoleCircle | null {
-	const bare = { ...spec, balanceHoles: null };
-	const { unbalanceGmm, heavyDeg } = massProperties(bare);
+export function balanceHoles(spec: WheelSpec, withoutHoles?: MassProperties): HoleCircle | null {
+	const { unbalanceGmm, heavyDeg } = withoutHoles ?? massProperties({ ...spec, balanceHoles: null });
 	const gPerMm2 = perMm3(spec.densityGcm3) * spec.thicknessMm;
 	const moment = unbalanceGmm / gPerMm2; // mm³ of first moment to take away
 	if (moment < 1e-6) return null;

@@ -1,7 +1,7 @@
 // What makes a wheel impossible (refused, naming the field and the range that would work) and
 // what makes it risky (warned, with the reason and where on the wheel).
 import { gapsOf, missingPositions, pitchDeg } from './pattern';
-import { massProperties, permissibleUnbalanceGmm, unbalanceForceN } from './balance';
+import { permissibleUnbalanceGmm, unbalanceForceN, type MassProperties } from './balance';
 import { deg, formatLength, type Units } from './units';
 import { rootRadius, type HoleCircle, type WheelSpec } from './wheel';
 
@@ -62,7 +62,7 @@ export function refusals(spec: WheelSpec, units: Units): Refusal[] {
 	const out: Refusal[] = [];
 	const p = spec.pattern;
 	const N = p.teeth;
-	if (p.kind === 'missing' && p.missing >= N) out.push({ field: 'missing', message: `missing: 0 to ${N - 1} (fewer than the ${N} tooth positions)` });
+	if (p.kind === 'missing' && p.missing >= N) out.push({ field: 'missing', message: `missing: at most ${N - 1}, so that a tooth is left of the ${N} positions` });
 	if (p.kind === 'custom') {
 		const bad = p.missingPositions.filter((k) => k < 0 || k >= N || !Number.isInteger(k));
 		if (bad.length) out.push({ field: 'gaps', message: `gaps: positions 0 to ${N - 1} (got ${bad.join(', ')})` });
@@ -113,7 +113,7 @@ export interface Running {
 }
 
 /** Warnings for a wheel that can be made (call after `refusals` came back empty). */
-export function warnings(spec: WheelSpec, units: Units, running: Running): Warning[] {
+export function warnings(spec: WheelSpec, units: Units, running: Running, mass: MassProperties): Warning[] {
 	const out: Warning[] = [];
 	const R = spec.odMm / 2;
 	const r = rootRadius(spec);
@@ -138,10 +138,11 @@ export function warnings(spec: WheelSpec, units: Units, running: Running): Warni
 	if (spec.depthMm < sensorNeeds.toothDepthMm) {
 		out.push({ code: 'tooth-shallow-for-sensor', message: `Teeth ${formatLength(spec.depthMm, units)} deep are shallower than the ${formatLength(sensorNeeds.toothDepthMm, units)} a typical sensor needs to see a clean edge (from memory; check the data sheet).` });
 	}
-	const mass = massProperties(spec);
 	const permissible = permissibleUnbalanceGmm(running.gradeMmS, mass.massG / 1000, running.rpm);
 	if (mass.unbalanceGmm > permissible) {
-		const gaps = gapsOf(spec.pattern).map((g) => (g.first + g.count / 2) * pitch);
+		// The middle of each open space, from the trailing edge before the gap to the leading edge after it.
+		const tooth = spec.duty * pitch;
+		const gaps = gapsOf(spec.pattern).map((g) => ((g.first - 1) * pitch + tooth + (g.first + g.count) * pitch) / 2);
 		out.push({
 			code: 'unbalanced',
 			message: `Unbalance ${mass.unbalanceGmm.toFixed(1)} g·mm exceeds the ${permissible.toFixed(1)} g·mm ISO 21940-11 allows for G ${running.gradeMmS} at ${running.rpm} rpm (${unbalanceForceN(mass.unbalanceGmm, running.rpm).toFixed(1)} N of shaking force there). Add balance holes, or balance the assembly.`,

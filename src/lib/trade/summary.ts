@@ -12,6 +12,8 @@ export interface WheelSummary {
 	teethPresent: number;
 	pitchDeg: number;
 	toothWidthDeg: number;
+	/** Tooth pitch frequency at the rev limit, f = N·rpm/60 (common practice), wheel on the crank. */
+	pitchFrequencyHz: number;
 	teeth: { position: number; leadDeg: number; trailDeg: number }[];
 	gaps: { firstPosition: number; positions: number; spanDeg: number }[];
 	rootDiameterMm: number;
@@ -31,6 +33,7 @@ export function summarize(spec: WheelSpec, units: Units, running: Running): { ok
 	const pitch = pitchDeg(spec.pattern.teeth);
 	const teeth = teethOf(spec.pattern, spec.duty);
 	const mass = massProperties(spec);
+	const bare = spec.balanceHoles ? massProperties({ ...spec, balanceHoles: null }) : mass;
 	const permissible = permissibleUnbalanceGmm(running.gradeMmS, mass.massG / 1000, running.rpm);
 	return {
 		ok: true,
@@ -40,6 +43,7 @@ export function summarize(spec: WheelSpec, units: Units, running: Running): { ok
 			teethPresent: teeth.length,
 			pitchDeg: round(pitch),
 			toothWidthDeg: round(spec.duty * pitch),
+			pitchFrequencyHz: round((spec.pattern.teeth * running.rpm) / 60, 1),
 			teeth: teeth.map((t) => ({ position: t.position, leadDeg: round(t.leadDeg), trailDeg: round(t.trailDeg) })),
 			gaps: gapsOf(spec.pattern).map((g) => ({
 				firstPosition: g.first,
@@ -57,8 +61,8 @@ export function summarize(spec: WheelSpec, units: Units, running: Running): { ok
 				rpm: running.rpm
 			},
 			permissible: { gmm: round(permissible, 2), grade: running.gradeMmS, standard: 'ISO 21940-11' },
-			balanceSuggestion: mass.unbalanceGmm > 0.01 ? balanceHoles(spec) : null,
-			warnings: warnings(spec, units, running)
+			balanceSuggestion: bare.unbalanceGmm > 0.01 ? balanceHoles(spec, bare) : null,
+			warnings: warnings(spec, units, running, mass)
 		}
 	};
 }

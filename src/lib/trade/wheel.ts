@@ -181,12 +181,15 @@ export function drawWheel(spec: WheelSpec): WheelDrawing {
 	const labelR = (r + inner) / 2;
 	const heightMm = Math.min(4, (r - inner) * 0.25);
 	const labelAngle = drawDeg(spec, (spec.indexMarkDeg ?? 0) + 180);
+	// Text runs along the circle, turned so that it never reads upside down.
+	const along = (((labelAngle - 90) % 360) + 360) % 360;
+	const textAngle = along > 90 && along < 270 ? along - 180 : along;
 	return {
 		outer: outerProfile(spec),
 		bore: boreContour(spec),
 		holes: holeContours(spec),
 		etch: mark ? [mark] : [],
-		labelAt: spec.label && heightMm >= 1.5 ? { point: polar(labelR, labelAngle), heightMm, angleDeg: labelAngle - 90 } : null,
+		labelAt: spec.label && heightMm >= 1.5 ? { point: polar(labelR, labelAngle), heightMm, angleDeg: textAngle } : null,
 		spans: toothSpans(spec)
 	};
 }

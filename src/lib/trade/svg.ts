@@ -1,0 +1,37 @@
+// SVG path data for contours: shared by the live preview and the SVG and PDF exports.
+// Drawing coordinates are y-up (mathematics); SVG's are y-down, so y is negated here.
+import { sweepDeg, type Contour, type Point, type Segment } from './geometry';
+
+const n = (v: number) => (Math.abs(v) < 5e-7 ? '0' : v.toFixed(4).replace(/\.?0+$/, ''));
+const pt = (p: Point, k: number) => `${n(p.x * k)} ${n(-p.y * k)}`;
+
+function segmentPath(s: Segment, k: number): string {
+	if (s.kind === 'line') return `L${pt(s.to, k)}`;
+	const sweep = sweepDeg(s);
+	const r = n(s.radius * k);
+	// SVG's sweep-flag 1 is the positive-angle direction of its y-down space; with y negated, that is
+	// our clockwise. So a counter-clockwise arc has sweep-flag 0.
+	const dir = s.ccw ? 0 : 1;
+	const flags = `${sweep > 180 ? 1 : 0} ${dir}`;
+	if (sweep >= 359.999) {
+		// A full turn cannot be one SVG arc: go half-way, then the rest.
+		const mid = { x: 2 * s.center.x - s.from.x, y: 2 * s.center.y - s.from.y };
+		return `A${r} ${r} 0 0 ${dir} ${pt(mid, k)}A${r} ${r} 0 0 ${dir} ${pt(s.to, k)}`;
+	}
+	return `A${r} ${r} 0 ${flags} ${pt(s.to, k)}`;
+}
+
+/** Path data for one closed contour, scaled by k (1 for mm; 1/25.4 for inches). */
+export function contourPath(c: Contour, k = 1): string {
+	if (c.kind === 'circle') {
+		const r = n(c.radius * k);
+		const left = { x: c.center.x - c.radius, y: c.center.y };
+		const right = { x: c.center.x + c.radius, y: c.center.y };
+		return `M${pt(left, k)}A${r} ${r} 0 1 0 ${pt(right, k)}A${r} ${r} 0 1 0 ${pt(left, k)}Z`;
+	}
+	return `M${pt(c.segments[0]!.from, k)}${c.segments.map((s) => segmentPath(s, k)).join('')}Z`;
+}
+
+export function segmentsPath(segments: Segment[], k = 1): string {
+	return segments.map((s) => `M${pt(s.from, k)}${segmentPath(s, k)}`).join('');
+}

@@ -1,0 +1,163 @@
+import { execFileSync } from 'node:child_process';
+import { mkdtempSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { describe, expect, it } from 'vitest';
+
+const app = process.env.APP_URL!;
+const dir = mkdtempSync(join(tmpdir(), 'phasewright-wheel-'));
+const facts = join(import.meta.dirname, '..', 'support', 'dxf_facts.py');
+
+const get = (path: string, params: Record<string, string>) => fetch(`${app}${path}?${new URLSearchParams(params)}`);
+
+interface DxfFacts {
+	auditErrors: number;
+	auditFixes: number;
+	insunits: number;
+	layers: Record<string, number>;
+	kinds: string[];
+	kindsByLayer: Record<string, number>;
+	openEnds: number;
+	extent: [number, number];
+	reach: number;
+	tipArcs: number;
+	flankAngles: number[];
+}
+
+/** Debian's python3-ezdxf reads the file back (tests/support/dxf_facts.py). */
+async function dxfFacts(params: Record<string, string>, od: number): Promise<DxfFacts> {
+	const res = await get('/api/v1/wheel.dxf', params);
+	expect(res.status).toBe(200);
+	const file = join(dir, `${Object.values(params).join('_').replace(/[^\w.-]/g, '')}.dxf`);
+	writeFileSync(file, Buffer.from(await res.arrayBuffer()));
+	return JSON.parse(execFileSync('/usr/bin/python3', [facts, file, String(od)], { encoding: 'utf8' })) as DxfFacts;
+}
+
+interface Case {
+	name: string;
+	params: Record<string, string>;
+	od: number;
+	teeth: number;
+	pitch: number;
+	duty: number;
+	insunits: number;
+}
+
+const cases: Case[] = [
+	{ name: '36-1, mm, sharp corners', params: { teeth: '36', missing: '1', od: '100', depth: '5', bore: '20', units: 'mm' }, od: 100, teeth: 35, pitch: 10, duty: 0.5, insunits: 4 },
+	{
+		name: '60-2, inches, B17.1 keyway, filleted',
+		params: { teeth: '60', missing: '2', od: '6', depth: '3/16', duty: '0.45', bore: '1', keyway: 'b17.1', shaft: '1', tipRadius: '0.02', rootRadius: '0.02', thickness: '1/8', units: 'in' },
+		od: 6,
+		teeth: 58,
+		pitch: 6,
+		duty: 0.45,
+		insunits: 1
+	},
+	{ name: '36-1-1 (two gaps 180° apart), bolt circle', params: { pattern: 'custom', teeth: '36', gaps: '17,35', od: '120', depth: '6', bore: '25', bolts: '4', pcd: '60', boltHole: '6.5', units: 'mm' }, od: 120, teeth: 34, pitch: 10, duty: 0.5, insunits: 4 },
+	{ name: '24-2 with DIN 6885-1 keyway', params: { teeth: '24', missing: '2', od: '90', depth: '6', bore: '20', keyway: 'din6885', shaft: '20', units: 'mm' }, od: 90, teeth: 22, pitch: 15, duty: 0.5, insunits: 4 }
+];
+
+describe('GET /api/v1/wheel (JSON)', () => {
+	// Seed document (fact of the trade): a 24-2 wheel has a 15° pitch and 22 teeth.
+	it('24-2: pitch 15°, 22 teeth, leading edges at multiples of the pitch', async () => {
+		const res = await get('/api/v1/wheel', { teeth: '24', missing: '2', od: '90', depth: '6', units: 'mm' });
+		expect(res.status).toBe(200);
+		const body = await res.json();
+		expect(body).toMatchObject({ pattern: '24-2', pitchDeg: 15, teethPresent: 22, units: 'mm' });
+		expect(body.teeth.map((t: { leadDeg: number }) => t.leadDeg)).toEqual(Array.from({ length: 22 }, (_, k) => k * 15));
+		// Gap from the last trailing edge to the first leading edge: (M + 1)·p − tooth width = 3·15 − 7.5.
+		expect(body.gaps).toEqual([{ firstPosition: 22, positions: 2, spanDeg: 37.5 }]);
+		expect(body.massG).toBeGreaterThan(0);
+		expect(body.permissible.standard).toBe('ISO 21940-11');
+	});
+
+	it('refuses bad parameters with 400, naming each field and its range', async () => {
+		const res = await get('/api/v1/wheel', { teeth: '0', od: 'big', depth: '5', duty: '2', units: 'mm' });
+		expect(res.status).toBe(400);
+		const body = await res.json();
+		expect(body.errors).toEqual({
+			teeth: 'teeth: a whole number from 1 to 720',
+			od: 'od: 10 mm to 2000 mm',
+			duty: 'duty: a number from 0.05 to 0.95'
+		});
+	});
+
+	it.each<[Record<string, string>, string, RegExp]>([
+		[{ teeth: '36', missing: '36', od: '100', depth: '5' }, 'missing', /at most 35/],
+		[{ teeth: '36', missing: '1', od: '100', depth: '45', bore: '20' }, 'depth', /less than 39\.50 mm/],
+		[{ teeth: '36', missing: '1', od: '100', depth: '5', bore: '20', bolts: '3', pcd: '30', boltHole: '12' }, 'pcd', /so the holes cut neither/],
+		[{ teeth: '36', missing: '1', od: '100', depth: '5', bore: '20', keyway: 'din6885' }, 'shaft', /shaft diameter/],
+		[{ teeth: '36', missing: '1', od: '4', depth: '3/16', units: 'yards' }, 'units', /one of mm, in/]
+	])('refuses an impossible wheel %#', async (params, field, message) => {
+		const res = await get('/api/v1/wheel.dxf', params);
+		expect(res.status).toBe(400);
+		expect((await res.json()).errors[field]).toMatch(message);
+	});
+
+	it('reads fractional inches', async () => {
+		const res = await get('/api/v1/wheel', { teeth: '36', missing: '1', od: '3 1/2', depth: '3/16', bore: '5/8', thickness: '1/8', units: 'in' });
+		expect(res.status).toBe(200);
+		expect((await res.json()).rootDiameterMm).toBeCloseTo((3.5 - 2 * 0.1875) * 25.4, 3);
+	});
+});
+
+describe('DXF for a cutting order, read back by ezdxf', () => {
+	it.each(cases)('$name', async (c) => {
+		const f = await dxfFacts(c.params, c.od);
+		expect(f.auditErrors).toBe(0);
+		expect(f.auditFixes).toBe(0);
+		// DXF reference: $INSUNITS 1 = inches, 4 = millimetres.
+		expect(f.insunits).toBe(c.insunits);
+		expect(f.layers.CUT).toBeDefined();
+		expect(f.layers.ETCH).toBeDefined();
+		expect(f.layers.CUT).not.toBe(f.layers.ETCH);
+		expect(f.kinds.every((k) => ['LINE', 'ARC', 'CIRCLE', 'TEXT'].includes(k))).toBe(true);
+		expect(f.openEnds).toBe(0);
+		// The tips reach the outside diameter; with rounded tip corners no tip needs to cross an axis,
+		// so the bounding box may fall short of it by less than a fillet.
+		expect(2 * f.reach).toBeCloseTo(c.od, 6);
+		const fillet = Number(c.params.tipRadius ?? 0);
+		for (const e of f.extent) expect(c.od - e).toBeLessThanOrEqual(2 * fillet + 1e-9);
+		expect(f.tipArcs).toBe(c.teeth);
+		// Flanks sit at 90° + k·p (leading) and 90° + k·p + duty·p (trailing) for a clockwise wheel.
+		expect(f.flankAngles).toHaveLength(2 * c.teeth);
+		for (const a of f.flankAngles) {
+			const within = (((a - 90) % c.pitch) + c.pitch) % c.pitch;
+			expect([0, c.duty * c.pitch, c.pitch].some((v) => Math.abs(within - v) < 1e-3), `flank at ${a}°`).toBe(true);
+		}
+	});
+
+	it('names the file after pattern, diameter and units', async () => {
+		const res = await get('/api/v1/wheel.dxf', cases[1]!.params);
+		expect(res.headers.get('content-type')).toBe('application/dxf');
+		expect(res.headers.get('content-disposition')).toBe('attachment; filename="wheel-60-2-6in.dxf"');
+	});
+});
+
+describe('SVG and PDF', () => {
+	it('SVG is drawn at true scale (width and height in the units)', async () => {
+		const res = await get('/api/v1/wheel.svg', cases[0]!.params);
+		expect(res.headers.get('content-type')).toBe('image/svg+xml');
+		const svg = await res.text();
+		expect(svg).toMatch(/<svg [^>]*width="100\.0000mm" height="100\.0000mm" viewBox="-50 -50 100 100"/);
+		const inch = await (await get('/api/v1/wheel.svg', cases[1]!.params)).text();
+		expect(inch).toMatch(/width="6\.0000in" height="6\.0000in"/);
+	});
+
+	it.each([
+		['a4', '595.276 x 841.89 pts (A4)'],
+		['letter', '612 x 792 pts (letter)']
+	])('PDF template on %s, read by poppler', async (paper, size) => {
+		const res = await get('/api/v1/wheel.pdf', { ...cases[0]!.params, paper });
+		expect(res.headers.get('content-type')).toBe('application/pdf');
+		const file = join(dir, `template-${paper}.pdf`);
+		writeFileSync(file, Buffer.from(await res.arrayBuffer()));
+		// ISO 216 A4 = 210 x 297 mm = 595.276 x 841.89 pt; ANSI Letter = 612 x 792 pt (1 pt = 1/72 in).
+		expect(execFileSync('pdfinfo', [file], { encoding: 'utf8' })).toContain(`Page size:       ${size}`);
+		const text = execFileSync('pdftotext', [file, '-'], { encoding: 'utf8' });
+		expect(text).toContain('Print at 100% / actual size');
+		expect(text).toContain('100 mm');
+		expect(text).toContain('36-1');
+	});
+});
