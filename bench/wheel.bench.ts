@@ -7,7 +7,7 @@ import { wheelSvg } from '../src/lib/server/exports/svg';
 import { wheelPdf } from '../src/lib/server/exports/wheel-pdf';
 import { summarize } from '../src/lib/trade/summary';
 import { contourPath } from '../src/lib/trade/svg';
-import { drawWheel } from '../src/lib/trade/wheel';
+import { cutContours, drawWheel } from '../src/lib/trade/wheel';
 
 let i = 0;
 function next() {
@@ -22,8 +22,7 @@ describe('60-2 wheel, 120 mm', () => {
 		const w = next();
 		const s = summarize(w.spec, w.units, w.running);
 		if (!s.ok) throw new Error('refused');
-		const d = drawWheel(w.spec);
-		[d.outer, ...(d.bore ? [d.bore] : []), ...d.holes].map((c) => contourPath(c));
+		cutContours(drawWheel(w.spec)).map((c) => contourPath(c));
 	});
 
 	bench('DXF export (makerjs)', () => {

@@ -4,7 +4,7 @@
 // G the balance grade in mm/s, m the rotor mass in kg, n the speed in rpm.
 import { contourMoments, polar } from './geometry';
 import { perMm3 } from './materials';
-import { drawDeg, drawWheel, rootRadius, type HoleCircle, type WheelSpec } from './wheel';
+import { cutContours, drawDeg, drawWheel, rootRadius, type HoleCircle, type WheelSpec } from './wheel';
 import { deg, norm360 } from './units';
 
 export interface MassProperties {
@@ -16,8 +16,7 @@ export interface MassProperties {
 }
 
 export function massProperties(spec: WheelSpec): MassProperties {
-	const d = drawWheel(spec);
-	const parts = [d.outer, ...(d.bore ? [d.bore] : []), ...d.holes].map(contourMoments);
+	const parts = cutContours(drawWheel(spec)).map(contourMoments);
 	const [outer, ...cutouts] = parts.map((m) => (m.area < 0 ? { area: -m.area, mx: -m.mx, my: -m.my } : m));
 	const net = cutouts.reduce((a, c) => ({ area: a.area - c.area, mx: a.mx - c.mx, my: a.my - c.my }), outer!);
 	const gPerMm2 = perMm3(spec.densityGcm3) * spec.thicknessMm;

@@ -1,9 +1,9 @@
 // What makes a wheel impossible (refused, naming the field and the range that would work) and
 // what makes it risky (warned, with the reason and where on the wheel).
-import { gapsOf, missingPositions, pitchDeg } from './pattern';
+import { missingPositions, pitchDeg } from './pattern';
 import { permissibleUnbalanceGmm, unbalanceForceN, type MassProperties } from './balance';
 import { deg, formatLength, type Units } from './units';
-import { rootRadius, type HoleCircle, type WheelSpec } from './wheel';
+import { gapOpenings, rootRadius, type HoleCircle, type WheelSpec } from './wheel';
 
 export interface Refusal {
 	field: string;
@@ -140,9 +140,7 @@ export function warnings(spec: WheelSpec, units: Units, running: Running, mass: 
 	}
 	const permissible = permissibleUnbalanceGmm(running.gradeMmS, mass.massG / 1000, running.rpm);
 	if (mass.unbalanceGmm > permissible) {
-		// The middle of each open space, from the trailing edge before the gap to the leading edge after it.
-		const tooth = spec.duty * pitch;
-		const gaps = gapsOf(spec.pattern).map((g) => ((g.first - 1) * pitch + tooth + (g.first + g.count) * pitch) / 2);
+		const gaps = gapOpenings(spec).map((g) => (g.fromDeg + g.toDeg) / 2);
 		out.push({
 			code: 'unbalanced',
 			message: `Unbalance ${mass.unbalanceGmm.toFixed(1)} g·mm exceeds the ${permissible.toFixed(1)} g·mm ISO 21940-11 allows for G ${running.gradeMmS} at ${running.rpm} rpm (${unbalanceForceN(mass.unbalanceGmm, running.rpm).toFixed(1)} N of shaking force there). Add balance holes, or balance the assembly.`,

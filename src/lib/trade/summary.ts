@@ -2,9 +2,9 @@
 // answers as JSON and what the page and the spec sheets show.
 import { balanceHoles, massProperties, permissibleUnbalanceGmm, unbalanceForceN } from './balance';
 import { refusals, warnings, type Refusal, type Running, type Warning } from './checks';
-import { gapsOf, patternName, pitchDeg, teethOf } from './pattern';
+import { patternName, pitchDeg, teethOf } from './pattern';
 import type { Units } from './units';
-import { rootRadius, type HoleCircle, type WheelSpec } from './wheel';
+import { gapOpenings, rootRadius, type HoleCircle, type WheelSpec } from './wheel';
 
 export interface WheelSummary {
 	pattern: string;
@@ -45,12 +45,8 @@ export function summarize(spec: WheelSpec, units: Units, running: Running): { ok
 			toothWidthDeg: round(spec.duty * pitch),
 			pitchFrequencyHz: round((spec.pattern.teeth * running.rpm) / 60, 1),
 			teeth: teeth.map((t) => ({ position: t.position, leadDeg: round(t.leadDeg), trailDeg: round(t.trailDeg) })),
-			gaps: gapsOf(spec.pattern).map((g) => ({
-				firstPosition: g.first,
-				positions: g.count,
-				// From the trailing edge before the gap to the leading edge after it: (M + 1)·p − tooth width.
-				spanDeg: round((g.count + 1) * pitch - spec.duty * pitch)
-			})),
+			// Each gap spans (M + 1)·p − one tooth width, trailing edge to leading edge.
+			gaps: gapOpenings(spec).map((g) => ({ firstPosition: g.first, positions: g.count, spanDeg: round(g.toDeg - g.fromDeg) })),
 			rootDiameterMm: round(2 * rootRadius(spec)),
 			areaMm2: round(mass.areaMm2, 2),
 			massG: round(mass.massG, 2),

@@ -2,7 +2,9 @@
 // Drawing coordinates are y-up (mathematics); SVG's are y-down, so y is negated here.
 import { sweepDeg, type Contour, type Point, type Segment } from './geometry';
 
-const n = (v: number) => (Math.abs(v) < 5e-7 ? '0' : v.toFixed(4).replace(/\.?0+$/, ''));
+// Four decimals (0.1 µm in mm): far finer than any cutter, and short. Rounding by arithmetic, not
+// toFixed + trimming, because the preview formats thousands of numbers per keystroke.
+const n = (v: number) => String(Math.round(v * 1e4) / 1e4 || 0);
 const pt = (p: Point, k: number) => `${n(p.x * k)} ${n(-p.y * k)}`;
 
 function segmentPath(s: Segment, k: number): string {

@@ -3,7 +3,7 @@
 // measured from the leading edge of the first tooth after the gap, in the sense of rotation.
 import { arc, line, polar, type Contour, type Point, type Segment } from './geometry';
 import type { HubSlot } from './keys';
-import { pitchDeg, teethOf, type Pattern, type Tooth } from './pattern';
+import { gapsOf, pitchDeg, teethOf, type Pattern, type Tooth } from './pattern';
 import { deg } from './units';
 
 export type Rotation = 'cw' | 'ccw';
@@ -147,10 +147,21 @@ export function holeCenters(spec: WheelSpec, holes: HoleCircle): Point[] {
 	return Array.from({ length: holes.count }, (_, i) => polar(holes.pcdMm / 2, drawDeg(spec, holes.clockDeg + i * step)));
 }
 
-export function holeContours(spec: WheelSpec): Contour[] {
-	return [spec.bolts, spec.balanceHoles]
-		.filter((h): h is HoleCircle => !!h && h.count > 0)
-		.flatMap((h) => holeCenters(spec, h).map((center): Contour => ({ kind: 'circle', center, radius: h.holeMm / 2 })));
+export interface Hole {
+	kind: 'bolt' | 'balance';
+	contour: Contour;
+}
+
+export function holes(spec: WheelSpec): Hole[] {
+	const circle = (kind: Hole['kind'], h: HoleCircle | null): Hole[] =>
+		h && h.count > 0 ? holeCenters(spec, h).map((center) => ({ kind, contour: { kind: 'circle', center, radius: h.holeMm / 2 } })) : [];
+	return [...circle('bolt', spec.bolts), ...circle('balance', spec.balanceHoles)];
+}
+
+/** Each gap's open space in wheel degrees: from the trailing edge before it to the leading edge after it. */
+export function gapOpenings(spec: WheelSpec): { first: number; count: number; fromDeg: number; toDeg: number }[] {
+	const pitch = pitchDeg(spec.pattern.teeth);
+	return gapsOf(spec.pattern).map((g) => ({ ...g, fromDeg: (g.first - 1) * pitch + spec.duty * pitch, toDeg: (g.first + g.count) * pitch }));
 }
 
 /** The etched index (TDC) mark: a radial line inside the tooth root at the marked wheel angle. */
@@ -167,12 +178,17 @@ export function indexMark(spec: WheelSpec): Segment | null {
 export interface WheelDrawing {
 	outer: Contour;
 	bore: Contour | null;
-	holes: Contour[];
+	holes: Hole[];
 	etch: Segment[];
+	/** The gaps' open spaces in drawing angles, a0 < a1. */
+	gaps: { a0: number; a1: number }[];
 	/** Where the part label sits (centre of its baseline) and its height, mm. */
 	labelAt: { point: Point; heightMm: number; angleDeg: number } | null;
 	spans: ToothSpan[];
 }
+
+/** Everything a cutter cuts: the outer profile, the bore with its keyway, and every hole. */
+export const cutContours = (d: WheelDrawing): Contour[] => [d.outer, ...(d.bore ? [d.bore] : []), ...d.holes.map((h) => h.contour)];
 
 export function drawWheel(spec: WheelSpec): WheelDrawing {
 	const mark = indexMark(spec);
@@ -187,7 +203,11 @@ export function drawWheel(spec: WheelSpec): WheelDrawing {
 	return {
 		outer: outerProfile(spec),
 		bore: boreContour(spec),
-		holes: holeContours(spec),
+		holes: holes(spec),
+		gaps: gapOpenings(spec).map((g) => {
+			const [p, q] = [drawDeg(spec, g.fromDeg), drawDeg(spec, g.toDeg)];
+			return { a0: Math.min(p, q), a1: Math.max(p, q) };
+		}),
 		etch: mark ? [mark] : [],
 		labelAt: spec.label && heightMm >= 1.5 ? { point: polar(labelR, labelAngle), heightMm, angleDeg: textAngle } : null,
 		spans: toothSpans(spec)

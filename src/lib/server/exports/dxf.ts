@@ -3,7 +3,7 @@
 import makerjs from 'makerjs';
 import type { Contour, Segment } from '$lib/trade/geometry';
 import type { Units } from '$lib/trade/units';
-import { drawWheel, type WheelSpec } from '$lib/trade/wheel';
+import { cutContours, drawWheel, type WheelSpec } from '$lib/trade/wheel';
 
 export const layers = {
 	cut: { name: 'CUT', color: makerjs.exporter.colors.red },
@@ -25,7 +25,7 @@ function contourPaths(c: Contour, k: number): makerjs.IPath[] {
 export function wheelModel(spec: WheelSpec, units: Units): makerjs.IModel {
 	const k = units === 'in' ? 1 / 25.4 : 1;
 	const d = drawWheel(spec);
-	const cut = [d.outer, ...(d.bore ? [d.bore] : []), ...d.holes];
+	const cut = cutContours(d);
 	const paths: Record<string, makerjs.IPath> = {};
 	cut.forEach((c, i) => contourPaths(c, k).forEach((p, j) => (paths[`cut${i}_${j}`] = { ...p, layer: layers.cut.name } as makerjs.IPath)));
 	d.etch.forEach((s, i) => (paths[`etch${i}`] = { ...toPath(s, k), layer: layers.etch.name } as makerjs.IPath));

@@ -2,7 +2,7 @@
 // its own group; fill-rule evenodd so the bore and holes read as holes.
 import { contourPath, segmentsPath } from '$lib/trade/svg';
 import { fromMm, type Units } from '$lib/trade/units';
-import { drawWheel, type WheelSpec } from '$lib/trade/wheel';
+import { cutContours, drawWheel, type WheelSpec } from '$lib/trade/wheel';
 
 const escape = (s: string) => s.replace(/[<>&"]/g, (c) => `&#${c.charCodeAt(0)};`);
 
@@ -11,7 +11,7 @@ export function wheelSvg(spec: WheelSpec, units: Units): string {
 	const d = drawWheel(spec);
 	const size = fromMm(spec.odMm, units);
 	const half = size / 2;
-	const cut = [d.outer, ...(d.bore ? [d.bore] : []), ...d.holes].map((c) => contourPath(c, k)).join('');
+	const cut = cutContours(d).map((c) => contourPath(c, k)).join('');
 	const label = d.labelAt
 		? `<text x="${(d.labelAt.point.x * k).toFixed(4)}" y="${(-d.labelAt.point.y * k).toFixed(4)}" font-size="${(d.labelAt.heightMm * k).toFixed(4)}" font-family="Inter, sans-serif" text-anchor="middle" dominant-baseline="middle" transform="rotate(${(-d.labelAt.angleDeg).toFixed(3)} ${(d.labelAt.point.x * k).toFixed(4)} ${(-d.labelAt.point.y * k).toFixed(4)})" fill="#1d47b0">${escape(spec.label)}</text>`
 		: '';

@@ -2,7 +2,7 @@
 import { contourPath, segmentsPath } from '$lib/trade/svg';
 import type { WheelSummary } from '$lib/trade/summary';
 import { formatLength, type Units } from '$lib/trade/units';
-import { drawWheel, type WheelSpec } from '$lib/trade/wheel';
+import { cutContours, drawWheel, type WheelSpec } from '$lib/trade/wheel';
 import { calibrationBars, finish, mm, newDocument, papers, printNote } from './pdf-kit';
 
 const margin = 12;
@@ -45,7 +45,7 @@ export async function wheelPdf(spec: WheelSpec, summary: WheelSummary, units: Un
 	const cy = margin + 18 + spec.odMm / 2;
 	doc.save().translate(mm(cx), mm(cy)).scale(mm(1));
 	doc.lineWidth(0.25).strokeColor('black');
-	for (const c of [d.outer, ...(d.bore ? [d.bore] : []), ...d.holes]) doc.path(contourPath(c)).stroke();
+	for (const c of cutContours(d)) doc.path(contourPath(c)).stroke();
 	doc.strokeColor('#1d47b0');
 	if (d.etch.length) doc.path(segmentsPath(d.etch)).stroke();
 	// Centre cross, to line the template up on the blank.
