@@ -1,0 +1,53 @@
+import { describe, expect, it } from 'vitest';
+import { mmPerDegree, tapeX, ticks, tile, type TapeSpec } from './tape';
+
+const spec = (over: Partial<TapeSpec> = {}): TapeSpec => ({
+	hubDiameterMm: 76.2,
+	paperThicknessMm: 0.1,
+	rotation: 'cw',
+	windowDeg: 45,
+	tickDeg: 1,
+	midEveryDeg: 5,
+	labelEveryDeg: 10,
+	timingMarks: [],
+	otherTdc: [],
+	...over
+});
+
+describe('degree tape scale', () => {
+	// Arc length: one degree is π·(D + t)/360 along the hub (paper on its mid-thickness).
+	it('3 in hub, 0.1 mm paper: 0.66584 mm per degree', () => {
+		expect(mmPerDegree(spec())).toBeCloseTo((Math.PI * 76.3) / 360, 12);
+	});
+
+	it('puts BTDC on the side that reaches the pointer first', () => {
+		// Clockwise seen from the tape side: the tape moves left to right at the pointer, BTDC left of TDC.
+		expect(tapeX(spec(), -10)).toBeLessThan(tapeX(spec(), 0));
+		expect(tapeX(spec({ rotation: 'ccw' }), -10)).toBeGreaterThan(tapeX(spec({ rotation: 'ccw' }), 0));
+	});
+
+	it('ticks every degree, longer every 5, labelled every 10, zero labelled TDC', () => {
+		const t = ticks(spec());
+		expect(t).toHaveLength(91);
+		expect(t.filter((x) => x.size === 'major').map((x) => x.label)).toEqual(['40', '30', '20', '10', 'TDC', '10', '20', '30', '40']);
+		expect(t.filter((x) => x.size === 'mid')).toHaveLength(10); // ±5, ±15, ±25, ±35, ±45
+	});
+
+	it('a full circle draws 180° once', () => {
+		expect(ticks(spec({ windowDeg: 180 }))).toHaveLength(360);
+	});
+});
+
+describe('tiling a long tape', () => {
+	it('overlaps each strip with the one before, and numbers pages', () => {
+		const strips = tile(1000, 190, 10, 4);
+		expect(strips[0]).toEqual({ index: 1, page: 1, fromMm: 0, toMm: 190 });
+		expect(strips[1]!.fromMm).toBe(180);
+		expect(strips.at(-1)!.toMm).toBe(1000);
+		expect(strips.map((s) => s.page)).toEqual([1, 1, 1, 1, 2, 2]);
+	});
+
+	it('a short tape is one strip', () => {
+		expect(tile(120, 190, 10, 4)).toEqual([{ index: 1, page: 1, fromMm: 0, toMm: 120 }]);
+	});
+});

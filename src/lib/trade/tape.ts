@@ -1,0 +1,96 @@
+// Degree tapes: a strip wrapped round a timing hub that reads crank degrees, zero at TDC.
+// Scale: arc length s = r·θ, so one degree is π·D/360 along the hub; the tape lies on its own
+// mid-thickness, so D is the hub diameter plus the paper thickness t (about 0.1 mm for office
+// paper, from memory).
+
+export interface TapeSpec {
+	/** Hub diameter, mm (from a measured circumference C: D = C/π). */
+	hubDiameterMm: number;
+	paperThicknessMm: number;
+	/** Crank rotation seen from the tape side. */
+	rotation: 'cw' | 'ccw';
+	/** Degrees shown each side of TDC; 180 = the full circle. */
+	windowDeg: number;
+	/** Degrees between ticks; every `midEvery`-th tick is longer, every `labelEvery` degrees labelled. */
+	tickDeg: number;
+	midEveryDeg: number;
+	labelEveryDeg: number;
+	/** Extra marks: spec timings (degrees BTDC, positive) and other cylinders' TDC (degrees after TDC 1). */
+	timingMarks: { label: string; btdcDeg: number }[];
+	otherTdc: { label: string; atdcDeg: number }[];
+}
+
+export const mmPerDegree = (spec: Pick<TapeSpec, 'hubDiameterMm' | 'paperThicknessMm'>) => (Math.PI * (spec.hubDiameterMm + spec.paperThicknessMm)) / 360;
+
+export const diameterFromCircumference = (circumferenceMm: number) => circumferenceMm / Math.PI;
+
+/**
+ * Where a crank angle sits along the tape, mm from the tape's left end. Angles are degrees ATDC
+ * (BTDC negative). Read with the print upright at the pointer: a clockwise crank carries the tape
+ * from left to right past the pointer, so the BTDC side, which arrives first, is on the left.
+ */
+export function tapeX(spec: TapeSpec, atdcDeg: number): number {
+	const side = spec.rotation === 'cw' ? 1 : -1;
+	return (spec.windowDeg + side * atdcDeg) * mmPerDegree(spec);
+}
+
+export const tapeLengthMm = (spec: TapeSpec) => 2 * spec.windowDeg * mmPerDegree(spec);
+
+export interface Tick {
+	atdcDeg: number;
+	xMm: number;
+	size: 'minor' | 'mid' | 'major';
+	label: string | null;
+}
+
+/** Every tick of the tape, left to right. Labels are the degrees from TDC without sign; the sides say BTDC and ATDC. */
+export function ticks(spec: TapeSpec): Tick[] {
+	const out: Tick[] = [];
+	const n = Math.round((2 * spec.windowDeg) / spec.tickDeg);
+	const near = (v: number, step: number) => Math.abs(v / step - Math.round(v / step)) < 1e-6;
+	for (let i = 0; i <= n; i++) {
+		const deg = -spec.windowDeg + i * spec.tickDeg;
+		// A full circle's two ends are the same place (180° BTDC = 180° ATDC): draw it once.
+		if (spec.windowDeg >= 180 && i === n) break;
+		const labelled = near(deg, spec.labelEveryDeg);
+		out.push({
+			atdcDeg: deg,
+			xMm: tapeX(spec, deg),
+			size: labelled ? 'major' : near(deg, spec.midEveryDeg) ? 'mid' : 'minor',
+			label: labelled ? (Math.abs(deg) < 1e-9 ? 'TDC' : String(Math.round(Math.abs(deg) * 100) / 100)) : null
+		});
+	}
+	return out.sort((a, b) => a.xMm - b.xMm);
+}
+
+/** Tape warnings: ticks too close to read or print. */
+export function tapeWarnings(spec: TapeSpec): string[] {
+	const pitch = spec.tickDeg * mmPerDegree(spec);
+	const out: string[] = [];
+	if (pitch < 0.5) out.push(`Ticks ${pitch.toFixed(2)} mm apart are hard to print and read: choose a coarser tick spacing.`);
+	if (spec.labelEveryDeg * mmPerDegree(spec) < 4) out.push('Labels closer than 4 mm crowd each other: label fewer degrees.');
+	return out;
+}
+
+export interface Strip {
+	/** Order on the pages, from 1. */
+	index: number;
+	page: number;
+	/** Tape coordinates (mm) this strip shows, overlap included. */
+	fromMm: number;
+	toMm: number;
+}
+
+/**
+ * Tiles a tape over pages: strips of at most `widthMm`, each repeating the last `overlapMm` of
+ * the one before (join marks line them up), stacked `rowsPerPage` to a page.
+ */
+export function tile(lengthMm: number, widthMm: number, overlapMm: number, rowsPerPage: number): Strip[] {
+	const strips: Strip[] = [];
+	const advance = widthMm - overlapMm;
+	for (let from = 0, i = 0; ; i++, from += advance) {
+		strips.push({ index: i + 1, page: Math.floor(i / rowsPerPage) + 1, fromMm: from, toMm: Math.min(from + widthMm, lengthMm) });
+		if (from + widthMm >= lengthMm) break;
+	}
+	return strips;
+}
