@@ -28,7 +28,7 @@ export const tools: readonly Tool[] = [
 		title: 'Degree tape',
 		summary:
 			'Print a degree tape sized to your timing hub, zero at TDC, with BTDC on the correct side for the crank rotation.',
-		ready: false
+		ready: true
 	},
 	{
 		id: 'tdc',
@@ -36,7 +36,7 @@ export const tools: readonly Tool[] = [
 		title: 'TDC finder',
 		summary:
 			'Enter the two piston-stop marks and get true TDC half-way between them, in crank degrees.',
-		ready: false
+		ready: true
 	},
 	{
 		id: 'phasing',

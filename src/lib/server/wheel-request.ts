@@ -1,4 +1,4 @@
-import { json } from '@sveltejs/kit';
+import { refuse } from './api';
 import { parseWheel, type ParsedWheel } from '$lib/schemas/wheel';
 import { summarize, type WheelSummary } from '$lib/trade/summary';
 
@@ -11,18 +11,4 @@ export function wheelFromQuery(url: URL): WheelRequest {
 	const result = summarize(parsed.value.spec, parsed.value.units, parsed.value.running);
 	if (!result.ok) return { ok: false, response: refuse(Object.fromEntries(result.refusals.map((r) => [r.field, r.message]))) };
 	return { ok: true, wheel: parsed.value, summary: result.summary };
-}
-
-function refuse(errors: Record<string, string>): Response {
-	return json({ message: 'This wheel cannot be made as given; see errors for each field.', code: 'invalid', errors }, { status: 400 });
-}
-
-export function fileResponse(body: string | Buffer, contentType: string, filename: string): Response {
-	return new Response(typeof body === 'string' ? body : new Uint8Array(body), {
-		headers: {
-			'content-type': contentType,
-			'content-disposition': `attachment; filename="${filename}"`,
-			'cache-control': 'public, max-age=3600'
-		}
-	});
 }

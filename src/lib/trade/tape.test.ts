@@ -26,10 +26,10 @@ describe('degree tape scale', () => {
 		expect(tapeX(spec({ rotation: 'ccw' }), -10)).toBeGreaterThan(tapeX(spec({ rotation: 'ccw' }), 0));
 	});
 
-	it('ticks every degree, longer every 5, labelled every 10, zero labelled TDC', () => {
+	it('ticks every degree, longer every 5, labelled every 10, zero at TDC', () => {
 		const t = ticks(spec());
 		expect(t).toHaveLength(91);
-		expect(t.filter((x) => x.size === 'major').map((x) => x.label)).toEqual(['40', '30', '20', '10', 'TDC', '10', '20', '30', '40']);
+		expect(t.filter((x) => x.size === 'major').map((x) => x.label)).toEqual(['40', '30', '20', '10', '0', '10', '20', '30', '40']);
 		expect(t.filter((x) => x.size === 'mid')).toHaveLength(10); // ±5, ±15, ±25, ±35, ±45
 	});
 

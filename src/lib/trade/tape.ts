@@ -2,6 +2,7 @@
 // Scale: arc length s = r·θ, so one degree is π·D/360 along the hub; the tape lies on its own
 // mid-thickness, so D is the hub diameter plus the paper thickness t (about 0.1 mm for office
 // paper, from memory).
+import { papers, type Paper } from './paper';
 
 export interface TapeSpec {
 	/** Hub diameter, mm (from a measured circumference C: D = C/π). */
@@ -43,7 +44,7 @@ export interface Tick {
 	label: string | null;
 }
 
-/** Every tick of the tape, left to right. Labels are the degrees from TDC without sign; the sides say BTDC and ATDC. */
+/** Every tick of the tape, left to right. Labels are the degrees from TDC without sign (0 at TDC); the sides say BTDC and ATDC. */
 export function ticks(spec: TapeSpec): Tick[] {
 	const out: Tick[] = [];
 	const n = Math.round((2 * spec.windowDeg) / spec.tickDeg);
@@ -57,7 +58,7 @@ export function ticks(spec: TapeSpec): Tick[] {
 			atdcDeg: deg,
 			xMm: tapeX(spec, deg),
 			size: labelled ? 'major' : near(deg, spec.midEveryDeg) ? 'mid' : 'minor',
-			label: labelled ? (Math.abs(deg) < 1e-9 ? 'TDC' : String(Math.round(Math.abs(deg) * 100) / 100)) : null
+			label: labelled ? String(Math.round(Math.abs(deg) * 100) / 100) : null
 		});
 	}
 	return out.sort((a, b) => a.xMm - b.xMm);
@@ -70,6 +71,17 @@ export function tapeWarnings(spec: TapeSpec): string[] {
 	if (pitch < 0.5) out.push(`Ticks ${pitch.toFixed(2)} mm apart are hard to print and read: choose a coarser tick spacing.`);
 	if (spec.labelEveryDeg * mmPerDegree(spec) < 4) out.push('Labels closer than 4 mm crowd each other: label fewer degrees.');
 	return out;
+}
+
+/** How a tape sits on paper (mm): strips stacked between a header and the calibration bars. */
+export const tapePage = { marginMm: 12, headerMm: 26, footerMm: 26, stripHeightMm: 24, rowGapMm: 7, overlapMm: 12 } as const;
+
+/** The strips a tape prints as on a paper size, with their pages. */
+export function tapeStrips(spec: TapeSpec, paper: Paper): Strip[] {
+	const { widthMm, heightMm } = papers[paper];
+	const p = tapePage;
+	const rows = Math.floor((heightMm - 2 * p.marginMm - p.headerMm - p.footerMm) / (p.stripHeightMm + p.rowGapMm));
+	return tile(tapeLengthMm(spec), widthMm - 2 * p.marginMm, p.overlapMm, rows);
 }
 
 export interface Strip {

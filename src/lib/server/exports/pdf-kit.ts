@@ -7,8 +7,7 @@ import { fontFile, pdfFonts } from './fonts';
 export const PT_PER_MM = 72 / 25.4;
 export const mm = (v: number) => v * PT_PER_MM;
 
-/** ISO 216 A4 210 x 297 mm; ANSI Letter 8.5 x 11 in. */
-export const papers = { a4: { widthMm: 210, heightMm: 297 }, letter: { widthMm: 215.9, heightMm: 279.4 } } as const;
+export { papers } from '$lib/trade/paper';
 
 export function newDocument(title: string, size: { widthMm: number; heightMm: number }) {
 	const doc = new PDFDocument({ size: [mm(size.widthMm), mm(size.heightMm)], margin: 0, info: { Title: title, Creator: 'Phasewright' }, autoFirstPage: true });

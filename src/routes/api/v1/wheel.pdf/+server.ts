@@ -1,6 +1,7 @@
 import { exportName } from '$lib/server/exports/names';
 import { wheelPdf } from '$lib/server/exports/wheel-pdf';
-import { fileResponse, wheelFromQuery } from '$lib/server/wheel-request';
+import { fileResponse } from '$lib/server/api';
+import { wheelFromQuery } from '$lib/server/wheel-request';
 
 export async function GET({ url }) {
 	const r = wheelFromQuery(url);

@@ -1,0 +1,24 @@
+import { json } from '@sveltejs/kit';
+import { parseTape } from '$lib/schemas/tape';
+import { refuse } from '$lib/server/api';
+import { mmPerDegree, tapeLengthMm, tapeStrips, tapeWarnings } from '$lib/trade/tape';
+import { fromMm } from '$lib/trade/units';
+
+export function GET({ url }) {
+	const parsed = parseTape(Object.fromEntries(url.searchParams));
+	if (!parsed.ok) return refuse(parsed.errors);
+	const { spec, units, paper } = parsed.value;
+	const strips = tapeStrips(spec, paper);
+	const r = (v: number) => Math.round(v * 1e6) / 1e6;
+	return json({
+		units,
+		hubDiameter: r(fromMm(spec.hubDiameterMm, units)),
+		perDegree: r(fromMm(mmPerDegree(spec), units)),
+		length: r(fromMm(tapeLengthMm(spec), units)),
+		windowDeg: spec.windowDeg,
+		paper,
+		strips: strips.length,
+		pages: strips.at(-1)!.page,
+		warnings: tapeWarnings(spec)
+	});
+}
