@@ -1,0 +1,127 @@
+// Phasing: where the engine is when a tooth reaches the sensor, in the numbers a tuner enters.
+// Conventions: tooth 0 is the first after the gap; `toothAtTdc` is the tooth (fractions allowed)
+// under the sensor with cylinder 1 at TDC. A wheel on the cam turns at half crank speed, so one
+// wheel degree is two crank degrees.
+import { cycleDeg, firingTdcs, type Stroke } from './engine';
+import { gapsOf, pitchDeg, type Pattern } from './pattern';
+
+export interface PhasingInput {
+	pattern: Pattern;
+	duty: number;
+	mount: 'crank' | 'cam';
+	stroke: Stroke;
+	intervals: number[];
+	toothAtTdc: number;
+	/** Which tooth edge the ECU reads. */
+	edge: 'leading' | 'trailing';
+	revLimitRpm: number;
+	crankingRpm: number;
+	sensorMaxHz: number;
+	/** The spark window each cylinder keeps the gap clear of, degrees BTDC: from `windowFromBtdc` down to `windowToBtdc`. */
+	windowFromBtdc: number;
+	windowToBtdc: number;
+	/** Finest timing step wanted, crank degrees (optional). */
+	resolutionDeg?: number;
+}
+
+export interface PhasingResult {
+	pitchDeg: number;
+	resolutionDeg: number;
+	firstToothOffsetDeg: number;
+	pitchFrequencyHz: number;
+	gapAtCrankingMs: number;
+	gapClearanceDeg: { cylinder: number; tdcDeg: number; clearanceDeg: number }[];
+	warnings: { code: string; message: string }[];
+}
+
+const norm = (a: number, period: number) => ((a % period) + period) % period;
+const round = (x: number, places = 3) => Math.round(x * 10 ** places) / 10 ** places;
+
+/** Crank degrees between two intervals on a circle of `period` (0 when they overlap). */
+function separation(a0: number, a1: number, b0: number, b1: number, period: number): number {
+	let best = Infinity;
+	for (const shift of [-period, 0, period]) {
+		const s0 = b0 + shift;
+		const s1 = b1 + shift;
+		if (a0 <= s1 && s0 <= a1) return 0;
+		best = Math.min(best, Math.abs(s0 - a1), Math.abs(a0 - s1));
+	}
+	return best;
+}
+
+export function phasing(input: PhasingInput): PhasingResult {
+	const factor = input.mount === 'cam' ? 2 : 1;
+	const pitch = pitchDeg(input.pattern.teeth);
+	const toothWidth = input.duty * pitch;
+	// Tooth 0's leading edge met the sensor toothAtTdc pitches of wheel before TDC.
+	const leadOffset = input.toothAtTdc * pitch * factor;
+	const firstToothOffsetDeg = input.edge === 'leading' ? leadOffset : leadOffset - toothWidth * factor;
+	const wheelRpmAt = (crankRpm: number) => crankRpm / factor;
+	// Tooth pitch frequency f = N·rpm/60 (common practice), at the wheel's own speed.
+	const pitchFrequencyHz = (input.pattern.teeth * wheelRpmAt(input.revLimitRpm)) / 60;
+
+	const cycle = cycleDeg(input.stroke);
+	const wheelTurn = 360 * factor; // crank degrees per turn of the wheel
+	const gaps = gapsOf(input.pattern).map((g) => {
+		// The gap's open space, wheel degrees from tooth 0's leading edge, then crank degrees after TDC 1.
+		const from = (g.first - 1) * pitch + toothWidth;
+		const to = (g.first + g.count) * pitch;
+		return { from: (from - input.toothAtTdc * pitch) * factor, to: (to - input.toothAtTdc * pitch) * factor };
+	});
+	const tdcs = firingTdcs(input.intervals);
+	const gapAtCrankingMs = gaps.length ? (((gaps[0]!.to - gaps[0]!.from) / factor / 360) * 60_000) / wheelRpmAt(input.crankingRpm) : 0;
+
+	const clearances = tdcs.map((tdc, i) => {
+		const w0 = tdc - input.windowFromBtdc;
+		const w1 = tdc - input.windowToBtdc;
+		let clearance = Infinity;
+		// The wheel repeats every wheelTurn; the engine's cycle every `cycle`: look at every pass of each gap in a cycle.
+		for (const g of gaps) {
+			for (let turn = 0; turn * wheelTurn < cycle; turn++) {
+				clearance = Math.min(clearance, separation(w0, w1, norm(g.from + turn * wheelTurn, cycle), norm(g.from + turn * wheelTurn, cycle) + (g.to - g.from), cycle));
+			}
+		}
+		return { cylinder: i + 1, tdcDeg: tdc, clearanceDeg: gaps.length ? round(clearance) : NaN };
+	});
+
+	const warnings: PhasingResult['warnings'] = [];
+	for (const c of clearances) {
+		if (c.clearanceDeg === 0) {
+			warnings.push({ code: 'gap-in-spark-window', message: `The gap passes the sensor inside cylinder ${c.cylinder}'s spark window (${input.windowFromBtdc}° to ${input.windowToBtdc}° BTDC): the ECU re-synchronises there and timing can jump. Clock the wheel so the gap comes earlier.` });
+		}
+	}
+	if (pitchFrequencyHz > input.sensorMaxHz) {
+		warnings.push({ code: 'sensor-too-slow', message: `At ${input.revLimitRpm} rpm the teeth pass at ${round(pitchFrequencyHz, 0)} Hz, above the sensor's ${input.sensorMaxHz} Hz: the signal will drop out near the rev limit. Use fewer teeth or a faster sensor.` });
+	}
+	if (input.mount === 'crank' && input.stroke === 4) {
+		warnings.push({ code: 'no-cam-phase', message: 'A crank-only wheel on a four-stroke cannot tell compression from exhaust: wasted spark and batch (or semi-sequential) injection only, unless a cam signal is added.' });
+	}
+	const resolution = pitch * factor;
+	if (input.resolutionDeg !== undefined && resolution > input.resolutionDeg) {
+		warnings.push({ code: 'too-few-teeth', message: `One tooth every ${round(resolution)} crank degrees is coarser than the ${input.resolutionDeg}° asked for: use more teeth.` });
+	}
+	const offTooth = tdcs.filter((t) => Math.abs(norm(t / factor, pitch)) > 1e-6 && Math.abs(norm(t / factor, pitch) - pitch) > 1e-6);
+	if (offTooth.length) {
+		warnings.push({ code: 'tdc-between-teeth', message: `Cylinder TDCs at ${offTooth.map((t) => `${t}°`).join(', ')} fall between teeth of a ${round(pitch)}° pitch: the ECU must interpolate their timing between edges.` });
+	}
+
+	return {
+		pitchDeg: round(pitch),
+		resolutionDeg: round(resolution),
+		firstToothOffsetDeg: round(norm(firstToothOffsetDeg, wheelTurn)),
+		pitchFrequencyHz: round(pitchFrequencyHz, 1),
+		gapAtCrankingMs: round(gapAtCrankingMs, 2),
+		gapClearanceDeg: clearances,
+		warnings
+	};
+}
+
+/**
+ * Where to put the keyway on the wheel (the designer's keywayAngle, wheel degrees from tooth 0's
+ * leading edge) so the first-tooth offset lands on `targetDeg` BTDC, given where the key sits
+ * with cylinder 1 at TDC: `keyFromSensorDeg` wheel degrees past the sensor in the sense of rotation.
+ */
+export function clockingFor(targetDeg: number, keyFromSensorDeg: number, mount: 'crank' | 'cam'): number {
+	const factor = mount === 'cam' ? 2 : 1;
+	return round(norm(targetDeg / factor + keyFromSensorDeg, 360));
+}
