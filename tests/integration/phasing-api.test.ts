@@ -37,3 +37,33 @@ describe('GET /api/v1/phasing', () => {
 		expect(Object.keys((await none.json()).errors).sort()).toEqual(['teeth', 'toothAtTdc']);
 	});
 });
+
+describe('GET /api/v1/build-sheet.pdf', () => {
+	it('puts the wheel, the phasing, the TDC record and the warnings on one page (read back by poppler)', async () => {
+		const { execFileSync } = await import('node:child_process');
+		const { mkdtempSync, writeFileSync } = await import('node:fs');
+		const { join } = await import('node:path');
+		const { tmpdir } = await import('node:os');
+		const params = { build: 'Trail single 500', revision: '3', teeth: '36', missing: '1', od: '100', depth: '5', bore: '20', toothAtTdc: '9', rpm: '7000', tdcA: '-10', tdcB: '19', tapeDiameter: '76.2' };
+		const res = await fetch(`${process.env.APP_URL}/api/v1/build-sheet.pdf?${new URLSearchParams(params)}`);
+		expect(res.status).toBe(200);
+		expect(res.headers.get('content-disposition')).toBe('attachment; filename="build-sheet-trail-single-500.pdf"');
+		const file = join(mkdtempSync(join(tmpdir(), 'phasewright-sheet-')), 'sheet.pdf');
+		writeFileSync(file, Buffer.from(await res.arrayBuffer()));
+		expect(execFileSync('pdfinfo', [file], { encoding: 'utf8' })).toMatch(/Pages:\s+1\n/);
+		const text = execFileSync('pdftotext', ['-layout', file, '-'], { encoding: 'utf8' });
+		expect(text).toContain('Build sheet: Trail single 500');
+		expect(text).toContain('Wheel revision 3');
+		expect(text).toMatch(/First-tooth offset\s+90° BTDC/);
+		expect(text).toMatch(/36-1, 35 teeth, pitch 10°/);
+		// Seed document: marks 29° apart, TDC 14.5° from each.
+		expect(text).toMatch(/-10° and 19°: true TDC at 4\.5°, spread 29° \(14\.5° each side\)/);
+		expect(text).toContain('crank-only wheel on a four-stroke');
+	});
+
+	it('refuses bad parameters of either part, naming them', async () => {
+		const res = await fetch(`${process.env.APP_URL}/api/v1/build-sheet.pdf?${new URLSearchParams({ teeth: '36', od: '100', depth: '5', tdcA: '5', tdcB: '5' })}`);
+		expect(res.status).toBe(400);
+		expect((await res.json()).errors).toEqual({ toothAtTdc: 'toothAtTdc: a number from 0 to 720' });
+	});
+});

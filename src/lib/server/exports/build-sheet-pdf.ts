@@ -1,0 +1,81 @@
+// The build sheet: one page the tuner and the fabricator can work from.
+import type { ParsedPhasing } from '$lib/schemas/phasing';
+import type { ParsedWheel } from '$lib/schemas/wheel';
+import { firingTdcs } from '$lib/trade/engine';
+import type { PhasingResult } from '$lib/trade/phasing';
+import type { WheelSummary } from '$lib/trade/summary';
+import { mmPerDegree } from '$lib/trade/tape';
+import type { TdcResult } from '$lib/trade/tdc';
+import { formatLength } from '$lib/trade/units';
+import { finish, mm, newDocument, papers } from './pdf-kit';
+import { specRows } from './wheel-pdf';
+
+export interface BuildSheet {
+	buildName: string;
+	revision: string;
+	date: string;
+	wheel: ParsedWheel;
+	summary: WheelSummary;
+	phasing: ParsedPhasing;
+	result: PhasingResult;
+	tdc: { a: number; b: number; result: TdcResult } | null;
+	tapeHubMm: number | null;
+}
+
+const margin = 15;
+
+export async function buildSheetPdf(s: BuildSheet): Promise<Buffer> {
+	const size = papers[s.wheel.paper];
+	const doc = newDocument(`Build sheet: ${s.buildName}`, size);
+	const width = mm(size.widthMm - 2 * margin);
+	let y = margin;
+	const section = (title: string) => {
+		y += 3;
+		doc.font('bold').fontSize(10).fillColor('black').text(title, mm(margin), mm(y));
+		y += 5.5;
+	};
+	const row = (k: string, v: string) => {
+		doc.font('text').fontSize(8).fillColor('black').text(k, mm(margin), mm(y), { width: mm(52) });
+		const h = doc.font('mono').fontSize(8).heightOfString(v, { width: mm(size.widthMm - 2 * margin - 54) });
+		doc.text(v, mm(margin + 54), mm(y), { width: mm(size.widthMm - 2 * margin - 54) });
+		y += Math.max(4.4, h / mm(1) + 1);
+	};
+
+	doc.font('bold').fontSize(15).text(`Build sheet: ${s.buildName}`, mm(margin), mm(y));
+	y += 8;
+	doc.font('text').fontSize(8.5).text(`Wheel revision ${s.revision} · ${s.date} · for the tuner and the fabricator`, mm(margin), mm(y), { width });
+	y += 5;
+
+	const { spec } = s.wheel;
+	const p = s.phasing.input;
+	const r = s.result;
+	section('Wheel');
+	for (const [k, v] of specRows(spec, s.summary, s.wheel.units)) row(k, v);
+
+	section('Sensor and phasing');
+	row('Wheel on', p.mount === 'crank' ? 'the crank' : 'the cam (half speed: one wheel degree is two crank degrees)');
+	row('Sensor, edge read', `${s.phasing.sensor === 'hall' ? 'Hall-effect' : 'variable reluctance (VR)'}, ${p.edge} tooth edge, up to ${p.sensorMaxHz} Hz`);
+	row('Tooth at the sensor at TDC', `${p.toothAtTdc} (tooth 0 = first after the gap)`);
+	row('First-tooth offset', `${r.firstToothOffsetDeg}° BTDC`);
+	row('Pitch, resolution', `${r.pitchDeg}° of wheel, ${r.resolutionDeg} crank degrees per tooth`);
+	row('Tooth pitch frequency', `${r.pitchFrequencyHz} Hz at ${p.revLimitRpm} rpm`);
+	row('Gap at cranking', `${r.gapAtCrankingMs} ms at ${p.crankingRpm} rpm`);
+	row('Engine', `${s.phasing.layoutLabel}; firing intervals ${p.intervals.join(' / ')}°`);
+	const tdcs = firingTdcs(p.intervals);
+	row('Gap clearance', r.gapClearanceDeg.map((c) => `cyl ${c.cylinder} (TDC at ${tdcs[c.cylinder - 1]}°): ${c.clearanceDeg}°`).join('; ') + ` from the ${p.windowFromBtdc}°–${p.windowToBtdc}° BTDC spark window`);
+
+	section('TDC record and tape');
+	row('Piston-stop marks', s.tdc ? `${s.tdc.a}° and ${s.tdc.b}°: true TDC at ${s.tdc.result.tdcDeg}°, spread ${s.tdc.result.spreadDeg}° (${s.tdc.result.halfSpreadDeg}° each side)` : 'not recorded');
+	row('Degree tape', s.tapeHubMm ? `hub ${formatLength(s.tapeHubMm, s.wheel.units)}, ${formatLength(mmPerDegree({ hubDiameterMm: s.tapeHubMm, paperThicknessMm: 0.1 }), s.wheel.units)} per degree` : 'not recorded');
+
+	section('Warnings outstanding');
+	const warnings = [...s.summary.warnings.map((w) => w.message), ...r.warnings.map((w) => w.message)];
+	if (!warnings.length) row('', 'none');
+	for (const w of warnings) {
+		const h = doc.font('text').fontSize(7.5).heightOfString(`• ${w}`, { width });
+		doc.fillColor('#8a5200').text(`• ${w}`, mm(margin), mm(y), { width });
+		y += h / mm(1) + 1.2;
+	}
+	doc.font('text').fontSize(7.5).fillColor('black').text('Verify timing with a timing light before putting the engine under load; wrong timing can kick back. Follow the ECU maker\'s instructions, local codes and licensed professionals.', mm(margin), mm(size.heightMm - margin - 8), { width });
+	return finish(doc);
+}
