@@ -44,7 +44,7 @@ export const tools: readonly Tool[] = [
 		title: 'Phasing check',
 		summary:
 			'Place the sensor, get the first-tooth offset for the ECU, and check gap clearance and tooth pitch frequency at the rev limit.',
-		ready: false
+		ready: true
 	},
 	{
 		id: 'builds',
