@@ -23,6 +23,8 @@ describe('wheel designer in Chromium (signed out)', () => {
 		await page.getByLabel('Missing (M)').fill('2');
 		await expect.poll(() => preview.getAttribute('data-teeth')).toBe('58');
 		expect(await preview.getAttribute('aria-label')).toMatch(/60-2/);
+		// The address follows the design, so the link can be shared.
+		await expect.poll(() => new URL(page.url()).searchParams.get('teeth')).toBe('60');
 		await page.screenshot({ path: join(screenshots, 'designer-60-2.png'), fullPage: true });
 
 		// An impossible wheel is refused beside the field, and nothing can be downloaded.

@@ -18,6 +18,7 @@ describe('TDC finder and degree tape in Chromium (signed out)', () => {
 		await page.getByLabel('Second mark (°)').fill('19');
 		// Seed document: marks 29° apart put TDC 14.5° from each; here TDC reads 4.5.
 		await expect.poll(() => page.getByTestId('tdc-result').innerText()).toMatch(/4\.5/);
+		await expect.poll(() => new URL(page.url()).searchParams.get('b')).toBe('19');
 		await page.screenshot({ path: join(screenshots, 'tdc.png'), fullPage: true });
 	});
 
