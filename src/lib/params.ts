@@ -1,0 +1,28 @@
+// Helpers for the tools' forms, which keep their inputs as flat strings named like the public API.
+import { fromMm, parseLength, toMm, type Units } from './trade/units';
+
+export type Params = Record<string, string>;
+
+/** A length as it goes back into a text field: mm to 0.01, inches to 0.0001, no trailing zeros. */
+export function lengthText(mm: number, units: Units): string {
+	return String(Number(fromMm(mm, units).toFixed(units === 'in' ? 4 : 2)));
+}
+
+/** A message keyed by field says the field's name first; beside the field that is said already. */
+export const withoutField = (field: string, message: string | undefined) =>
+	message?.startsWith(`${field}: `) ? message.slice(field.length + 2) : message;
+
+/**
+ * The same lengths in other units. Empty fields stay empty, and anything not yet a number is left
+ * as typed, for its error to say so.
+ */
+export function convertLengths(params: Params, fields: readonly string[], from: Units, to: Units): Params {
+	const out: Params = {};
+	for (const field of fields) {
+		const text = params[field];
+		if (text === undefined || text.trim() === '') continue;
+		const value = parseLength(text);
+		if (Number.isFinite(value)) out[field] = lengthText(toMm(value, from), to);
+	}
+	return out;
+}
