@@ -70,7 +70,9 @@ export function appEnv(p: Profile): Record<string, string> {
 		PORT: String(p.appPort),
 		// adapter-node assumes https unless told the public origin; form posts are checked against it.
 		ORIGIN: `http://127.0.0.1:${p.appPort}`,
-		APP_URL: `http://127.0.0.1:${p.appPort}`
+		APP_URL: `http://127.0.0.1:${p.appPort}`,
+		// adapter-node refuses bodies over 512 KB unless told; a phone photo is a few MB (one photo per request, 20 MB cap).
+		BODY_SIZE_LIMIT: process.env.BODY_SIZE_LIMIT ?? '21M'
 	};
 	return local;
 }

@@ -3,7 +3,7 @@
 import { hash } from '@node-rs/argon2';
 import { eq, inArray } from 'drizzle-orm';
 import { connect, type Database } from '../src/lib/server/db';
-import { build, member, user, workshop } from '../src/lib/server/db/schema';
+import { activity, build, member, tdcRecord, user, wheelDesign, wheelRevision, workshop, type FlatParams } from '../src/lib/server/db/schema';
 
 export const demoWorkshop = { slug: 'demo', name: 'Marrow Street Motor Works (demo)' };
 
@@ -11,17 +11,32 @@ export const demoBuilds = [
 	{
 		name: 'Trail single 500',
 		engine: 'Air-cooled 500 cc single, 4-stroke, kick start. Wheel on the crank, Hall-effect sensor.',
-		notes: 'Points plate and carburettor come off. Wasted spark: the coil fires every turn.'
+		notes: 'Points plate and carburettor come off. Wasted spark: the coil fires every turn.',
+		engineProfile: { teeth: '36', missing: '1', toothAtTdc: '9', layout: 'single-4', rpm: '7000', cranking: '250', sensor: 'hall' },
+		design: 'Crank wheel',
+		revisions: [
+			{ params: { units: 'mm', teeth: '36', missing: '1', od: '110', depth: '5', bore: '22', thickness: '3', material: 'steel', rpm: '7000' }, message: 'First cut, from the points-cam diameter' },
+			{ params: { units: 'mm', teeth: '36', missing: '1', od: '110', depth: '5', bore: '22', keyway: 'din6885', shaft: '22', thickness: '3', material: 'steel', rpm: '7000', tipRadius: '0.5' }, message: 'Keyway for the 22 mm stub, tip radius for the laser' }
+		],
+		tdc: { label: 'Piston stop, cold', params: { a: '-16', b: '13' }, tdcDeg: '-1.5' }
 	},
 	{
 		name: 'Roadster twin 650, 360° crank',
 		engine: '650 cc parallel twin, 4-stroke, both pistons rise together; fires every 360° of crank.',
-		notes: 'Wheel behind the alternator rotor; keep the gap clear of the idle timing window.'
+		notes: 'Wheel behind the alternator rotor; keep the gap clear of the idle timing window.',
+		engineProfile: { teeth: '36', missing: '1', toothAtTdc: '6', layout: 'twin-360', rpm: '7500', sensor: 'hall' },
+		design: 'Alternator-side wheel',
+		revisions: [{ params: { units: 'in', teeth: '36', missing: '1', od: '4 1/2', depth: '3/16', bore: '1', thickness: '1/8', material: 'steel', rpm: '7500' }, message: 'Sized to the rotor face' }],
+		tdc: null
 	},
 	{
 		name: 'Club kart 100 two-stroke',
 		engine: '100 cc piston-port single, 2-stroke, rev limit 16 000 rpm. Wheel behind the clutch.',
-		notes: 'Check the sensor frequency at the rev limit before choosing the tooth count.'
+		notes: 'Check the sensor frequency at the rev limit before choosing the tooth count.',
+		engineProfile: { teeth: '12', missing: '1', toothAtTdc: '2', layout: 'single-2', rpm: '16000', sensor: 'vr' },
+		design: 'Clutch-side wheel',
+		revisions: [{ params: { units: 'mm', teeth: '12', missing: '1', od: '80', depth: '6', bore: '17', thickness: '2', material: 'aluminium', rpm: '16000' }, message: 'Twelve teeth keep a VR sensor happy at 16 000 rpm' }],
+		tdc: null
 	}
 ] as const;
 
@@ -39,9 +54,9 @@ export async function seedDemo(database: Database) {
 		if (!shop) throw new Error('demo workshop vanished during the seed');
 		const builds = await tx
 			.insert(build)
-			.values(demoBuilds.map((b) => ({ ...b, workshopId: shop.id })))
+			.values(demoBuilds.map((b) => ({ name: b.name, engine: b.engine, notes: b.notes, engineProfile: b.engineProfile as FlatParams, workshopId: shop.id })))
 			.onConflictDoNothing({ target: [build.workshopId, build.name] })
-			.returning({ id: build.id });
+			.returning({ id: build.id, name: build.name });
 		const users = await tx
 			.insert(user)
 			.values(demoUsers.map((u, i) => ({ name: u.name, email: u.email, passwordHash: hashes[i]!, emailVerified: new Date() })))
@@ -52,6 +67,18 @@ export async function seedDemo(database: Database) {
 			.insert(member)
 			.values(ids.map((u) => ({ workshopId: shop.id, userId: u.id, role: demoUsers.find((d) => d.email === u.email)!.role })))
 			.onConflictDoNothing();
+		// Only builds made by this run get their designs, records and log: a second run adds nothing.
+		const author = ids.find((u) => u.email === demoUsers[0].email)?.id ?? null;
+		for (const made of builds) {
+			const demo = demoBuilds.find((b) => b.name === made.name)!;
+			const [design] = await tx.insert(wheelDesign).values({ buildId: made.id, name: demo.design }).returning({ id: wheelDesign.id });
+			await tx.insert(wheelRevision).values(demo.revisions.map((r, i) => ({ designId: design!.id, number: i + 1, params: r.params as FlatParams, message: r.message, authorId: author })));
+			if (demo.tdc) await tx.insert(tdcRecord).values({ buildId: made.id, label: demo.tdc.label, params: demo.tdc.params, tdcDeg: demo.tdc.tdcDeg, authorId: author });
+			await tx.insert(activity).values([
+				{ buildId: made.id, actorId: author, kind: 'build', summary: `Build “${demo.name}” created (demo)` },
+				...demo.revisions.map((r, i) => ({ buildId: made.id, actorId: author, kind: i ? 'revision' : 'design', summary: `“${demo.design}” revision ${i + 1}: ${r.message}` }))
+			]);
+		}
 		return { workshopCreated: inserted.length > 0, buildsCreated: builds.length, usersCreated: users.length };
 	});
 }

@@ -82,7 +82,9 @@ try {
 	mkdirSync(results, { recursive: true });
 	rmSync(vitestJson, { force: true });
 	// Not spawnSync: the fakes run in this process and must keep answering while the tests run.
-	const vitest = spawn(bin('vitest'), ['run', '--reporter=default', '--reporter=json', `--outputFile.json=${vitestJson}`], {
+	// `npm test -- <file filters>` narrows the run while working on something; CI runs it all.
+	const only = process.argv.slice(2).filter((a) => !a.startsWith('-'));
+	const vitest = spawn(bin('vitest'), ['run', '--reporter=default', '--reporter=json', `--outputFile.json=${vitestJson}`, ...only], {
 		cwd: root,
 		stdio: 'inherit',
 		env: { ...process.env, ...stack.env, CHROMIUM_PATH: chromiumPath }

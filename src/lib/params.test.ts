@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { convertLengths, withoutField } from './params';
+import { convertLengths, diffParams, withoutField } from './params';
 
 describe('tool form helpers', () => {
 	it('converts the given length fields between units (1 in = 25.4 mm), leaving empty and unfinished ones', () => {
@@ -10,5 +10,15 @@ describe('tool form helpers', () => {
 	it('drops the field name a message starts with, only when it is that field', () => {
 		expect(withoutField('od', 'od: 10 mm to 2000 mm')).toBe('10 mm to 2000 mm');
 		expect(withoutField('bore', 'od: 10 mm to 2000 mm')).toBe('od: 10 mm to 2000 mm');
+	});
+
+	it('lists the parameters that differ between two revisions, by name, treating empty as not given', () => {
+		const changes = diffParams({ teeth: '36', missing: '1', od: '100', label: '' }, { teeth: '60', missing: '2', od: '100', bore: '20' });
+		expect(changes).toEqual([
+			{ name: 'bore', from: '', to: '20' },
+			{ name: 'missing', from: '1', to: '2' },
+			{ name: 'teeth', from: '36', to: '60' }
+		]);
+		expect(diffParams({ od: '100' }, { od: '100' })).toEqual([]);
 	});
 });

@@ -26,3 +26,16 @@ export function convertLengths(params: Params, fields: readonly string[], from: 
 	}
 	return out;
 }
+
+export interface ParamChange {
+	name: string;
+	/** The value in the first set, '' when not given there. */
+	from: string;
+	to: string;
+}
+
+/** Parameter by parameter, what differs between two sets (an empty value counts as not given). */
+export function diffParams(from: Params, to: Params): ParamChange[] {
+	const names = [...new Set([...Object.keys(from), ...Object.keys(to)])].sort();
+	return names.map((name) => ({ name, from: from[name] ?? '', to: to[name] ?? '' })).filter((c) => c.from.trim() !== c.to.trim());
+}

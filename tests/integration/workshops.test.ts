@@ -167,8 +167,8 @@ describe('roles', () => {
 	});
 
 	it('the API refuses a malformed workshop id, naming the parameter', async () => {
-		const { status, body } = await s.owner.json<{ message: string }>('/api/v1/builds?workshop=12');
+		const { status, body } = await s.owner.json<{ errors: Record<string, string> }>('/api/v1/builds?workshop=12');
 		expect(status).toBe(400);
-		expect(body.message).toBe('workshop: a workshop id');
+		expect(body.errors.workshop).toBe('workshop: a workshop id');
 	});
 });

@@ -79,6 +79,20 @@ export class Client {
 		const res = await this.get(path, { accept: 'application/json' });
 		return { status: res.status, body: (await res.json()) as T };
 	}
+
+	/** A JSON API call (or a multipart upload when given FormData); the answer's body parsed when it is JSON. */
+	async send<T = Record<string, unknown>>(method: 'POST' | 'PUT' | 'PATCH' | 'DELETE', path: string, body?: unknown): Promise<{ status: number; body: T }> {
+		const form = body instanceof FormData;
+		const res = await fetch(new URL(path, appUrl), {
+			method,
+			redirect: 'manual',
+			headers: this.headers({ origin: new URL(appUrl).origin, accept: 'application/json', ...(body === undefined || form ? {} : { 'content-type': 'application/json' }) }),
+			body: body === undefined ? undefined : form ? body : JSON.stringify(body)
+		});
+		this.remember(res);
+		const text = await res.text();
+		return { status: res.status, body: (text && res.headers.get('content-type')?.includes('json') ? JSON.parse(text) : text) as T };
+	}
 }
 
 /** Waits for the newest message to an address in the SMTP fake and returns it with its first link. */

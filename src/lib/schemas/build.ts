@@ -1,23 +1,100 @@
 import { z } from 'zod';
 
-export const buildLimits = { name: 120, engine: 500 } as const;
+// Builds, their wheel designs, revisions, records and cutting packages: what forms and the JSON API
+// accept. The parameters of a wheel, a tape or a phasing check stay flat strings, checked by their
+// own schemas (wheel.ts, tape.ts, phasing.ts) so that the tools and the saved records agree.
 
-export const buildName = z
-	.string({ error: 'name: required' })
-	.trim()
-	.min(1, { error: `name: 1 to ${buildLimits.name} characters` })
-	.max(buildLimits.name, { error: `name: 1 to ${buildLimits.name} characters` });
+export const buildLimits = { name: 120, engine: 500, notes: 5000, message: 300, label: 80, params: 80 } as const;
+
+const text = (field: string, max: number, min = 0) => {
+	const rule = min ? `${field}: ${min} to ${max} characters` : `${field}: at most ${max} characters`;
+	return z.string({ error: `${field}: text, ${rule.split(': ')[1]}` }).trim().min(min, { error: rule }).max(max, { error: rule });
+};
+
+export const buildName = text('name', buildLimits.name, 1);
 
 export const createBuild = z.object({
 	name: buildName,
-	engine: z
-		.string()
-		.trim()
-		.max(buildLimits.engine, { error: `engine: at most ${buildLimits.engine} characters` })
-		.optional()
-		.default('')
+	engine: text('engine', buildLimits.engine).optional().default('')
 });
 
 export const renameBuild = z.object({ buildId: z.uuid({ error: 'buildId: a build id' }), name: buildName });
 
 export const buildId = z.object({ buildId: z.uuid({ error: 'buildId: a build id' }) });
+
+/** A change to a build's own fields; at least one. */
+export const updateBuild = z
+	.object({ name: buildName.optional(), engine: text('engine', buildLimits.engine).optional(), notes: text('notes', buildLimits.notes).optional() })
+	.refine((v) => v.name !== undefined || v.engine !== undefined || v.notes !== undefined, { error: 'form: give name, engine or notes', path: ['form'] });
+
+export const buildSorts = ['name', 'updated', 'created'] as const;
+
+/** The builds list: search in name and engine, sort, paging. */
+export const buildQuery = z.object({
+	workshop: z.uuid({ error: 'workshop: a workshop id' }).optional(),
+	q: text('q', 100).optional().default(''),
+	sort: z.enum(buildSorts, { error: `sort: one of ${buildSorts.join(', ')}` }).default('updated'),
+	dir: z.enum(['asc', 'desc'], { error: 'dir: asc or desc' }).optional(),
+	page: z.coerce.number({ error: 'page: a whole number from 1' }).int({ error: 'page: a whole number from 1' }).min(1, { error: 'page: a whole number from 1' }).max(100_000, { error: 'page: at most 100000' }).default(1),
+	size: z.coerce.number({ error: 'size: a whole number from 1 to 100' }).int({ error: 'size: a whole number from 1 to 100' }).min(1, { error: 'size: a whole number from 1 to 100' }).max(100, { error: 'size: a whole number from 1 to 100' }).default(20)
+});
+export type BuildQuery = z.infer<typeof buildQuery>;
+
+/** Flat string parameters of a tool (wheel, tape, phasing): names and values bounded, values as text. */
+export const flatParams = (field: string) =>
+	z
+		.record(z.string().max(40, { error: `${field}: parameter names of at most 40 characters` }), z.union([z.string(), z.number(), z.boolean()]).transform(String), {
+			error: `${field}: an object of parameter names to values`
+		})
+		.refine((r) => Object.keys(r).length <= buildLimits.params, { error: `${field}: at most ${buildLimits.params} parameters` })
+		.refine((r) => Object.values(r).every((v) => v.length <= 500), { error: `${field}: values of at most 500 characters` });
+
+export const createDesign = z.object({
+	name: text('name', buildLimits.label, 1),
+	params: flatParams('params'),
+	message: text('message', buildLimits.message).optional().default('')
+});
+
+/** A save names the revision it started from; a stale base is refused with 409. */
+export const saveRevision = z.object({
+	baseRevision: z.number({ error: 'baseRevision: the revision number this save started from' }).int({ error: 'baseRevision: a whole number from 1' }).min(1, { error: 'baseRevision: a whole number from 1' }),
+	params: flatParams('params'),
+	message: text('message', buildLimits.message).optional().default('')
+});
+
+export const restoreRevision = z.object({
+	revision: z.number({ error: 'revision: the number of the revision to restore' }).int({ error: 'revision: a whole number from 1' }).min(1, { error: 'revision: a whole number from 1' }),
+	baseRevision: saveRevision.shape.baseRevision,
+	message: text('message', buildLimits.message).optional()
+});
+
+export const revisionNumber = z.coerce.number({ error: 'revision: a whole number from 1' }).int({ error: 'revision: a whole number from 1' }).min(1, { error: 'revision: a whole number from 1' }).max(1_000_000, { error: 'revision: a whole number from 1' });
+
+export const compareQuery = z.object({ a: revisionNumber, b: revisionNumber });
+
+export const saveRecord = z.object({ label: text('label', buildLimits.label).optional().default(''), params: flatParams('params') });
+
+export const engineProfile = z.object({ params: flatParams('params') });
+
+export const cuttingPackageInput = z.object({
+	designId: z.uuid({ error: 'designId: a wheel design id of this build' }),
+	revision: z.number({ error: 'revision: a whole number from 1' }).int({ error: 'revision: a whole number from 1' }).min(1, { error: 'revision: a whole number from 1' }).optional(),
+	to: z.email({ error: 'to: the fabricator’s e-mail address' }).max(254, { error: 'to: at most 254 characters' }),
+	quantity: z.number({ error: 'quantity: a whole number from 1 to 10000' }).int({ error: 'quantity: a whole number from 1 to 10000' }).min(1, { error: 'quantity: a whole number from 1 to 10000' }).max(10_000, { error: 'quantity: a whole number from 1 to 10000' }),
+	notes: text('notes', 2000).optional().default('')
+});
+
+const point = (field: string) =>
+	z.object(
+		{
+			x: z.number({ error: `${field}: x in image pixels` }).finite({ error: `${field}: x in image pixels` }),
+			y: z.number({ error: `${field}: y in image pixels` }).finite({ error: `${field}: y in image pixels` })
+		},
+		{ error: `${field}: a point {x, y} in image pixels` }
+	);
+
+export const photoTaps = z.object({
+	centre: point('centre'),
+	tips: z.array(point('tips'), { error: 'tips: 1 to 24 tooth-tip points' }).min(1, { error: 'tips: 1 to 24 tooth-tip points' }).max(24, { error: 'tips: 1 to 24 tooth-tip points' }),
+	odMm: z.number({ error: 'odMm: the known outer diameter, 10 to 2000 mm' }).min(10, { error: 'odMm: the known outer diameter, 10 to 2000 mm' }).max(2000, { error: 'odMm: the known outer diameter, 10 to 2000 mm' }).optional()
+});

@@ -149,6 +149,9 @@ function buildSchema(units: Units) {
 	});
 }
 
+/** Every parameter name a wheel takes; anything else in a saved design is dropped. */
+export const wheelParamNames: readonly string[] = ['units', ...Object.keys(buildSchema('mm').shape)];
+
 const unitsSchema = z.object({ units: oneOf('units', ['mm', 'in'] as const).default('mm') });
 
 /** Parses the flat parameters into a wheel spec (mm), or field errors naming what each allows. */

@@ -1,7 +1,8 @@
 import { error, redirect, type RequestEvent } from '@sveltejs/kit';
-import { eq } from 'drizzle-orm';
+import { and, eq } from 'drizzle-orm';
+import { z } from 'zod';
 import { db } from './db';
-import { user, type Role } from './db/schema';
+import { build, member, user, wheelDesign, wheelPhoto, type Role } from './db/schema';
 import { workshopsOf, type WorkshopMembership } from './workshops';
 
 // Who may do what, in one place. Every load, form action and API route that touches a workshop's
@@ -94,4 +95,35 @@ export async function chooseWorkshop(event: RequestEvent, workshopId: string) {
 		maxAge: 365 * 24 * 60 * 60
 	});
 	return access;
+}
+
+export type ObjectKind = 'build' | 'design' | 'photo';
+
+const notFound = (kind: ObjectKind) => error(404, { message: `No such ${kind} in your workshops.`, code: 'not-found' });
+
+/** The build (and workshop) an object belongs to, found only among the workshops `userId` is a member of. */
+async function ownerOf(kind: ObjectKind, id: string, userId: string): Promise<{ workshopId: string; buildId: string } | undefined> {
+	const mine = and(eq(member.workshopId, build.workshopId), eq(member.userId, userId));
+	const columns = { workshopId: build.workshopId, buildId: build.id };
+	const rows =
+		kind === 'build'
+			? await db().select(columns).from(build).innerJoin(member, mine).where(eq(build.id, id))
+			: kind === 'design'
+				? await db().select(columns).from(wheelDesign).innerJoin(build, eq(build.id, wheelDesign.buildId)).innerJoin(member, mine).where(eq(wheelDesign.id, id))
+				: await db().select(columns).from(wheelPhoto).innerJoin(build, eq(build.id, wheelPhoto.buildId)).innerJoin(member, mine).where(eq(wheelPhoto.id, id));
+	return rows[0];
+}
+
+/**
+ * Access to one build, design or photo named by id (from a path): 401 signed out, 404 when it is
+ * not in one of the caller's workshops (a malformed or guessed id looks the same as a missing one),
+ * 403 when the role is too low. Queries that follow scope by the returned build id.
+ */
+export async function objectAccess(event: RequestEvent, action: Action, kind: ObjectKind, id: string): Promise<WorkshopAccess & { buildId: string }> {
+	const me = await requireUser(event);
+	if (!z.uuid().safeParse(id).success) notFound(kind);
+	const found = await ownerOf(kind, id, me.id);
+	if (!found) notFound(kind);
+	const access = await workshopAccess(event, action, found!.workshopId);
+	return { ...access, buildId: found!.buildId };
 }

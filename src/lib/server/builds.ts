@@ -1,47 +1,92 @@
-import { and, asc, eq } from 'drizzle-orm';
-import type { Queryable } from './db';
-import { build } from './db/schema';
+import { and, asc, count, desc, eq, ilike, or, sql } from 'drizzle-orm';
+import type { BuildQuery } from '$lib/schemas/build';
+import type { Database, Queryable } from './db';
+import { logActivity, type ActivityKind } from './activity';
+import { build, wheelDesign, type FlatParams } from './db/schema';
 
 // Every query is scoped by the workshop the caller was allowed into (access.ts), so a build id
 // from another workshop matches nothing: guessing ids finds no one else's data.
 
-export async function listBuilds(database: Queryable, workshopId: string) {
-	return database
-		.select({ id: build.id, name: build.name, engine: build.engine, createdAt: build.createdAt, updatedAt: build.updatedAt })
-		.from(build)
-		.where(eq(build.workshopId, workshopId))
-		.orderBy(asc(build.name));
+const likePattern = (q: string) => `%${q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+
+const sortColumn = { name: build.name, updated: build.updatedAt, created: build.createdAt } as const;
+
+export type ListOptions = Pick<BuildQuery, 'q' | 'sort' | 'page' | 'size'> & { dir?: 'asc' | 'desc' };
+
+/** One page of a workshop's builds, searched in name and engine; newest change first unless told. */
+export async function listBuilds(database: Queryable, workshopId: string, options: ListOptions = { q: '', sort: 'name', page: 1, size: 100 }) {
+	const where = options.q ? and(eq(build.workshopId, workshopId), or(ilike(build.name, likePattern(options.q)), ilike(build.engine, likePattern(options.q)))) : eq(build.workshopId, workshopId);
+	const dir = options.dir ?? (options.sort === 'name' ? 'asc' : 'desc');
+	const order = dir === 'asc' ? asc(sortColumn[options.sort]) : desc(sortColumn[options.sort]);
+	const designs = database.$count(wheelDesign, eq(wheelDesign.buildId, build.id));
+	const [rows, [total]] = await Promise.all([
+		database
+			.select({ id: build.id, name: build.name, engine: build.engine, designs, createdAt: build.createdAt, updatedAt: build.updatedAt })
+			.from(build)
+			.where(where)
+			.orderBy(order, asc(build.id))
+			.limit(options.size)
+			.offset((options.page - 1) * options.size),
+		database.select({ n: count() }).from(build).where(where)
+	]);
+	return { builds: rows, total: total?.n ?? 0, page: options.page, size: options.size, sort: options.sort, dir };
+}
+
+export async function getBuild(database: Queryable, buildId: string) {
+	const [row] = await database.select().from(build).where(eq(build.id, buildId));
+	return row;
 }
 
 export type BuildWrite = { ok: true; id: string } | { ok: false; reason: 'name-taken' | 'not-found' };
 
-const isUniqueViolation = (err: unknown) => {
-	const cause = err instanceof Error && err.cause ? err.cause : err;
-	return (cause as { code?: string })?.code === '23505';
+export const isUniqueViolation = (err: unknown, constraint?: string) => {
+	const cause = (err instanceof Error && err.cause ? err.cause : err) as { code?: string; constraint?: string };
+	return cause?.code === '23505' && (!constraint || cause.constraint === constraint);
 };
 
-export async function createBuild(database: Queryable, workshopId: string, input: { name: string; engine: string }): Promise<BuildWrite> {
+export async function createBuild(database: Database, workshopId: string, input: { name: string; engine: string }, actorId: string): Promise<BuildWrite> {
 	try {
-		const [row] = await database.insert(build).values({ workshopId, ...input }).returning({ id: build.id });
-		return { ok: true, id: row!.id };
+		return await database.transaction(async (tx) => {
+			const [row] = await tx.insert(build).values({ workshopId, ...input }).returning({ id: build.id });
+			await logActivity(tx, { buildId: row!.id, actorId, kind: 'build', summary: `Build “${input.name}” created` });
+			return { ok: true as const, id: row!.id };
+		});
 	} catch (err) {
 		if (isUniqueViolation(err)) return { ok: false, reason: 'name-taken' };
 		throw err;
 	}
 }
 
-export async function renameBuild(database: Queryable, workshopId: string, buildId: string, name: string): Promise<BuildWrite> {
+/** Changes a build's own fields, with an entry in its activity log when `actorId` is given. */
+export async function updateBuild(
+	database: Database,
+	workshopId: string,
+	buildId: string,
+	change: { name?: string; engine?: string; notes?: string; engineProfile?: FlatParams },
+	log?: { actorId: string; kind?: ActivityKind; summary: string }
+): Promise<BuildWrite> {
 	try {
-		const rows = await database
-			.update(build)
-			.set({ name })
-			.where(and(eq(build.id, buildId), eq(build.workshopId, workshopId)))
-			.returning({ id: build.id });
-		return rows[0] ? { ok: true, id: rows[0].id } : { ok: false, reason: 'not-found' };
+		return await database.transaction(async (tx) => {
+			const rows = await tx
+				.update(build)
+				.set({ ...change, updatedAt: sql`now()` })
+				.where(and(eq(build.id, buildId), eq(build.workshopId, workshopId)))
+				.returning({ id: build.id });
+			if (!rows[0]) return { ok: false as const, reason: 'not-found' as const };
+			if (log) await logActivity(tx, { buildId, actorId: log.actorId, kind: log.kind ?? 'build', summary: log.summary });
+			return { ok: true as const, id: rows[0].id };
+		});
 	} catch (err) {
 		if (isUniqueViolation(err)) return { ok: false, reason: 'name-taken' };
 		throw err;
 	}
+}
+
+export const renameBuild = (database: Database, workshopId: string, buildId: string, name: string) => updateBuild(database, workshopId, buildId, { name });
+
+/** Marks a build as changed (a new revision, record or photo), for the list's "updated" order. */
+export async function touchBuild(database: Queryable, buildId: string) {
+	await database.update(build).set({ updatedAt: sql`now()` }).where(eq(build.id, buildId));
 }
 
 export async function deleteBuild(database: Queryable, workshopId: string, buildId: string): Promise<BuildWrite> {

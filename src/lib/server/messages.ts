@@ -37,3 +37,13 @@ export function invitationMessage(input: { to: string; workshop: string; inviter
 		text: `${who} to join the workshop "${input.workshop}" on Phasewright as ${input.role}.\n\nAccept here (sign in or create an account with this address, ${input.to}):\n\n${input.url}\n\nThe link works once, for 7 days.${footer}`
 	};
 }
+
+export function cuttingPackageMessage(input: { to: string; from: string | null; buildName: string; designName: string; revision: number; quantity: number; material: string; thickness: string; notes: string; attachments: { filename: string; content: Buffer; contentType: string }[] }): Message {
+	return {
+		to: input.to,
+		replyTo: input.from ?? undefined,
+		subject: `Cutting order: ${input.designName} revision ${input.revision} (${input.quantity} off, ${input.material} ${input.thickness})`,
+		text: `Hello,\n\nplease quote for / cut the trigger wheel attached${input.from ? ` (sent by ${input.from})` : ''}:\n\n  Build: ${input.buildName}\n  Part: ${input.designName}, revision ${input.revision}\n  Quantity: ${input.quantity}\n  Material: ${input.material}, ${input.thickness}\n${input.notes ? `\nNotes:\n${input.notes}\n` : ''}\nAttached: the DXF (CUT and ETCH layers, units in the file) and the one-page spec.\n\n-- \nSent from Phasewright (trigger wheels, degree tapes and timing for ECU conversions).`,
+		attachments: input.attachments
+	};
+}

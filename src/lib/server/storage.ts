@@ -3,6 +3,7 @@ import {
 	DeleteObjectCommand,
 	GetObjectCommand,
 	HeadBucketCommand,
+	ListObjectsV2Command,
 	PutObjectCommand,
 	S3Client
 } from '@aws-sdk/client-s3';
@@ -39,6 +40,18 @@ export async function getObject(key: string): Promise<{ body: Uint8Array; conten
 
 export async function deleteObject(key: string): Promise<void> {
 	await s3().send(new DeleteObjectCommand({ Bucket: bucket(), Key: key }));
+}
+
+/** Every key under a prefix (for clean-up and for checking that a refused upload stored nothing). */
+export async function listKeys(prefix: string): Promise<string[]> {
+	const keys: string[] = [];
+	let token: string | undefined;
+	do {
+		const out = await s3().send(new ListObjectsV2Command({ Bucket: bucket(), Prefix: prefix, ContinuationToken: token }));
+		keys.push(...(out.Contents ?? []).map((o) => o.Key!).filter(Boolean));
+		token = out.IsTruncated ? out.NextContinuationToken : undefined;
+	} while (token);
+	return keys;
 }
 
 /** Creates the configured bucket when it does not exist (local fakes; production buckets are made by hand). */

@@ -13,7 +13,7 @@ const refusals = {
 
 export const load: PageServerLoad = async (event) => {
 	const access = await workshopAccess(event, 'read');
-	return { workshop: access.workshop, can: access.can, builds: await listBuilds(db(), access.workshop.id) };
+	return { workshop: access.workshop, can: access.can, builds: (await listBuilds(db(), access.workshop.id)).builds };
 };
 
 export const actions: Actions = {
@@ -23,7 +23,7 @@ export const actions: Actions = {
 		const parsed = parseForm(createSchema, form);
 		const echo = { name: String(form.get('name') ?? ''), engine: String(form.get('engine') ?? '') };
 		if (!parsed.ok) return fail(400, { action: 'create', ...echo, errors: parsed.errors });
-		const result = await createBuild(db(), access.workshop.id, parsed.data);
+		const result = await createBuild(db(), access.workshop.id, parsed.data, access.user.id);
 		if (!result.ok) return fail(409, { action: 'create', ...echo, errors: { name: refusals[result.reason] } });
 		return { action: 'create', created: result.id };
 	},

@@ -1,4 +1,5 @@
-import { integer, pgEnum, pgTable, primaryKey, text, timestamp, unique, uuid, index } from 'drizzle-orm/pg-core';
+import { integer, jsonb, pgEnum, pgTable, primaryKey, text, timestamp, unique, uuid, index, check } from 'drizzle-orm/pg-core';
+import { sql } from 'drizzle-orm';
 import type { AdapterAccountType } from '@auth/core/adapters';
 
 const createdAt = () => timestamp('created_at', { withTimezone: true }).notNull().defaultNow();
@@ -130,10 +131,138 @@ export const build = pgTable(
 		name: text('name').notNull(),
 		engine: text('engine').notNull().default(''),
 		notes: text('notes').notNull().default(''),
+		/** The engine profile and the measured sensor set-up: the phasing check's flat params (src/lib/schemas/phasing.ts). */
+		engineProfile: jsonb('engine_profile').$type<FlatParams>(),
 		createdAt: createdAt(),
 		updatedAt: updatedAt()
 	},
 	(t) => [unique('build_workshop_name').on(t.workshopId, t.name)]
+);
+
+/** Flat string parameters as the tools and the API take them (a wheel's, a tape's, the phasing check's). */
+export type FlatParams = Record<string, string>;
+
+const buildRef = () =>
+	uuid('build_id')
+		.notNull()
+		.references(() => build.id, { onDelete: 'cascade' });
+const authorRef = (name = 'author_id') => uuid(name).references(() => user.id, { onDelete: 'set null' });
+
+/** A trigger wheel of a build; its states are its revisions. */
+export const wheelDesign = pgTable(
+	'wheel_design',
+	{
+		id: uuid('id').primaryKey().defaultRandom(),
+		buildId: buildRef(),
+		name: text('name').notNull(),
+		createdAt: createdAt(),
+		updatedAt: updatedAt()
+	},
+	(t) => [unique('wheel_design_build_name').on(t.buildId, t.name)]
+);
+
+/**
+ * One saved state of a wheel design, never changed after it is written. The unique (design,
+ * number) pair is what keeps two concurrent saves from the same base from both landing.
+ */
+export const wheelRevision = pgTable(
+	'wheel_revision',
+	{
+		id: uuid('id').primaryKey().defaultRandom(),
+		designId: uuid('design_id')
+			.notNull()
+			.references(() => wheelDesign.id, { onDelete: 'cascade' }),
+		number: integer('number').notNull(),
+		params: jsonb('params').$type<FlatParams>().notNull(),
+		message: text('message').notNull().default(''),
+		/** Set when the revision restores an older one. */
+		restoredFrom: integer('restored_from'),
+		authorId: authorRef(),
+		createdAt: createdAt()
+	},
+	(t) => [unique('wheel_revision_design_number').on(t.designId, t.number), check('wheel_revision_number_positive', sql`${t.number} >= 1`)]
+);
+
+/** Two piston-stop marks and the TDC found from them. */
+export const tdcRecord = pgTable(
+	'tdc_record',
+	{
+		id: uuid('id').primaryKey().defaultRandom(),
+		buildId: buildRef(),
+		label: text('label').notNull().default(''),
+		params: jsonb('params').$type<FlatParams>().notNull(),
+		tdcDeg: text('tdc_deg').notNull(),
+		authorId: authorRef(),
+		createdAt: createdAt()
+	},
+	(t) => [index('tdc_record_build').on(t.buildId)]
+);
+
+/** A degree tape printed for the build's timing hub. */
+export const degreeTape = pgTable(
+	'degree_tape',
+	{
+		id: uuid('id').primaryKey().defaultRandom(),
+		buildId: buildRef(),
+		label: text('label').notNull().default(''),
+		params: jsonb('params').$type<FlatParams>().notNull(),
+		authorId: authorRef(),
+		createdAt: createdAt()
+	},
+	(t) => [index('degree_tape_build').on(t.buildId)]
+);
+
+/** An uploaded photo of a real wheel: the bytes live in the object store under `storageKey`. */
+export const wheelPhoto = pgTable(
+	'wheel_photo',
+	{
+		id: uuid('id').primaryKey().defaultRandom(),
+		buildId: buildRef(),
+		name: text('name').notNull(),
+		mime: text('mime').notNull(),
+		width: integer('width').notNull(),
+		height: integer('height').notNull(),
+		sizeBytes: integer('size_bytes').notNull(),
+		sha256: text('sha256').notNull(),
+		storageKey: text('storage_key').notNull().unique(),
+		thumbnailKey: text('thumbnail_key').notNull().unique(),
+		/** The last photo reading: the taps given and what was read. */
+		photoReading: jsonb('photo_reading').$type<Record<string, unknown>>(),
+		uploadedBy: authorRef('uploaded_by'),
+		createdAt: createdAt()
+	},
+	(t) => [index('wheel_photo_build').on(t.buildId)]
+);
+
+/** What was sent to a fabricator: the DXF and the spec sheet of one revision. */
+export const cuttingPackage = pgTable(
+	'cutting_package',
+	{
+		id: uuid('id').primaryKey().defaultRandom(),
+		buildId: buildRef(),
+		designId: uuid('design_id').references(() => wheelDesign.id, { onDelete: 'set null' }),
+		revision: integer('revision').notNull(),
+		sentTo: text('sent_to').notNull(),
+		details: jsonb('details').$type<FlatParams>().notNull(),
+		messageId: text('message_id'),
+		sentBy: authorRef('sent_by'),
+		createdAt: createdAt()
+	},
+	(t) => [index('cutting_package_build').on(t.buildId)]
+);
+
+/** The build's activity log, newest first when read. */
+export const activity = pgTable(
+	'activity',
+	{
+		id: uuid('id').primaryKey().defaultRandom(),
+		buildId: buildRef(),
+		actorId: authorRef('actor_id'),
+		kind: text('kind').notNull(),
+		summary: text('summary').notNull(),
+		createdAt: createdAt()
+	},
+	(t) => [index('activity_build_time').on(t.buildId, t.createdAt)]
 );
 
 export type Role = (typeof role.enumValues)[number];

@@ -1,11 +1,10 @@
-import { exportName } from '$lib/server/exports/names';
-import { wheelDxf } from '$lib/server/exports/dxf';
 import { fileResponse } from '$lib/server/api';
+import { wheelFile } from '$lib/server/exports/wheel-file';
 import { wheelFromQuery } from '$lib/server/wheel-request';
 
-export function GET({ url }) {
+export async function GET({ url }) {
 	const r = wheelFromQuery(url);
 	if (!r.ok) return r.response;
-	const { spec, units } = r.wheel;
-	return fileResponse(wheelDxf(spec, units), 'application/dxf', exportName(spec, units, 'dxf'));
+	const file = await wheelFile('dxf', r.wheel, r.summary);
+	return fileResponse(file.body, file.contentType, file.name);
 }

@@ -1,0 +1,42 @@
+import { desc, eq } from 'drizzle-orm';
+import type { Queryable } from './db';
+import { cuttingPackage, user } from './db/schema';
+import { listActivity } from './activity';
+import { deleteBuild, getBuild, type BuildWrite } from './builds';
+import { designsOf } from './designs';
+import { photoKeysOf, photosOf } from './photos/store';
+import { deleteObject } from './storage';
+import { tapesOf, tdcRecordsOf } from './records';
+
+// Everything a build holds: read whole for its page and `GET /api/v1/builds/:id`, removed whole.
+
+export async function cuttingPackagesOf(database: Queryable, buildId: string) {
+	return database
+		.select({ id: cuttingPackage.id, designId: cuttingPackage.designId, revision: cuttingPackage.revision, sentTo: cuttingPackage.sentTo, details: cuttingPackage.details, sentBy: user.email, createdAt: cuttingPackage.createdAt })
+		.from(cuttingPackage)
+		.leftJoin(user, eq(user.id, cuttingPackage.sentBy))
+		.where(eq(cuttingPackage.buildId, buildId))
+		.orderBy(desc(cuttingPackage.createdAt));
+}
+
+export async function buildOverview(database: Queryable, buildId: string) {
+	const [build, designs, tdcRecords, tapes, photos, cuttingPackages, activity] = await Promise.all([
+		getBuild(database, buildId),
+		designsOf(database, buildId),
+		tdcRecordsOf(database, buildId),
+		tapesOf(database, buildId),
+		photosOf(database, buildId),
+		cuttingPackagesOf(database, buildId),
+		listActivity(database, buildId)
+	]);
+	return build && { build, designs, tdcRecords, tapes, photos, cuttingPackages, activity };
+}
+export type BuildOverview = NonNullable<Awaited<ReturnType<typeof buildOverview>>>;
+
+/** Removes the build with everything in it, its photos' files in the object store too. */
+export async function removeBuild(database: Queryable, workshopId: string, buildId: string): Promise<BuildWrite> {
+	const keys = await photoKeysOf(database, buildId);
+	const result = await deleteBuild(database, workshopId, buildId);
+	if (result.ok) await Promise.allSettled(keys.map((key) => deleteObject(key)));
+	return result;
+}

@@ -1,0 +1,98 @@
+import { and, desc, eq, max } from 'drizzle-orm';
+import type { Database, Queryable } from './db';
+import { user, wheelDesign, wheelRevision, type FlatParams } from './db/schema';
+import { logActivity } from './activity';
+import { isUniqueViolation, touchBuild } from './builds';
+
+// Wheel designs and their revisions. A revision is written once and never changed (a database
+// trigger refuses updates); a save names the revision it started from, and the unique
+// (design, number) constraint lets exactly one save per base land, whatever the timing.
+
+export const revisionColumns = {
+	number: wheelRevision.number,
+	params: wheelRevision.params,
+	message: wheelRevision.message,
+	restoredFrom: wheelRevision.restoredFrom,
+	author: user.email,
+	createdAt: wheelRevision.createdAt
+};
+
+export type Revision = { number: number; params: FlatParams; message: string; restoredFrom: number | null; author: string | null; createdAt: Date };
+
+export async function designsOf(database: Queryable, buildId: string) {
+	const head = max(wheelRevision.number);
+	return database
+		.select({ id: wheelDesign.id, name: wheelDesign.name, headRevision: head, createdAt: wheelDesign.createdAt, updatedAt: wheelDesign.updatedAt })
+		.from(wheelDesign)
+		.leftJoin(wheelRevision, eq(wheelRevision.designId, wheelDesign.id))
+		.where(eq(wheelDesign.buildId, buildId))
+		.groupBy(wheelDesign.id)
+		.orderBy(wheelDesign.name);
+}
+
+export async function getDesign(database: Queryable, designId: string) {
+	const [row] = await database.select().from(wheelDesign).where(eq(wheelDesign.id, designId));
+	return row;
+}
+
+/** Every revision of a design, newest first. */
+export async function revisionsOf(database: Queryable, designId: string): Promise<Revision[]> {
+	return database.select(revisionColumns).from(wheelRevision).leftJoin(user, eq(user.id, wheelRevision.authorId)).where(eq(wheelRevision.designId, designId)).orderBy(desc(wheelRevision.number));
+}
+
+/** One revision, or the newest when `number` is not given. */
+export async function revisionOf(database: Queryable, designId: string, number?: number): Promise<Revision | undefined> {
+	const where = number === undefined ? eq(wheelRevision.designId, designId) : and(eq(wheelRevision.designId, designId), eq(wheelRevision.number, number));
+	const [row] = await database.select(revisionColumns).from(wheelRevision).leftJoin(user, eq(user.id, wheelRevision.authorId)).where(where).orderBy(desc(wheelRevision.number)).limit(1);
+	return row;
+}
+
+export type CreateDesign = { ok: true; designId: string } | { ok: false; reason: 'name-taken' };
+
+export async function createDesign(database: Database, buildId: string, input: { name: string; params: FlatParams; message: string }, authorId: string): Promise<CreateDesign> {
+	try {
+		return await database.transaction(async (tx) => {
+			const [design] = await tx.insert(wheelDesign).values({ buildId, name: input.name }).returning({ id: wheelDesign.id });
+			await tx.insert(wheelRevision).values({ designId: design!.id, number: 1, params: input.params, message: input.message || 'First revision', authorId });
+			await logActivity(tx, { buildId, actorId: authorId, kind: 'design', summary: `New wheel design “${input.name}”, revision 1` });
+			await touchBuild(tx, buildId);
+			return { ok: true as const, designId: design!.id };
+		});
+	} catch (err) {
+		if (isUniqueViolation(err, 'wheel_design_build_name')) return { ok: false, reason: 'name-taken' };
+		throw err;
+	}
+}
+
+export type SaveResult = { ok: true; revision: Revision } | { ok: false; reason: 'stale'; head: Revision };
+
+/**
+ * Saves `params` as the revision after `baseRevision`. Refused as stale when the design has moved
+ * on since that base; the answer then carries the newest revision so the caller can choose.
+ */
+export async function saveRevision(
+	database: Database,
+	design: { id: string; name: string; buildId: string },
+	input: { baseRevision: number; params: FlatParams; message: string; restoredFrom?: number },
+	authorId: string
+): Promise<SaveResult> {
+	const number = input.baseRevision + 1;
+	try {
+		await database.transaction(async (tx) => {
+			const head = await revisionOf(tx, design.id);
+			if (!head || head.number !== input.baseRevision) throw new Stale();
+			await tx.insert(wheelRevision).values({ designId: design.id, number, params: input.params, message: input.message, restoredFrom: input.restoredFrom ?? null, authorId });
+			await tx.update(wheelDesign).set({ updatedAt: new Date() }).where(eq(wheelDesign.id, design.id));
+			const summary = input.restoredFrom ? `“${design.name}” revision ${number} restores revision ${input.restoredFrom}` : `“${design.name}” revision ${number}${input.message ? `: ${input.message}` : ''}`;
+			await logActivity(tx, { buildId: design.buildId, actorId: authorId, kind: input.restoredFrom ? 'restore' : 'revision', summary });
+			await touchBuild(tx, design.buildId);
+		});
+	} catch (err) {
+		// Another save from the same base got there first: its insert holds the number.
+		if (!(err instanceof Stale) && !isUniqueViolation(err, 'wheel_revision_design_number')) throw err;
+		return { ok: false, reason: 'stale', head: (await revisionOf(database, design.id))! };
+	}
+	return { ok: true, revision: (await revisionOf(database, design.id, number))! };
+}
+
+class Stale extends Error {}

@@ -1,0 +1,74 @@
+import { and, desc, eq } from 'drizzle-orm';
+import { parseTape, parseTdc } from '$lib/schemas/tape';
+import type { FieldErrors } from '$lib/schemas/form';
+import { spreadFromRim, tdcFromMarks } from '$lib/trade/tdc';
+import type { Database, Queryable } from './db';
+import { degreeTape, tdcRecord, user, type FlatParams } from './db/schema';
+import { logActivity } from './activity';
+import { touchBuild } from './builds';
+
+// A build's TDC records and degree tapes: the parameters as the tools take them, checked by the
+// tools' own schemas, so a saved record always opens again in its tool.
+
+const keep = (params: FlatParams) => Object.fromEntries(Object.entries(params).filter(([, v]) => v.trim() !== ''));
+
+export type RecordWrite = { ok: true; id: string } | { ok: false; errors: FieldErrors };
+
+export async function saveTdcRecord(database: Database, buildId: string, input: { label: string; params: FlatParams }, authorId: string): Promise<RecordWrite> {
+	const parsed = parseTdc(input.params);
+	if (!parsed.ok) return { ok: false, errors: parsed.errors };
+	const v = parsed.value;
+	if (v.kind !== 'marks') {
+		const spread = spreadFromRim(v.distanceMm, v.diameterMm);
+		return { ok: false, errors: { a: `a: a TDC record needs the two piston-stop readings in degrees (the rim distance gives a spread of ${spread.spreadDeg.toFixed(2)}°)` } };
+	}
+	const answer = tdcFromMarks(v.a, v.b, v.scale, v.arc);
+	if (!answer.ok) return { ok: false, errors: { [answer.field]: answer.message } };
+	const tdcDeg = String(Math.round(answer.result.tdcDeg * 1000) / 1000);
+	return database.transaction(async (tx) => {
+		const [row] = await tx.insert(tdcRecord).values({ buildId, label: input.label, params: keep(input.params), tdcDeg, authorId }).returning({ id: tdcRecord.id });
+		await logActivity(tx, { buildId, actorId: authorId, kind: 'tdc', summary: `TDC record${input.label ? ` “${input.label}”` : ''}: marks ${v.a}° and ${v.b}°, TDC at ${tdcDeg}°` });
+		await touchBuild(tx, buildId);
+		return { ok: true as const, id: row!.id };
+	});
+}
+
+export async function saveTape(database: Database, buildId: string, input: { label: string; params: FlatParams }, authorId: string): Promise<RecordWrite> {
+	const parsed = parseTape(input.params);
+	if (!parsed.ok) return { ok: false, errors: parsed.errors };
+	const hub = parsed.value.spec.hubDiameterMm;
+	return database.transaction(async (tx) => {
+		const [row] = await tx.insert(degreeTape).values({ buildId, label: input.label, params: keep(input.params), authorId }).returning({ id: degreeTape.id });
+		await logActivity(tx, { buildId, actorId: authorId, kind: 'tape', summary: `Degree tape${input.label ? ` “${input.label}”` : ''} for a ${Math.round(hub * 100) / 100} mm hub` });
+		await touchBuild(tx, buildId);
+		return { ok: true as const, id: row!.id };
+	});
+}
+
+export async function tdcRecordsOf(database: Queryable, buildId: string) {
+	return database
+		.select({ id: tdcRecord.id, label: tdcRecord.label, params: tdcRecord.params, tdcDeg: tdcRecord.tdcDeg, author: user.email, createdAt: tdcRecord.createdAt })
+		.from(tdcRecord)
+		.leftJoin(user, eq(user.id, tdcRecord.authorId))
+		.where(eq(tdcRecord.buildId, buildId))
+		.orderBy(desc(tdcRecord.createdAt));
+}
+
+export async function tapesOf(database: Queryable, buildId: string) {
+	return database
+		.select({ id: degreeTape.id, label: degreeTape.label, params: degreeTape.params, author: user.email, createdAt: degreeTape.createdAt })
+		.from(degreeTape)
+		.leftJoin(user, eq(user.id, degreeTape.authorId))
+		.where(eq(degreeTape.buildId, buildId))
+		.orderBy(desc(degreeTape.createdAt));
+}
+
+export async function deleteRecord(database: Database, kind: 'tdc' | 'tape', buildId: string, id: string, actorId: string): Promise<boolean> {
+	const table = kind === 'tdc' ? tdcRecord : degreeTape;
+	return database.transaction(async (tx) => {
+		const rows = await tx.delete(table).where(and(eq(table.id, id), eq(table.buildId, buildId))).returning({ label: table.label });
+		if (!rows[0]) return false;
+		await logActivity(tx, { buildId, actorId, kind, summary: `${kind === 'tdc' ? 'TDC record' : 'Degree tape'}${rows[0].label ? ` “${rows[0].label}”` : ''} removed` });
+		return true;
+	});
+}

@@ -1,0 +1,34 @@
+import { json } from '@sveltejs/kit';
+import { saveRevision as saveSchema } from '$lib/schemas/build';
+import { objectAccess } from '$lib/server/access';
+import { conflict, jsonBody, refuse } from '$lib/server/api';
+import { db } from '$lib/server/db';
+import { getDesign, revisionsOf, saveRevision } from '$lib/server/designs';
+import { checkWheel } from '$lib/server/wheel-request';
+
+export async function GET(event) {
+	await objectAccess(event, 'read', 'design', event.params.designId);
+	return json({ revisions: await revisionsOf(db(), event.params.designId) });
+}
+
+/**
+ * Saves a new revision. The body names the revision the edit started from (`baseRevision`); when
+ * someone saved since, the answer is 409 with the newest revision, and nothing is written.
+ */
+export async function POST(event) {
+	const access = await objectAccess(event, 'edit', 'design', event.params.designId);
+	const body = await jsonBody(event.request, saveSchema);
+	if (!body.ok) return body.response;
+	const wheel = checkWheel(body.data.params);
+	if (!wheel.ok) return refuse(Object.fromEntries(Object.entries(wheel.errors).map(([k, v]) => [`params.${k}`, v])));
+	const design = (await getDesign(db(), event.params.designId))!;
+	const result = await saveRevision(db(), design, { ...body.data, params: wheel.params }, access.user.id);
+	if (!result.ok) {
+		return conflict(`Revision ${result.head.number} was saved by ${result.head.author ?? 'someone'} after revision ${body.data.baseRevision}, which this edit started from.`, {
+			baseRevision: body.data.baseRevision,
+			head: result.head,
+			yours: { params: wheel.params, message: body.data.message }
+		});
+	}
+	return json({ revision: result.revision }, { status: 201 });
+}
