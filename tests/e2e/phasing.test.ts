@@ -1,3 +1,4 @@
+import { execFileSync } from 'node:child_process';
 import { join } from 'node:path';
 import type { Browser } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -18,5 +19,77 @@ describe('phasing check in Chromium (signed out)', () => {
 		await expect.poll(() => page.getByTestId('first-tooth-offset').innerText()).toMatch(/90\s*° BTDC/);
 		expect(await page.getByTestId('phasing-diagram').getAttribute('role')).toBe('img');
 		await page.screenshot({ path: join(screenshots, 'phasing.png'), fullPage: true });
+	});
+
+	it('takes measured angles and a typed 52° V-twin, and downloads the build sheet (read back by poppler)', async () => {
+		const context = await browser.newContext({ viewport: { width: 1280, height: 900 }, acceptDownloads: true });
+		const page = await context.newPage();
+		await page.goto(`${baseUrl}/phasing`);
+		await page.getByLabel('Layout').selectOption('v-twin');
+		await page.getByLabel('V angle (°)').fill('52');
+		// The choice's radio is drawn as its label (ChoiceToggle): click what the user sees.
+		await page.locator('label', { hasText: 'Measured angles' }).click();
+		await expect.poll(() => page.getByRole('radio', { name: 'Measured angles' }).isChecked()).toBe(true);
+		await page.getByLabel('Sensor angle (crank ° before the TDC mark)').fill('90');
+		await page.getByLabel('Keyway angle on the wheel (wheel °)').fill('15');
+		await page.getByLabel('Key angle (crank ° before the TDC mark)').fill('5');
+		// By geometry: the point at the sensor is (90 − 5) + 15 = 100° of wheel after tooth 0's leading
+		// edge, tooth 10 of a 10° pitch, which passed the sensor 100° before TDC.
+		await expect.poll(() => page.getByTestId('first-tooth-offset').innerText()).toMatch(/100\s*° BTDC/);
+		expect(await page.getByTestId('tooth-at-tdc').innerText()).toBe('10');
+		// Single-crankpin V-twin (engine layout definition, common practice): 360 + 52 and 360 − 52.
+		expect(await page.getByTestId('firing-intervals').innerText()).toMatch(/412°\s*\/\s*308°/);
+		const diagram = page.getByTestId('phasing-diagram');
+		expect(await diagram.getAttribute('data-cylinders')).toBe('2');
+		expect(await diagram.getAttribute('aria-label')).toMatch(/tooth 10 at the sensor, first-tooth offset 100° BTDC/);
+		expect(await page.getByTestId('tdc-mark').count()).toBe(1);
+		// The address follows, so the link shares the check.
+		await expect.poll(() => new URL(page.url()).searchParams.get('keyAngle')).toBe('5');
+		const shared = new URL(page.url()).searchParams;
+		expect([shared.get('input'), shared.get('layout'), shared.get('vAngle'), shared.get('toothAtTdc')]).toEqual(['angles', 'v-twin', '52', null]);
+
+		// The build sheet: nothing to download until the wheel's size is known.
+		const sheet = page.getByTestId('build-sheet');
+		expect(await sheet.getByRole('link', { name: 'Download build sheet (PDF)' }).getAttribute('aria-disabled')).toBe('true');
+		await page.getByLabel('Build name').fill('Twin 52 test');
+		await page.getByLabel('Outer diameter (mm)').fill('120');
+		await page.getByLabel('Tooth depth (mm)').fill('6');
+		await page.getByLabel('Thickness (mm)').fill('4');
+		await page.getByLabel('Material').selectOption('aluminium');
+		await page.getByLabel('First piston-stop mark (°)').fill('-10');
+		await page.getByLabel('Second piston-stop mark (°)').fill('19');
+		await expect.poll(() => new URL(page.url()).searchParams.get('tdcB')).toBe('19');
+		// The name goes as buildName: `build` in a tool's address is a build's id.
+		expect([new URL(page.url()).searchParams.get('buildName'), new URL(page.url()).searchParams.get('build')]).toEqual(['Twin 52 test', null]);
+		await page.screenshot({ path: join(screenshots, 'phasing-angles-v-twin.png'), fullPage: true });
+
+		const [download] = await Promise.all([page.waitForEvent('download'), sheet.getByRole('link', { name: 'Download build sheet (PDF)' }).click()]);
+		expect(download.suggestedFilename()).toBe('build-sheet-twin-52-test.pdf');
+		const file = join(screenshots, '..', download.suggestedFilename());
+		await download.saveAs(file);
+		expect(execFileSync('pdfinfo', [file], { encoding: 'utf8' })).toMatch(/Pages:\s+1\n/);
+		const text = execFileSync('/usr/bin/pdftotext', ['-layout', file, '-'], { encoding: 'utf8' });
+		expect(text).toContain('Build sheet: Twin 52 test');
+		expect(text).toMatch(/First-tooth offset\s+100° BTDC/);
+		expect(text).toMatch(/V-twin, 52° V, one crankpin; firing intervals 412 \/ 308°/);
+		expect(text).toMatch(/Tooth at the sensor at TDC\s+10 \(tooth 0 = first after the gap, worked out from the angles\)/);
+		expect(text).toContain('Aluminium alloy, 4.00 mm');
+		// Seed document: marks at −10° and 19° put TDC at 4.5°.
+		expect(text).toMatch(/-10° and 19°: true TDC at 4\.5°/);
+
+		// Opening the shared address gives the same check.
+		await page.goto(page.url());
+		await expect.poll(() => page.getByTestId('first-tooth-offset').innerText()).toMatch(/100\s*° BTDC/);
+		expect(await page.getByLabel('Build name').inputValue()).toBe('Twin 52 test');
+		await context.close();
+	});
+
+	it('opens a link of an earlier version (layout=v-twin-90) as a 90° V-twin', async () => {
+		const page = await (await browser.newContext()).newPage();
+		await page.goto(`${baseUrl}/phasing?teeth=36&missing=1&toothAtTdc=9&layout=v-twin-90`);
+		expect(await page.getByLabel('Layout').inputValue()).toBe('v-twin');
+		expect(await page.getByLabel('V angle (°)').inputValue()).toBe('90');
+		// 90° V-twin on one crankpin: 450° then 270° (engine layout definition, common practice).
+		await expect.poll(() => page.getByTestId('firing-intervals').innerText()).toMatch(/450°\s*\/\s*270°/);
 	});
 });

@@ -36,6 +36,82 @@ describe('GET /api/v1/phasing', () => {
 		const none = await get({});
 		expect(Object.keys((await none.json()).errors).sort()).toEqual(['teeth', 'toothAtTdc']);
 	});
+
+	// Worked example by geometry: keyway at tooth 0's leading edge, key in line with the TDC mark,
+	// sensor 90° before the mark: tooth 0 passed the sensor 90° before TDC, tooth 9 is under it.
+	it('input=angles: works out the tooth at TDC from the sensor, keyway and key angles', async () => {
+		const res = await get({ teeth: '36', missing: '1', input: 'angles', sensorAngle: '90' });
+		expect(res.status).toBe(200);
+		expect(await res.json()).toMatchObject({
+			input: 'angles',
+			toothAtTdc: 9,
+			firstToothOffsetDeg: 90,
+			measured: { sensorAngleDeg: 90, keywayAngleDeg: 0, keyAngleDeg: 0 }
+		});
+		// The tooth input answers the tooth it was given.
+		expect(await (await get({ teeth: '36', missing: '1', toothAtTdc: '4.5' })).json()).toMatchObject({ input: 'tooth', toothAtTdc: 4.5, measured: null });
+	});
+
+	it('input=angles on the cam, and round the wrap', async () => {
+		// Cam: crank degrees halve into wheel degrees: (180 − 60) / 2 + 30 = 90° of wheel, tooth 9, 180 crank degrees BTDC.
+		const cam = await (await get({ teeth: '36', missing: '1', mount: 'cam', input: 'angles', sensorAngle: '180', keyAngle: '60', keywayAngle: '30' })).json();
+		expect(cam).toMatchObject({ toothAtTdc: 9, firstToothOffsetDeg: 180 });
+		// Sensor 30° after the mark: tooth 0 passed it 330° ago, tooth 33.
+		const wrap = await (await get({ teeth: '36', missing: '1', input: 'angles', sensorAngle: '-30' })).json();
+		expect(wrap).toMatchObject({ toothAtTdc: 33, firstToothOffsetDeg: 330 });
+	});
+
+	it('input=angles suggests a clocking from the target alone', async () => {
+		// Key at the mark, sensor 90° before it: the key reaches the sensor 270° later; for 60° BTDC the
+		// keyway goes 60 + 270 = 330° after tooth 0 (then 90 + 330 = 420 = 60° of wheel at the sensor).
+		const body = await (await get({ teeth: '36', missing: '1', input: 'angles', sensorAngle: '90', target: '60' })).json();
+		expect(body.clocking).toEqual({ targetDeg: 60, keyFromSensorDeg: 270, keywayAngleDeg: 330 });
+		const check = await (await get({ teeth: '36', missing: '1', input: 'angles', sensorAngle: '90', keywayAngle: '330' })).json();
+		expect(check.firstToothOffsetDeg).toBe(60);
+	});
+
+	// Single-crankpin V-twin (engine layout definition, common practice): intervals 360 + V, 360 − V.
+	it('layout=v-twin with any vAngle; the old v-twin-90 still works', async () => {
+		const v52 = await (await get({ teeth: '36', missing: '1', toothAtTdc: '9', layout: 'v-twin', vAngle: '52' })).json();
+		expect(v52).toMatchObject({ layout: 'V-twin, 52° V, one crankpin', intervals: [412, 308] });
+		// The gap passes 105°–90° before each crank turn's TDC 1, so 255°–270° after TDC 1; cylinder 2
+		// (TDC at 412°) keeps its 45°–0° window 367°–412°: 97° clear.
+		expect(v52.gapClearanceDeg).toEqual([
+			{ cylinder: 1, tdcDeg: 0, clearanceDeg: 45 },
+			{ cylinder: 2, tdcDeg: 412, clearanceDeg: 97 }
+		]);
+		const decimal = await (await get({ teeth: '36', missing: '1', toothAtTdc: '9', layout: 'v-twin', vAngle: '52.5' })).json();
+		expect(decimal.intervals).toEqual([412.5, 307.5]);
+		const old = await (await get({ teeth: '36', missing: '1', toothAtTdc: '9', layout: 'v-twin-90' })).json();
+		expect(old).toMatchObject({ layout: 'V-twin, 90° V, one crankpin', intervals: [450, 270] });
+	});
+
+	it('refuses the new parameters naming the field and its range', async () => {
+		const errorsOf = async (params: Record<string, string>) => {
+			const res = await get({ teeth: '36', missing: '1', ...params });
+			expect(res.status).toBe(400);
+			return (await res.json()).errors;
+		};
+		expect(await errorsOf({ toothAtTdc: '9', layout: 'v-twin', vAngle: '200' })).toEqual({ vAngle: 'vAngle: a number from 15 to 120°' });
+		expect(await errorsOf({ toothAtTdc: '9', layout: 'v-twin', vAngle: 'wide' })).toEqual({ vAngle: 'vAngle: a number from 15 to 120°' });
+		expect(await errorsOf({ toothAtTdc: '9', layout: 'v-twin' })).toEqual({ vAngle: 'vAngle: required with layout=v-twin, a number from 15 to 120°' });
+		expect(await errorsOf({ toothAtTdc: '9', layout: 'twin-270', vAngle: '52' })).toEqual({ vAngle: 'vAngle: only with layout=v-twin' });
+		expect(await errorsOf({ toothAtTdc: '9', layout: 'v-twin-52' })).toEqual({
+			layout: 'layout: one of single-4, single-2, twin-180, twin-270, twin-360, v-twin, twin-2-180, four-inline'
+		});
+		expect(await errorsOf({ input: 'guess', toothAtTdc: '9' })).toEqual({ input: 'input: one of tooth, angles' });
+		expect(await errorsOf({ input: 'angles' })).toEqual({ sensorAngle: 'sensorAngle: a number from -720 to 720° before the TDC mark' });
+		expect(await errorsOf({ input: 'angles', sensorAngle: '800', keywayAngle: '400', keyAngle: 'x' })).toEqual({
+			sensorAngle: 'sensorAngle: a number from -720 to 720° before the TDC mark',
+			keywayAngle: 'keywayAngle: a number from -360 to 360°',
+			keyAngle: 'keyAngle: a number from -720 to 720° before the TDC mark'
+		});
+		expect(await errorsOf({ input: 'angles', sensorAngle: '90', toothAtTdc: '9', keyFromSensor: '30', target: '90' })).toEqual({
+			toothAtTdc: 'toothAtTdc: not with input=angles (it is worked out from sensorAngle, keywayAngle and keyAngle)',
+			keyFromSensor: 'keyFromSensor: not with input=angles (it follows from sensorAngle and keyAngle)'
+		});
+		expect(await errorsOf({ toothAtTdc: '9', sensorAngle: '90' })).toEqual({ sensorAngle: 'sensorAngle: only with input=angles (or give toothAtTdc alone)' });
+	});
 });
 
 describe('GET /api/v1/build-sheet.pdf', () => {
@@ -61,9 +137,44 @@ describe('GET /api/v1/build-sheet.pdf', () => {
 		expect(text).toContain('crank-only wheel on a four-stroke');
 	});
 
-	it('refuses bad parameters of either part, naming them', async () => {
+	it('takes the angles input and a typed V-twin (read back by poppler)', async () => {
+		const { execFileSync } = await import('node:child_process');
+		const { mkdtempSync, writeFileSync } = await import('node:fs');
+		const { join } = await import('node:path');
+		const { tmpdir } = await import('node:os');
+		const params = { buildName: 'V 52', teeth: '36', missing: '1', od: '120', depth: '6', input: 'angles', sensorAngle: '90', keywayAngle: '15', keyAngle: '5', layout: 'v-twin', vAngle: '52', target: '60' };
+		const res = await fetch(`${process.env.APP_URL}/api/v1/build-sheet.pdf?${new URLSearchParams(params)}`);
+		expect(res.status).toBe(200);
+		// buildName is the name (build, its earlier spelling, is read too: see the test above).
+		expect(res.headers.get('content-disposition')).toBe('attachment; filename="build-sheet-v-52.pdf"');
+		const file = join(mkdtempSync(join(tmpdir(), 'phasewright-sheet-')), 'sheet.pdf');
+		writeFileSync(file, Buffer.from(await res.arrayBuffer()));
+		const text = execFileSync('pdftotext', ['-layout', file, '-'], { encoding: 'utf8' });
+		expect(text).toContain('Build sheet: V 52');
+		// By geometry: (90 − 5) + 15 = 100° of wheel at the sensor, tooth 10, 100° BTDC.
+		expect(text).toMatch(/Tooth at the sensor at TDC\s+10 \(tooth 0 = first after the gap, worked out from the angles\)/);
+		expect(text).toMatch(/First-tooth offset\s+100° BTDC/);
+		expect(text).toMatch(/sensor 90° before the TDC mark, key 5° before it/);
+		// The wheel's keyway angle is the same parameter: the sheet's wheel and its phasing agree.
+		expect(text).toMatch(/V-twin, 52° V, one crankpin; firing intervals 412 \/ 308°/);
+		// For 60° BTDC: the key reaches the sensor (5 − 90) mod 360 = 275° later, so the keyway at 60 + 275 = 335°.
+		expect(text).toMatch(/keyway angle 335° of wheel gives 60° BTDC/);
+	});
+
+	it('refuses bad parameters of either part, naming them all at once', async () => {
 		const res = await fetch(`${process.env.APP_URL}/api/v1/build-sheet.pdf?${new URLSearchParams({ teeth: '36', od: '100', depth: '5', tdcA: '5', tdcB: '5' })}`);
 		expect(res.status).toBe(400);
-		expect((await res.json()).errors).toEqual({ toothAtTdc: 'toothAtTdc: a number from 0 to 720' });
+		expect((await res.json()).errors).toEqual({
+			toothAtTdc: 'toothAtTdc: a number from 0 to 720',
+			tdcB: 'tdcB: must differ from tdcA; a piston stop leaves one mark each side of TDC'
+		});
+		const more = await fetch(`${process.env.APP_URL}/api/v1/build-sheet.pdf?${new URLSearchParams({ buildName: 'x'.repeat(81), teeth: '36', depth: '5', input: 'angles', sensorAngle: '90', layout: 'v-twin', tapeDiameter: '2' })}`);
+		expect(more.status).toBe(400);
+		expect((await more.json()).errors).toEqual({
+			buildName: 'buildName: at most 80 characters',
+			od: 'od: required, 10 mm to 2000 mm',
+			vAngle: 'vAngle: required with layout=v-twin, a number from 15 to 120°',
+			tapeDiameter: 'tapeDiameter: the timing hub diameter, 10 mm to 2000 mm'
+		});
 	});
 });

@@ -14,10 +14,22 @@ export interface Layout {
 	intervals: number[];
 }
 
+/** The V angles a single-crankpin V-twin may be given, degrees (narrower is a parallel twin in all but name). */
+export const vAngleRange = { min: 15, max: 120 } as const;
+
 /**
- * Presets for the common layouts. Parallel twins are named by their crankpin offset (180°, 270°,
- * 360°); a single-crankpin V-twin with V angle α fires at 360° + α and 360° − α; a flat-plane
- * inline four every 180° (engine layout definitions, common practice).
+ * A four-stroke V-twin with both rods on one crankpin and V angle `vAngleDeg` between the
+ * cylinders: cylinder 2 fires 360° + V after cylinder 1, then cylinder 1 again 360° − V later
+ * (engine layout definition, common practice).
+ */
+export function vTwin(vAngleDeg: number): Layout {
+	return { id: 'v-twin', label: `V-twin, ${vAngleDeg}° V, one crankpin`, stroke: 4, intervals: [360 + vAngleDeg, 360 - vAngleDeg] };
+}
+
+/**
+ * Presets for the common layouts with fixed intervals. Parallel twins are named by their crankpin
+ * offset (180°, 270°, 360°); a flat-plane inline four fires every 180° (engine layout
+ * definitions, common practice). V-twins take any V angle: see `vTwin`.
  */
 export const layouts: Layout[] = [
 	{ id: 'single-4', label: 'Single, 4-stroke', stroke: 4, intervals: [720] },
@@ -25,10 +37,22 @@ export const layouts: Layout[] = [
 	{ id: 'twin-180', label: 'Parallel twin, 180° crank', stroke: 4, intervals: [180, 540] },
 	{ id: 'twin-270', label: 'Parallel twin, 270° crank', stroke: 4, intervals: [270, 450] },
 	{ id: 'twin-360', label: 'Parallel twin, 360° crank', stroke: 4, intervals: [360, 360] },
-	...[45, 60, 75, 90].map((v) => ({ id: `v-twin-${v}`, label: `V-twin, ${v}° V, one crankpin`, stroke: 4 as const, intervals: [360 + v, 360 - v] })),
 	{ id: 'twin-2-180', label: 'Twin, 2-stroke, 180° crank', stroke: 2, intervals: [180, 180] },
 	{ id: 'four-inline', label: 'Inline four, flat-plane crank', stroke: 4, intervals: [180, 180, 180, 180] }
 ];
+
+/** What a layout select offers: the presets, and the V-twin whose V angle is typed. */
+export const layoutChoices: { id: string; label: string }[] = [
+	...layouts.slice(0, 5),
+	{ id: 'v-twin', label: 'V-twin, one crankpin (type the V angle)' },
+	...layouts.slice(5)
+];
+
+/** Layout ids of earlier versions, still read (saved profiles and shared links): `v-twin-90` is a 90° V-twin. */
+export function legacyVTwin(id: string | undefined): number | null {
+	const m = /^v-twin-(45|60|75|90)$/.exec(id ?? '');
+	return m ? Number(m[1]) : null;
+}
 
 /** Each cylinder's TDC (in firing order) in crank degrees after cylinder 1's firing TDC. */
 export function firingTdcs(intervals: number[]): number[] {

@@ -1,6 +1,7 @@
+import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { firingTdcs, layouts } from './engine';
-import { clockingFor, phasing, type PhasingInput } from './phasing';
+import { cycleDeg, firingTdcs, layoutChoices, layouts, legacyVTwin, vTwin } from './engine';
+import { clockingFor, keyFromSensorFrom, phasing, toothAtTdcFrom, type PhasingInput } from './phasing';
 
 const input = (over: Partial<PhasingInput> = {}): PhasingInput => ({
 	pattern: { kind: 'missing', teeth: 36, missing: 1 },
@@ -75,9 +76,83 @@ describe('phasing', () => {
 	});
 
 	it('suggests the keyway angle that puts the first-tooth offset on target', () => {
-		// Target 90° BTDC with the key 30° past the sensor at TDC: the keyway at 120° in the designer.
+		// Target 90° BTDC with the key 30° before the sensor at TDC (it reaches the sensor 30° later):
+		// tooth 0 must have passed the sensor 90° ago, so the keyway sits 120° after tooth 0's leading edge.
 		expect(clockingFor(90, 30, 'crank')).toBe(120);
 		expect(clockingFor(90, 30, 'cam')).toBe(75);
+	});
+});
+
+describe('tooth at TDC from measured angles', () => {
+	const teeth = 36;
+	// Worked example by geometry: keyway cut at tooth 0's leading edge, key in line with the TDC
+	// mark, sensor 90° before the mark. At TDC tooth 0's leading edge sits at the mark, so it passed
+	// the sensor 90° ago: the point at the sensor is 90° of wheel after it, tooth 9 of a 10° pitch,
+	// the same 90° BTDC as the tooth-input worked example above.
+	it('36-1, keyway at tooth 0, key at the mark, sensor 90° before it: tooth 9, 90° BTDC', () => {
+		const toothAtTdc = toothAtTdcFrom({ sensorFromTdcDeg: 90, keywayDeg: 0, keyFromTdcDeg: 0, teeth, mount: 'crank' });
+		expect(toothAtTdc).toBe(9);
+		expect(phasing(input({ toothAtTdc })).firstToothOffsetDeg).toBe(90);
+	});
+
+	it('the keyway and the key move the tooth at the sensor by their angles', () => {
+		// Keyway 45° after tooth 0: with the key at the mark, tooth 0 sits 45° past the mark, 135° past the sensor.
+		expect(toothAtTdcFrom({ sensorFromTdcDeg: 90, keywayDeg: 45, keyFromTdcDeg: 0, teeth, mount: 'crank' })).toBe(13.5);
+		// Key 30° before the mark: the whole wheel sits 30° earlier, tooth 0's leading edge 60° past the sensor.
+		expect(toothAtTdcFrom({ sensorFromTdcDeg: 90, keywayDeg: 0, keyFromTdcDeg: 30, teeth, mount: 'crank' })).toBe(6);
+	});
+
+	it('a cam wheel halves the crank degrees into wheel degrees', () => {
+		// Sensor 180 crank degrees before the mark = 90° round the cam: tooth 9, and 180° BTDC on the crank.
+		const toothAtTdc = toothAtTdcFrom({ sensorFromTdcDeg: 180, keywayDeg: 0, keyFromTdcDeg: 0, teeth, mount: 'cam' });
+		expect(toothAtTdc).toBe(9);
+		expect(phasing(input({ toothAtTdc, mount: 'cam' })).firstToothOffsetDeg).toBe(180);
+		// Key 60 crank degrees before the mark (30° of cam), keyway 30° of wheel: (180 − 60) / 2 + 30 = 90°, tooth 9 again.
+		expect(toothAtTdcFrom({ sensorFromTdcDeg: 180, keywayDeg: 30, keyFromTdcDeg: 60, teeth, mount: 'cam' })).toBe(9);
+	});
+
+	it('wraps round the wheel', () => {
+		// Sensor 30° after the mark: tooth 0 passed it 330° ago, tooth 33.
+		expect(toothAtTdcFrom({ sensorFromTdcDeg: -30, keywayDeg: 0, keyFromTdcDeg: 0, teeth, mount: 'crank' })).toBe(33);
+		// 20° + 350° = 370°: one pitch past a full turn, tooth 1.
+		expect(toothAtTdcFrom({ sensorFromTdcDeg: 20, keywayDeg: 350, keyFromTdcDeg: 0, teeth, mount: 'crank' })).toBe(1);
+		// A full turn exactly is tooth 0, never tooth 36.
+		expect(toothAtTdcFrom({ sensorFromTdcDeg: 360, keywayDeg: 0, keyFromTdcDeg: 0, teeth, mount: 'crank' })).toBe(0);
+		expect(toothAtTdcFrom({ sensorFromTdcDeg: 0.1 + 0.2, keywayDeg: -0.3, keyFromTdcDeg: 0, teeth, mount: 'crank' })).toBe(0);
+		expect(toothAtTdcFrom({ sensorFromTdcDeg: 720, keywayDeg: 0, keyFromTdcDeg: 0, teeth, mount: 'cam' })).toBe(0);
+	});
+
+	it('says where the key sits from the sensor, as clockingFor takes it', () => {
+		// Sensor 90° before the mark, key at the mark: the key reaches the sensor 270° later.
+		expect(keyFromSensorFrom({ sensorFromTdcDeg: 90, keyFromTdcDeg: 0, mount: 'crank' })).toBe(270);
+		expect(clockingFor(90, 270, 'crank')).toBe(0);
+		expect(keyFromSensorFrom({ sensorFromTdcDeg: 90, keyFromTdcDeg: 0, mount: 'cam' })).toBe(315);
+	});
+
+	// Property: clocking the wheel as clockingFor suggests, for wherever the sensor and the key are
+	// measured, brings the first-tooth offset onto the target (the two conventions agree).
+	it('clockingFor and toothAtTdcFrom agree: the suggested keyway gives the target offset', () => {
+		fc.assert(
+			fc.property(
+				fc.integer({ min: 2, max: 720 }),
+				fc.constantFrom('crank' as const, 'cam' as const),
+				fc.double({ min: -720, max: 720, noNaN: true }),
+				fc.double({ min: -720, max: 720, noNaN: true }),
+				fc.double({ min: 0, max: 1, noNaN: true, maxExcluded: true }),
+				(n, mount, sensorFromTdcDeg, keyFromTdcDeg, share) => {
+					const wheelTurn = mount === 'cam' ? 720 : 360;
+					const target = share * wheelTurn;
+					const keywayDeg = clockingFor(target, keyFromSensorFrom({ sensorFromTdcDeg, keyFromTdcDeg, mount }), mount);
+					const toothAtTdc = toothAtTdcFrom({ sensorFromTdcDeg, keywayDeg, keyFromTdcDeg, teeth: n, mount });
+					expect(toothAtTdc).toBeGreaterThanOrEqual(0);
+					expect(toothAtTdc).toBeLessThan(n);
+					const offset = phasing(input({ pattern: { kind: 'missing', teeth: n, missing: 1 }, mount, toothAtTdc })).firstToothOffsetDeg;
+					// Circular difference; clockingFor rounds to 0.001° of wheel, phasing to 0.001° of crank.
+					const diff = Math.abs((((offset - target) % wheelTurn) + wheelTurn * 1.5) % wheelTurn - wheelTurn / 2);
+					expect(diff).toBeLessThan(0.01);
+				}
+			)
+		);
 	});
 });
 
@@ -88,7 +163,30 @@ describe('engine layouts', () => {
 	});
 
 	it('a 90° V-twin fires at 450° and 270°; a 270° twin at 270° then 450°', () => {
-		expect(layouts.find((l) => l.id === 'v-twin-90')!.intervals).toEqual([450, 270]);
+		expect(vTwin(90).intervals).toEqual([450, 270]);
 		expect(firingTdcs(layouts.find((l) => l.id === 'twin-270')!.intervals)).toEqual([0, 270]);
+	});
+
+	// Engine layout definition (common practice): on one crankpin the second cylinder's TDC comes V
+	// crank degrees after the first's, on the next turn for a four-stroke: intervals 360 + V, 360 − V.
+	it('a V-twin of any V angle: 52° fires at 412° then 308°, 45° at 405° then 315°, 52.5° too', () => {
+		expect(vTwin(52)).toMatchObject({ id: 'v-twin', stroke: 4, intervals: [412, 308], label: 'V-twin, 52° V, one crankpin' });
+		expect(firingTdcs(vTwin(52).intervals)).toEqual([0, 412]);
+		expect(vTwin(45).intervals).toEqual([405, 315]);
+		expect(vTwin(52.5).intervals).toEqual([412.5, 307.5]);
+		fc.assert(
+			fc.property(fc.double({ min: 15, max: 120, noNaN: true }), (v) => {
+				const [a, b] = vTwin(v).intervals as [number, number];
+				expect(a + b).toBeCloseTo(cycleDeg(4), 9);
+				expect(a - b).toBeCloseTo(2 * v, 9);
+			})
+		);
+	});
+
+	it('the earlier V-twin ids still read, as V angles; the select offers one V-twin', () => {
+		expect([45, 60, 75, 90].map((v) => legacyVTwin(`v-twin-${v}`))).toEqual([45, 60, 75, 90]);
+		expect(legacyVTwin('v-twin')).toBeNull();
+		expect(legacyVTwin('twin-270')).toBeNull();
+		expect(layoutChoices.filter((l) => l.id.startsWith('v-twin')).map((l) => l.id)).toEqual(['v-twin']);
 	});
 });

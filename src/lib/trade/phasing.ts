@@ -1,7 +1,8 @@
 // Phasing: where the engine is when a tooth reaches the sensor, in the numbers a tuner enters.
 // Conventions: tooth 0 is the first after the gap; `toothAtTdc` is the tooth (fractions allowed)
-// under the sensor with cylinder 1 at TDC. A wheel on the cam turns at half crank speed, so one
-// wheel degree is two crank degrees.
+// under the sensor with cylinder 1 at TDC, given as such or worked out from angles measured on the
+// engine (toothAtTdcFrom). A wheel on the cam turns at half crank speed, so one wheel degree is two
+// crank degrees.
 import { cycleDeg, firingTdcs, type Stroke } from './engine';
 import { gapsOf, pitchDeg, type Pattern } from './pattern';
 
@@ -119,9 +120,49 @@ export function phasing(input: PhasingInput): PhasingResult {
 /**
  * Where to put the keyway on the wheel (the designer's keywayAngle, wheel degrees from tooth 0's
  * leading edge) so the first-tooth offset lands on `targetDeg` BTDC, given where the key sits
- * with cylinder 1 at TDC: `keyFromSensorDeg` wheel degrees past the sensor in the sense of rotation.
+ * with cylinder 1 at TDC: `keyFromSensorDeg` wheel degrees the key still has to turn, in the
+ * sense of rotation, before it reaches the sensor.
  */
 export function clockingFor(targetDeg: number, keyFromSensorDeg: number, mount: 'crank' | 'cam'): number {
 	const factor = mount === 'cam' ? 2 : 1;
 	return round(norm(targetDeg / factor + keyFromSensorDeg, 360));
+}
+
+/**
+ * The wheel as measured on the engine, instead of the tooth under the sensor. All with cylinder 1
+ * at TDC, angles round the wheel's shaft in the sense a point of the wheel travels:
+ */
+export interface MeasuredAngles {
+	/**
+	 * Where the sensor sits: crank degrees before the engine's fixed TDC mark (pointer). A point of
+	 * the wheel passes the sensor, and this many crank degrees of turning later reaches the mark;
+	 * read off a degree wheel or tape zeroed at the mark, BTDC positive. Negative: after the mark.
+	 */
+	sensorFromTdcDeg: number;
+	/** Where the keyway is cut on the wheel: wheel degrees from tooth 0's leading edge (the designer's keywayAngle). */
+	keywayDeg: number;
+	/** Where the shaft's key sits, crank degrees before the TDC mark like the sensor; 0 = in line with the mark. */
+	keyFromTdcDeg: number;
+	mount: 'crank' | 'cam';
+}
+
+/**
+ * The tooth under the sensor with cylinder 1 at TDC (fractions allowed, 0 up to `teeth`), from the
+ * measured angles. Geometry: a wheel angle counts up in the order points reach the sensor, so the
+ * point w wheel degrees past the keyway sits w further before the mark than the key does; the
+ * one at the sensor has w = (sensor − key) / factor + keyway, factor 2 on the cam.
+ */
+export function toothAtTdcFrom(m: MeasuredAngles & { teeth: number }): number {
+	const factor = m.mount === 'cam' ? 2 : 1;
+	const atSensor = norm((m.sensorFromTdcDeg - m.keyFromTdcDeg) / factor + m.keywayDeg, 360);
+	// Rounded off the float noise, so a whole tooth stays whole and 35.9999999 of 36 comes back to 0.
+	const tooth = round(atSensor / pitchDeg(m.teeth), 9);
+	return tooth >= m.teeth ? 0 : tooth;
+}
+
+/** With cylinder 1 at TDC, wheel degrees the key still turns before it reaches the sensor (clockingFor's keyFromSensorDeg). */
+export function keyFromSensorFrom(m: Omit<MeasuredAngles, 'keywayDeg'>): number {
+	const factor = m.mount === 'cam' ? 2 : 1;
+	const d = round(norm((m.keyFromTdcDeg - m.sensorFromTdcDeg) / factor, 360), 9);
+	return d >= 360 ? 0 : d;
 }

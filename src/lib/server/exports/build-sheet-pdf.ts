@@ -2,7 +2,7 @@
 import type { ParsedPhasing } from '$lib/schemas/phasing';
 import type { ParsedWheel } from '$lib/schemas/wheel';
 import { firingTdcs } from '$lib/trade/engine';
-import type { PhasingResult } from '$lib/trade/phasing';
+import { clockingFor, type PhasingResult } from '$lib/trade/phasing';
 import type { WheelSummary } from '$lib/trade/summary';
 import { mmPerDegree } from '$lib/trade/tape';
 import type { TdcResult } from '$lib/trade/tdc';
@@ -55,8 +55,15 @@ export async function buildSheetPdf(s: BuildSheet): Promise<Buffer> {
 	section('Sensor and phasing');
 	row('Wheel on', p.mount === 'crank' ? 'the crank' : 'the cam (half speed: one wheel degree is two crank degrees)');
 	row('Sensor, edge read', `${s.phasing.sensor === 'hall' ? 'Hall-effect' : 'variable reluctance (VR)'}, ${p.edge} tooth edge, up to ${p.sensorMaxHz} Hz`);
-	row('Tooth at the sensor at TDC', `${p.toothAtTdc} (tooth 0 = first after the gap)`);
+	const m = s.phasing.measured;
+	if (m) {
+		const unit = p.mount === 'cam' ? 'crank degrees (twice the angle round the cam)' : 'crank degrees';
+		row('Measured with cylinder 1 at TDC', `sensor ${m.sensorFromTdcDeg}° before the TDC mark, key ${m.keyFromTdcDeg}° before it (${unit}); keyway at ${m.keywayDeg}° of wheel from tooth 0's leading edge`);
+	}
+	row('Tooth at the sensor at TDC', `${Number(p.toothAtTdc.toFixed(3))} (tooth 0 = first after the gap${m ? ', worked out from the angles' : ''})`);
 	row('First-tooth offset', `${r.firstToothOffsetDeg}° BTDC`);
+	const clock = s.phasing.clocking;
+	if (clock) row('Clocking for a target', `keyway angle ${clockingFor(clock.targetDeg, clock.keyFromSensorDeg, p.mount)}° of wheel gives ${clock.targetDeg}° BTDC`);
 	row('Pitch, resolution', `${r.pitchDeg}° of wheel, ${r.resolutionDeg} crank degrees per tooth`);
 	row('Tooth pitch frequency', `${r.pitchFrequencyHz} Hz at ${p.revLimitRpm} rpm`);
 	row('Gap at cranking', `${r.gapAtCrankingMs} ms at ${p.crankingRpm} rpm`);

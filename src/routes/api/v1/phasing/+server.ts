@@ -6,12 +6,16 @@ import { clockingFor, phasing } from '$lib/trade/phasing';
 export function GET({ url }) {
 	const parsed = parsePhasing(Object.fromEntries(url.searchParams));
 	if (!parsed.ok) return refuse(parsed.errors);
-	const { input, layoutLabel, clocking } = parsed.value;
+	const { input, layoutLabel, clocking, measured } = parsed.value;
 	return json({
 		layout: layoutLabel,
 		mount: input.mount,
 		intervals: input.intervals,
 		sensorMaxHz: input.sensorMaxHz,
+		input: measured ? 'angles' : 'tooth',
+		// Worked out from the angles with input=angles; as given otherwise.
+		toothAtTdc: Math.round(input.toothAtTdc * 1e4) / 1e4,
+		measured: measured ? { sensorAngleDeg: measured.sensorFromTdcDeg, keywayAngleDeg: measured.keywayDeg, keyAngleDeg: measured.keyFromTdcDeg } : null,
 		...phasing(input),
 		clocking: clocking ? { ...clocking, keywayAngleDeg: clockingFor(clocking.targetDeg, clocking.keyFromSensorDeg, input.mount) } : null
 	});
