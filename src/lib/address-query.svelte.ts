@@ -1,16 +1,23 @@
 import { replaceState } from '$app/navigation';
 import { page } from '$app/state';
 
+/** Not a tool's inputs but where its result goes (a build, a saved design): kept through every edit. */
+export const contextParams = ['build', 'design', 'revision'] as const;
+
 /**
- * Keeps the page's address query equal to `query()`, a moment after typing stops, so a design
- * can be bookmarked or shared. While `leaveBare()` says so (nothing changed since the page opened
- * without a query), a bare address stays bare. Call during component initialisation.
+ * Keeps the page's address query equal to `query()`, after the context parameters the address
+ * has, a moment after typing stops, so a design can be bookmarked or shared. While `leaveBare()`
+ * says so (nothing changed since the page opened without a query), a bare address stays bare.
+ * Call during component initialisation.
  */
 export function keepQueryInAddress(query: () => string, leaveBare: (q: string) => boolean, delayMs = 350) {
 	$effect(() => {
-		const q = query();
-		const bare = leaveBare(q);
+		const own = query();
+		const bare = leaveBare(own);
 		const timer = setTimeout(() => {
+			const here = new URLSearchParams(location.search);
+			const context = new URLSearchParams(contextParams.filter((k) => here.has(k)).map((k) => [k, here.get(k)!]));
+			const q = [context.toString(), own].filter(Boolean).join('&');
 			const current = location.search.replace(/^\?/, '');
 			if (current === q || (bare && current === '')) return;
 			const url = new URL(location.href);

@@ -23,3 +23,11 @@ export async function launch(): Promise<Browser> {
 		]
 	});
 }
+
+/** A browser context carrying the session of a client signed in through the API (tests/support/client.ts). */
+export async function contextFor(browser: Browser, cookies: Map<string, string>, options: Parameters<Browser['newContext']>[0] = {}) {
+	const context = await browser.newContext(options);
+	const url = new URL(baseUrl);
+	await context.addCookies([...cookies].map(([name, value]) => ({ name, value, domain: url.hostname, path: '/', httpOnly: true, sameSite: 'Lax' as const })));
+	return context;
+}

@@ -32,5 +32,5 @@ export const load: PageLoad = ({ url }) => {
 	}
 	// One of the two hub sizes is sent; a link with a circumference means "measured".
 	if (url.searchParams.has('circumference') && !url.searchParams.has('diameter')) delete params.diameter;
-	return { params };
+	return { params, build: url.searchParams.get('build') };
 };

@@ -10,5 +10,5 @@ export const load: PageLoad = ({ url }) => {
 		if (value !== null) params[key] = value;
 	}
 	const mode: 'marks' | 'rim' = url.searchParams.has('distance') || url.searchParams.has('diameter') ? 'rim' : 'marks';
-	return { params, mode };
+	return { params, mode, build: url.searchParams.get('build') };
 };

@@ -1,0 +1,45 @@
+// A tool opened from a build keeps its result in the build: the TDC finder and the degree tape.
+import type { Browser } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { Client, freshEmail, signUp } from '../support/client';
+import { baseUrl, contextFor, launch } from './browser';
+
+let browser: Browser;
+let client: Client;
+let buildId: string;
+beforeAll(async () => {
+	browser = await launch();
+	client = await signUp('records', freshEmail('records'));
+	buildId = (await client.send<{ id: string }>('POST', '/api/v1/builds', { name: 'Records from the tools' })).body.id;
+});
+afterAll(() => browser?.close());
+
+type Overview = { tdcRecords: { label: string; tdcDeg: string; params: Record<string, string> }[]; tapes: { label: string; params: Record<string, string> }[] };
+
+describe('saving tool results into a build (Chromium)', () => {
+	it('keeps a TDC record from the TDC finder, with the TDC half-way between the marks', async () => {
+		const page = await (await contextFor(browser, client.cookies)).newPage();
+		await page.goto(`${baseUrl}/tdc?build=${buildId}`);
+		await page.getByLabel('First mark (°)').fill('-14');
+		await page.getByLabel('Second mark (°)').fill('15');
+		await page.getByLabel('Label (optional)').fill('hot, after the run');
+		// The address keeps the build while the readings go into it.
+		await expect.poll(() => new URL(page.url()).searchParams.get('b')).toBe('15');
+		expect(new URL(page.url()).searchParams.get('build')).toBe(buildId);
+		await page.getByRole('button', { name: 'Save TDC record to the build' }).click();
+		await page.getByText('Saved in the build.').waitFor();
+		const { body } = await client.json<Overview>(`/api/v1/builds/${buildId}`);
+		// Marks 29° apart: TDC 14.5° from each, at 0.5° (common practice).
+		expect(body.tdcRecords).toMatchObject([{ label: 'hot, after the run', tdcDeg: '0.5', params: { a: '-14', b: '15' } }]);
+	});
+
+	it('keeps the degree tape printed for the hub', async () => {
+		const page = await (await contextFor(browser, client.cookies)).newPage();
+		await page.goto(`${baseUrl}/tape?build=${buildId}`);
+		await page.getByLabel('Hub diameter (mm)').fill('120');
+		await page.getByRole('button', { name: 'Save degree tape to the build' }).click();
+		await page.getByText('Saved in the build.').waitFor();
+		const { body } = await client.json<Overview>(`/api/v1/builds/${buildId}`);
+		expect(body.tapes[0]!.params.diameter).toBe('120');
+	});
+});
