@@ -42,4 +42,15 @@ describe('saving tool results into a build (Chromium)', () => {
 		const { body } = await client.json<Overview>(`/api/v1/builds/${buildId}`);
 		expect(body.tapes[0]!.params.diameter).toBe('120');
 	});
+
+	it('keeps the engine profile from the phasing check', async () => {
+		const page = await (await contextFor(browser, client.cookies)).newPage();
+		await page.goto(`${baseUrl}/phasing?build=${buildId}&teeth=36&missing=1&toothAtTdc=9&layout=twin-270`);
+		// 36-1 with tooth 9 at TDC: 90° BTDC (geometry, common practice).
+		await expect.poll(() => page.getByTestId('first-tooth-offset').innerText()).toMatch(/^90° BTDC/);
+		await page.getByRole('button', { name: 'Save engine profile to the build' }).click();
+		await page.getByText('Saved in the build.').waitFor();
+		const { body } = await client.json<{ build: { engineProfile: Record<string, string> } }>(`/api/v1/builds/${buildId}`);
+		expect(body.build.engineProfile).toMatchObject({ teeth: '36', missing: '1', toothAtTdc: '9', layout: 'twin-270' });
+	});
 });

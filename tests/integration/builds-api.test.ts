@@ -271,3 +271,34 @@ describe('access to builds, designs and revisions by role', () => {
 		expect(rows[0]!.n).toBe(2);
 	});
 });
+
+describe('the build sheet of a saved build', () => {
+	it('puts the engine profile, the saved revision and the newest TDC record on one page (read back with pdftotext)', async () => {
+		const { execFileSync } = await import('node:child_process');
+		const { mkdtempSync, writeFileSync } = await import('node:fs');
+		const { join } = await import('node:path');
+		const { tmpdir } = await import('node:os');
+		const me = await owner('sheet');
+		const buildId = await newBuild(me.client, 'Sheet bench 650');
+		const early = await me.client.get(`/api/v1/builds/${buildId}/build-sheet.pdf`);
+		expect(early.status).toBe(422);
+		expect((await early.json()).message).toMatch(/^engineProfile: /);
+		await me.client.send('PUT', `/api/v1/builds/${buildId}/engine`, { params: { teeth: '36', missing: '1', toothAtTdc: '9', layout: 'twin-270' } });
+		const designId = await newDesign(me.client, buildId, 'Timing-side wheel');
+		await me.client.send('POST', `/api/v1/designs/${designId}/revisions`, { baseRevision: 1, params: { ...wheel, od: '120' } });
+		await me.client.send('POST', `/api/v1/builds/${buildId}/tdc-records`, { params: { a: '-14', b: '15' } });
+		const res = await me.client.get(`/api/v1/builds/${buildId}/build-sheet.pdf`);
+		expect(res.status).toBe(200);
+		expect(res.headers.get('content-disposition')).toContain('build-sheet-sheet-bench-650-r2.pdf');
+		const file = join(mkdtempSync(join(tmpdir(), 'sheet-')), 'sheet.pdf');
+		writeFileSync(file, Buffer.from(await res.arrayBuffer()));
+		const text = execFileSync('pdftotext', ['-layout', file, '-'], { encoding: 'utf8' });
+		expect(text).toContain('Sheet bench 650');
+		expect(text).toContain('Wheel revision 2 of “Timing-side wheel”');
+		// 36-1 with tooth 9 at TDC: 90° BTDC (geometry, common practice); a 270° twin fires at 270/450.
+		expect(text).toMatch(/90\s*°\s*BTDC/);
+		expect(text).toMatch(/270.{0,3}450/);
+		expect(text).toMatch(/120(\.0+)?\s*mm/);
+		expect(text).toContain('0.5');
+	});
+});

@@ -36,5 +36,5 @@ export const load: PageLoad = ({ url }) => {
 		params.layout = 'v-twin';
 		if (!url.searchParams.get('vAngle')) params.vAngle = String(v);
 	}
-	return { params };
+	return { params, build: url.searchParams.get('build') };
 };
