@@ -8,7 +8,10 @@ const roleField = (field: string, allowed: readonly string[]) =>
 export const invite = z.object({
 	email,
 	// Ownership is given by changing a member's role, not by invitation.
-	role: roleField('role', ['editor', 'viewer'])
+	role: roleField('role', ['editor', 'viewer']),
+	/** Sent from a build's page: into that build's workshop, whichever one the user works in, logged on the build. */
+	workshopId: z.uuid({ error: 'workshopId: a workshop id' }).optional(),
+	buildId: z.uuid({ error: 'buildId: a build id' }).optional()
 });
 
 export const memberRole = z.object({

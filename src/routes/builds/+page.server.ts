@@ -1,5 +1,5 @@
 import { fail } from '@sveltejs/kit';
-import { buildId, createBuild as createSchema, renameBuild as renameSchema } from '$lib/schemas/build';
+import { buildId, buildQuery, createBuild as createSchema, renameBuild as renameSchema } from '$lib/schemas/build';
 import { parseForm } from '$lib/schemas/form';
 import { workshopAccess } from '$lib/server/access';
 import { createBuild, deleteBuild, listBuilds, renameBuild } from '$lib/server/builds';
@@ -11,9 +11,17 @@ const refusals = {
 	'not-found': 'No such build in this workshop.'
 } as const;
 
+/**
+ * The first page of the list, for the view the address names (the same query as
+ * `GET /api/v1/builds`); from there the page fetches the API itself. An address the schema refuses
+ * (a hand-edited page=0) shows the default view rather than an error.
+ */
 export const load: PageServerLoad = async (event) => {
 	const access = await workshopAccess(event, 'read');
-	return { workshop: access.workshop, can: access.can, builds: (await listBuilds(db(), access.workshop.id)).builds };
+	const query = buildQuery.safeParse(Object.fromEntries(event.url.searchParams));
+	const view = query.success ? query.data : buildQuery.parse({});
+	const list = await listBuilds(db(), access.workshop.id, view);
+	return { workshop: access.workshop, can: access.can, q: view.q, list };
 };
 
 export const actions: Actions = {

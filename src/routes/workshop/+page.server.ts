@@ -1,7 +1,8 @@
 import { fail, redirect } from '@sveltejs/kit';
 import { invitationId, invite, memberId, memberRole, workshopId } from '$lib/schemas/workshop';
 import { parseForm } from '$lib/schemas/form';
-import { chooseWorkshop, workshopAccess } from '$lib/server/access';
+import { chooseWorkshop, objectAccess, workshopAccess } from '$lib/server/access';
+import { logActivity } from '$lib/server/activity';
 import { db } from '$lib/server/db';
 import { sendMail } from '$lib/server/mail';
 import { invitationMessage } from '$lib/server/messages';
@@ -26,10 +27,15 @@ export const load: PageServerLoad = async (event) => {
 
 export const actions: Actions = {
 	invite: async (event) => {
-		const access = await workshopAccess(event, 'manage');
 		const form = await event.request.formData();
 		const parsed = parseForm(invite, form);
-		if (!parsed.ok) return fail(400, { action: 'invite', email: String(form.get('email') ?? ''), errors: parsed.errors });
+		if (!parsed.ok) {
+			await workshopAccess(event, 'manage');
+			return fail(400, { action: 'invite', email: String(form.get('email') ?? ''), errors: parsed.errors });
+		}
+		const fromBuild = parsed.data.buildId ? await objectAccess(event, 'manage', 'build', parsed.data.buildId) : null;
+		if (fromBuild && parsed.data.workshopId && fromBuild.workshop.id !== parsed.data.workshopId) return fail(400, { action: 'invite', errors: { buildId: 'buildId: a build of the workshop invited into' } });
+		const access = fromBuild ?? (await workshopAccess(event, 'manage', parsed.data.workshopId));
 		const { token } = await createInvitation(db(), {
 			workshopId: access.workshop.id,
 			email: parsed.data.email,
@@ -45,6 +51,7 @@ export const actions: Actions = {
 				url: `${event.url.origin}/invite/${token}`
 			})
 		);
+		if (fromBuild) await logActivity(db(), { buildId: fromBuild.buildId, actorId: access.user.id, kind: 'invitation', summary: `${parsed.data.email} invited into ${access.workshop.name} as ${parsed.data.role}` });
 		return { action: 'invite', invited: parsed.data.email };
 	},
 
