@@ -14,7 +14,9 @@ export type Segment =
 
 export type Contour = { kind: 'chain'; segments: Segment[] } | { kind: 'circle'; center: Point; radius: number };
 
-export const polar = (r: number, degrees: number, center: Point = { x: 0, y: 0 }): Point => ({
+const origin: Point = Object.freeze({ x: 0, y: 0 });
+
+export const polar = (r: number, degrees: number, center: Point = origin): Point => ({
 	x: center.x + r * Math.cos(rad(degrees)),
 	y: center.y + r * Math.sin(rad(degrees))
 });
@@ -55,15 +57,19 @@ function segmentMoments(s: Segment): Moments {
 	const r = s.radius;
 	const t0 = rad(s.startDeg);
 	const t1 = t0 + (s.ccw ? 1 : -1) * rad(sweepDeg(s));
-	const [sin0, sin1, cos0, cos1] = [Math.sin(t0), Math.sin(t1), Math.cos(t0), Math.cos(t1)];
+	const sin0 = Math.sin(t0);
+	const sin1 = Math.sin(t1);
+	const cos0 = Math.cos(t0);
+	const cos1 = Math.cos(t1);
 	// ½∮(x dy − y dx), ½∮x² dy and −½∮y² dx along x = cx + r cos t, y = cy + r sin t.
 	const area = 0.5 * (r * r * (t1 - t0) + r * (cx * (sin1 - sin0) - cy * (cos1 - cos0)));
 	const intCos = sin1 - sin0;
-	const intCos2 = (t1 - t0) / 2 + (Math.sin(2 * t1) - Math.sin(2 * t0)) / 4;
+	const sin2 = Math.sin(2 * t1) - Math.sin(2 * t0);
+	const intCos2 = (t1 - t0) / 2 + sin2 / 4;
 	const intCos3 = sin1 - sin1 ** 3 / 3 - (sin0 - sin0 ** 3 / 3);
 	const mx = 0.5 * r * (cx * cx * intCos + 2 * cx * r * intCos2 + r * r * intCos3);
 	const intSin = -(cos1 - cos0);
-	const intSin2 = (t1 - t0) / 2 - (Math.sin(2 * t1) - Math.sin(2 * t0)) / 4;
+	const intSin2 = (t1 - t0) / 2 - sin2 / 4;
 	const intSin3 = -cos1 + cos1 ** 3 / 3 - (-cos0 + cos0 ** 3 / 3);
 	const my = 0.5 * r * (cy * cy * intSin + 2 * cy * r * intSin2 + r * r * intSin3);
 	return { area, mx, my };
@@ -74,7 +80,18 @@ export function contourMoments(c: Contour): Moments {
 		const area = Math.PI * c.radius ** 2;
 		return { area, mx: area * c.center.x, my: area * c.center.y };
 	}
-	return c.segments.map(segmentMoments).reduce((a, b) => ({ area: a.area + b.area, mx: a.mx + b.mx, my: a.my + b.my }), { area: 0, mx: 0, my: 0 });
+	// Summed in order, as a reduce from zero would, without an object per step (the summary sums
+	// hundreds of segments per keystroke).
+	let area = 0;
+	let mx = 0;
+	let my = 0;
+	for (const s of c.segments) {
+		const m = segmentMoments(s);
+		area += m.area;
+		mx += m.mx;
+		my += m.my;
+	}
+	return { area, mx, my };
 }
 
 /** The largest gap between one segment's end and the next one's start (0 for a closed chain). */

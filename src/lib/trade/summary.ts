@@ -4,6 +4,7 @@ import { balanceHoles, massProperties, permissibleUnbalanceGmm, unbalanceForceN 
 import { refusals, warnings, type Refusal, type Running, type Warning } from './checks';
 import { patternName, pitchDeg, teethOf } from './pattern';
 import type { Units } from './units';
+import { valueKey } from './value-key';
 import { gapOpenings, rootRadius, type HoleCircle, type WheelSpec } from './wheel';
 
 export interface WheelSummary {
@@ -27,7 +28,25 @@ export interface WheelSummary {
 
 const round = (x: number, places = 4) => Math.round(x * 10 ** places) / 10 ** places;
 
-export function summarize(spec: WheelSpec, units: Units, running: Running): { ok: true; summary: WheelSummary } | { ok: false; refusals: Refusal[] } {
+type Summarized = { ok: true; summary: WheelSummary } | { ok: false; refusals: Refusal[] };
+
+// The same design comes back often: a file downloaded after its summary was shown, the designer
+// switched back to a value it had a moment ago. The answer depends on the values alone, so recent
+// ones are kept by them (a few, then start afresh). Summaries are values: nobody changes one.
+const recent = new Map<string, Summarized>();
+const recentLimit = 64;
+
+export function summarize(spec: WheelSpec, units: Units, running: Running): Summarized {
+	const key = valueKey([spec, units, running]);
+	let s = recent.get(key);
+	if (!s) {
+		if (recent.size >= recentLimit) recent.clear();
+		recent.set(key, (s = summarizeAnew(spec, units, running)));
+	}
+	return s;
+}
+
+function summarizeAnew(spec: WheelSpec, units: Units, running: Running): Summarized {
 	const refused = refusals(spec, units);
 	if (refused.length) return { ok: false, refusals: refused };
 	const pitch = pitchDeg(spec.pattern.teeth);

@@ -78,12 +78,11 @@ function corner(radius: number, rho: number, convex: boolean) {
 }
 
 /** The outer profile as one closed counter-clockwise chain: root arcs, flanks, tips, fillets. */
-export function outerProfile(spec: WheelSpec): Contour {
+export function outerProfile(spec: WheelSpec, spans = toothSpans(spec)): Contour {
 	const R = spec.odMm / 2;
 	const r = rootRadius(spec);
 	const tip = corner(R, spec.tipRadiusMm, true);
 	const root = corner(r, spec.rootRadiusMm, false);
-	const spans = toothSpans(spec);
 	const segments: Segment[] = [];
 	if (spans.length === 0) return { kind: 'circle', center: { x: 0, y: 0 }, radius: r };
 
@@ -190,7 +189,18 @@ export interface WheelDrawing {
 /** Everything a cutter cuts: the outer profile, the bore with its keyway, and every hole. */
 export const cutContours = (d: WheelDrawing): Contour[] => [d.outer, ...(d.bore ? [d.bore] : []), ...d.holes.map((h) => h.contour)];
 
+// One drawing per spec object: the summary (mass, unbalance), the preview and each export all
+// ask for the same spec's drawing, often several times in one request or keystroke. Specs and
+// drawings are values, never changed once made, so the spec object itself is the key.
+const drawings = new WeakMap<WheelSpec, WheelDrawing>();
+
 export function drawWheel(spec: WheelSpec): WheelDrawing {
+	let d = drawings.get(spec);
+	if (!d) drawings.set(spec, (d = draw(spec)));
+	return d;
+}
+
+function draw(spec: WheelSpec): WheelDrawing {
 	const mark = indexMark(spec);
 	const r = rootRadius(spec);
 	const inner = spec.boreMm / 2 + (spec.keyway?.depthMm ?? 0);
@@ -200,8 +210,9 @@ export function drawWheel(spec: WheelSpec): WheelDrawing {
 	// Text runs along the circle, turned so that it never reads upside down.
 	const along = (((labelAngle - 90) % 360) + 360) % 360;
 	const textAngle = along > 90 && along < 270 ? along - 180 : along;
+	const spans = toothSpans(spec);
 	return {
-		outer: outerProfile(spec),
+		outer: outerProfile(spec, spans),
 		bore: boreContour(spec),
 		holes: holes(spec),
 		gaps: gapOpenings(spec).map((g) => {
@@ -210,7 +221,7 @@ export function drawWheel(spec: WheelSpec): WheelDrawing {
 		}),
 		etch: mark ? [mark] : [],
 		labelAt: spec.label && heightMm >= 1.5 ? { point: polar(labelR, labelAngle), heightMm, angleDeg: textAngle } : null,
-		spans: toothSpans(spec)
+		spans
 	};
 }
 

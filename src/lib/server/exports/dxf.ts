@@ -1,9 +1,12 @@
-// DXF for a cutting order, through makerjs: plain LINE/ARC/CIRCLE entities, every contour closed,
-// cut and etch geometry on separate layers with distinct colours, units in the header ($INSUNITS).
+// DXF for a cutting order: plain LINE/ARC/CIRCLE entities, every contour closed, cut and etch
+// geometry on separate layers with distinct colours, units in the header ($INSUNITS). The file is
+// makerjs's DXF of the wheel's model (wheelModel), written here straight from the drawing: the
+// same text, character for character (checked in dxf.test.ts), without makerjs's walk of the model
+// and its object per entity, which were three quarters of an export's time.
 import makerjs from 'makerjs';
 import type { Contour, Segment } from '$lib/trade/geometry';
 import type { Units } from '$lib/trade/units';
-import { cutContours, drawWheel, type WheelSpec } from '$lib/trade/wheel';
+import { cutContours, drawWheel, type WheelDrawing, type WheelSpec } from '$lib/trade/wheel';
 
 export const layers = {
 	cut: { name: 'CUT', color: makerjs.exporter.colors.red },
@@ -27,32 +30,78 @@ export function wheelModel(spec: WheelSpec, units: Units): makerjs.IModel {
 	const d = drawWheel(spec);
 	const cut = cutContours(d);
 	const paths: Record<string, makerjs.IPath> = {};
-	cut.forEach((c, i) => contourPaths(c, k).forEach((p, j) => (paths[`cut${i}_${j}`] = { ...p, layer: layers.cut.name } as makerjs.IPath)));
-	d.etch.forEach((s, i) => (paths[`etch${i}`] = { ...toPath(s, k), layer: layers.etch.name } as makerjs.IPath));
+	// Each path is made here and nowhere else, so its layer is set on it rather than on a copy.
+	const onLayer = (p: makerjs.IPath, layer: string) => ((p.layer = layer), p);
+	cut.forEach((c, i) => contourPaths(c, k).forEach((p, j) => (paths[`cut${i}_${j}`] = onLayer(p, layers.cut.name))));
+	d.etch.forEach((s, i) => (paths[`etch${i}`] = onLayer(toPath(s, k), layers.etch.name)));
 	const model: makerjs.IModel = { paths, units: units === 'in' ? makerjs.unitType.Inch : makerjs.unitType.Millimeter };
-	if (d.labelAt && spec.label) {
-		const { point, angleDeg } = d.labelAt;
-		const half = 10;
-		const dx = Math.cos((angleDeg * Math.PI) / 180) * half;
-		const dy = Math.sin((angleDeg * Math.PI) / 180) * half;
-		model.caption = {
-			text: spec.label,
-			anchor: new makerjs.paths.Line([(point.x - dx) * k, (point.y - dy) * k], [(point.x + dx) * k, (point.y + dy) * k])
-		};
+	const caption = captionOf(spec, d, k);
+	if (caption) {
+		model.caption = caption;
 		model.layer = layers.etch.name;
 	}
 	return model;
 }
 
-export function wheelDxf(spec: WheelSpec, units: Units): string {
+/** The part label, centred on a short line along which it runs. */
+function captionOf(spec: WheelSpec, d: WheelDrawing, k: number): makerjs.ICaption | null {
+	if (!d.labelAt || !spec.label) return null;
+	const { point, angleDeg } = d.labelAt;
+	const half = 10;
+	const dx = Math.cos((angleDeg * Math.PI) / 180) * half;
+	const dy = Math.sin((angleDeg * Math.PI) / 180) * half;
+	return { text: spec.label, anchor: new makerjs.paths.Line([(point.x - dx) * k, (point.y - dy) * k], [(point.x + dx) * k, (point.y + dy) * k]) };
+}
+
+/** What makerjs.exporter.toDXF is given for the wheel's model. */
+export function dxfOptions(spec: WheelSpec, units: Units): makerjs.exporter.IDXFRenderOptions {
 	const k = units === 'in' ? 1 / 25.4 : 1;
 	const fontSize = (drawWheel(spec).labelAt?.heightMm ?? 3) * k;
-	return makerjs.exporter.toDXF(wheelModel(spec, units), {
+	return {
 		units: units === 'in' ? makerjs.unitType.Inch : makerjs.unitType.Millimeter,
 		fontSize,
 		layerOptions: {
 			[layers.cut.name]: { color: layers.cut.color },
 			[layers.etch.name]: { color: layers.etch.color, fontSize }
 		}
-	});
+	};
+}
+
+// makerjs's rounding (to 1e-7, integers as they are) and its fixed tables, as its toDXF writes them.
+const r = makerjs.round;
+const lineTypes = ['0\nLTYPE\n72\n65\n70\n0\n2\nCONTINUOUS\n3\n______\n73\n0\n40\n0', '0\nLTYPE\n72\n65\n70\n0\n2\nDASHED\n3\n_ _ _ \n73\n2\n40\n7.5\n49\n5\n49\n-2.5', '0\nLTYPE\n72\n65\n70\n0\n2\nDOTTED\n3\n. . . \n73\n2\n40\n1.5\n49\n0.5\n49\n-1'].join('\n');
+const layerRow = (l: { name: string; color: number }) => `0\nLAYER\n2\n${l.name}\n70\n0\n62\n${l.color}\n6\nCONTINUOUS`;
+
+function entity(s: Segment, k: number, layer: string): string {
+	if (s.kind === 'line') return `0\nLINE\n8\n${layer}\n6\nCONTINUOUS\n10\n${r(s.from.x * k)}\n20\n${r(s.from.y * k)}\n11\n${r(s.to.x * k)}\n21\n${r(s.to.y * k)}`;
+	const [start, end] = s.ccw ? [s.startDeg, s.endDeg] : [s.endDeg, s.startDeg];
+	return `0\nARC\n8\n${layer}\n6\nCONTINUOUS\n10\n${r(s.center.x * k)}\n20\n${r(s.center.y * k)}\n40\n${r(s.radius * k)}\n50\n${r(start)}\n51\n${r(end)}`;
+}
+
+function contourEntities(c: Contour, k: number, layer: string): string[] {
+	if (c.kind === 'circle') return [`0\nCIRCLE\n8\n${layer}\n6\nCONTINUOUS\n10\n${r(c.center.x * k)}\n20\n${r(c.center.y * k)}\n40\n${r(c.radius * k)}`];
+	return c.segments.map((s) => entity(s, k, layer));
+}
+
+export function wheelDxf(spec: WheelSpec, units: Units): string {
+	const k = units === 'in' ? 1 / 25.4 : 1;
+	const d = drawWheel(spec);
+	const fontSize = (d.labelAt?.heightMm ?? 3) * k;
+	const entities = cutContours(d).flatMap((c) => contourEntities(c, k, layers.cut.name));
+	for (const s of d.etch) entities.push(entity(s, k, layers.etch.name));
+	const caption = captionOf(spec, d, k);
+	if (caption) {
+		// Placed as makerjs places a caption: centred on its anchor line, turned along it.
+		const [anchor] = makerjs.model.getAllCaptionsOffset({ caption });
+		const centre = makerjs.point.middle(anchor!.anchor);
+		const [x, y] = [r(centre[0]!), r(centre[1]!)];
+		entities.push(`0\nTEXT\n10\n${x}\n20\n${y}\n11\n${x}\n21\n${y}\n40\n${fontSize}\n1\n${spec.label}\n50\n${makerjs.angle.ofPointInDegrees(anchor!.anchor.origin, anchor!.anchor.end)}\n8\n${layers.etch.name}\n72\n4\n73\n0`);
+	}
+	const used = [layers.cut, ...(d.etch.length || caption ? [layers.etch] : [])];
+	return [
+		`0\nSECTION\n2\nHEADER\n9\n$INSUNITS\n70\n${units === 'in' ? 1 : 4}\n0\nENDSEC`,
+		`0\nSECTION\n2\nTABLES\n0\nTABLE\n2\nLTYPE\n${lineTypes}\n0\nENDTAB\n0\nTABLE\n2\nLAYER\n${used.map(layerRow).join('\n')}\n0\nENDTAB\n0\nENDSEC`,
+		`0\nSECTION\n2\nENTITIES${entities.length ? `\n${entities.join('\n')}` : ''}\n0\nENDSEC`,
+		'0\nEOF'
+	].join('\n');
 }

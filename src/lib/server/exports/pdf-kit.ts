@@ -1,5 +1,8 @@
 // Shared by every printable PDF: the shipped fonts, millimetre units, the "print at actual size"
 // line and the calibration bars (100 mm and 4 in) to measure after printing.
+import type * as Fontkit from 'fontkit';
+import { readFileSync } from 'node:fs';
+import { createRequire } from 'node:module';
 import PDFDocument from 'pdfkit';
 import { fontFile, pdfFonts } from './fonts';
 
@@ -9,11 +12,49 @@ export const mm = (v: number) => v * PT_PER_MM;
 
 export { papers } from '$lib/trade/paper';
 
+// Given a font by its path, pdfkit reads and parses the file afresh for every document, and with
+// it the OpenType layout tables (GSUB, GPOS) it shapes every string with: for Inter, most of what
+// a PDF cost (measured in `npm run bench`). Given a font object already parsed, it takes it as it
+// is; so each font is parsed once per process, by the very fontkit pdfkit itself depends on.
+const fontkit = createRequire(createRequire(import.meta.url).resolve('pdfkit'))('fontkit') as typeof Fontkit;
+
+/** Shaped strings kept per font, at most this many (a page of text has a few hundred). */
+const shapedLimit = 20_000;
+
+/**
+ * The font, with its shaping remembered across documents: the same string in the same font always
+ * gives the same glyphs and positions. Each call answers fresh position objects, since pdfkit
+ * scales the ones it is given in place.
+ */
+function remembered(font: Fontkit.Font): Fontkit.Font {
+	const runs = new Map<string, Fontkit.GlyphRun>();
+	const shaped: Fontkit.Font = Object.create(font);
+	shaped.layout = (text, features, ...rest) => {
+		if (features !== undefined || rest.length) return font.layout(text, features, ...rest);
+		let run = runs.get(text);
+		if (!run) {
+			if (runs.size >= shapedLimit) runs.clear();
+			runs.set(text, (run = font.layout(text)));
+		}
+		const copy: Fontkit.GlyphRun = Object.create(Object.getPrototypeOf(run));
+		return Object.assign(copy, run, { glyphs: [...run.glyphs], positions: run.positions.map((p) => ({ ...p })) });
+	};
+	return shaped;
+}
+
+const fonts = new Map<string, Fontkit.Font>();
+function parsedFont(file: string): Fontkit.Font {
+	let font = fonts.get(file);
+	if (!font) fonts.set(file, (font = remembered(fontkit.create(readFileSync(fontFile(file))) as Fontkit.Font)));
+	return font;
+}
+
 export function newDocument(title: string, size: { widthMm: number; heightMm: number }) {
 	const doc = new PDFDocument({ size: [mm(size.widthMm), mm(size.heightMm)], margin: 0, info: { Title: title, Creator: 'Phasewright' }, autoFirstPage: true });
-	doc.registerFont('text', fontFile(pdfFonts.text));
-	doc.registerFont('bold', fontFile(pdfFonts.bold));
-	doc.registerFont('mono', fontFile(pdfFonts.mono));
+	// pdfkit takes a parsed font (anything with layout()), though its types list only files and bytes.
+	doc.registerFont('text', parsedFont(pdfFonts.text) as unknown as PDFKit.Mixins.PDFFontSource);
+	doc.registerFont('bold', parsedFont(pdfFonts.bold) as unknown as PDFKit.Mixins.PDFFontSource);
+	doc.registerFont('mono', parsedFont(pdfFonts.mono) as unknown as PDFKit.Mixins.PDFFontSource);
 	doc.font('text');
 	return doc;
 }

@@ -3,10 +3,24 @@
 import { mmPerDegree, tapePage, tapeStrips, tapeWarnings, tapeX, ticks, type TapeSpec } from '$lib/trade/tape';
 import { formatLength, type Units } from '$lib/trade/units';
 import { calibrationBars, finish, mm, newDocument, papers, printNote } from './pdf-kit';
+import { keyOf, Recent } from './recent';
 
 const { marginMm: margin, headerMm: header, footerMm: footer, stripHeightMm: stripHeight, rowGapMm: rowGap, overlapMm } = tapePage;
 
-export async function tapePdf(spec: TapeSpec, units: Units, paper: keyof typeof papers): Promise<Buffer> {
+/** Recent tapes by what makes them (see recent.ts); kept as promises so identical requests share one. */
+const recent = new Recent<Promise<Buffer>>(32);
+
+export function tapePdf(spec: TapeSpec, units: Units, paper: keyof typeof papers): Promise<Buffer> {
+	const key = keyOf([spec, units, paper]);
+	let made = recent.get(key);
+	if (!made) {
+		made = recent.set(key, drawTape(spec, units, paper));
+		made.catch(() => recent.delete(key));
+	}
+	return made;
+}
+
+async function drawTape(spec: TapeSpec, units: Units, paper: keyof typeof papers): Promise<Buffer> {
 	const size = papers[paper];
 	const k = mmPerDegree(spec);
 	const strips = tapeStrips(spec, paper);

@@ -3,6 +3,7 @@ import type { ParsedWheel } from '$lib/schemas/wheel';
 import type { WheelSummary } from '$lib/trade/summary';
 import { wheelDxf } from './dxf';
 import { exportName } from './names';
+import { keyOf, Recent } from './recent';
 import { wheelSvg } from './svg';
 import { wheelPdf } from './wheel-pdf';
 
@@ -11,8 +12,20 @@ export type WheelFileKind = (typeof wheelFileKinds)[number];
 
 const types: Record<WheelFileKind, string> = { dxf: 'application/dxf', svg: 'image/svg+xml', pdf: 'application/pdf' };
 
+/**
+ * Recent files by what makes them: the parsed design (so `od=120` and `od=120.0` are one) and, for
+ * the PDF, what its table shows besides. A PDF is kept as its promise, so that identical requests
+ * arriving together make it once.
+ */
+const recent = new Recent<Promise<string | Buffer>>(96);
+
 export async function wheelFile(kind: WheelFileKind, wheel: ParsedWheel, summary: WheelSummary, revision?: number) {
-	const { spec, units, paper } = wheel;
-	const body = kind === 'dxf' ? wheelDxf(spec, units) : kind === 'svg' ? wheelSvg(spec, units) : await wheelPdf(spec, summary, units, paper);
-	return { body, contentType: types[kind], name: exportName(spec, units, kind, revision) };
+	const { spec, units, paper, running } = wheel;
+	const key = keyOf(kind === 'pdf' ? [kind, spec, units, running, paper] : [kind, spec, units]);
+	let made = recent.get(key);
+	if (!made) {
+		made = recent.set(key, kind === 'dxf' ? Promise.resolve(wheelDxf(spec, units)) : kind === 'svg' ? Promise.resolve(wheelSvg(spec, units)) : wheelPdf(spec, summary, units, paper));
+		made.catch(() => recent.delete(key));
+	}
+	return { body: await made, contentType: types[kind], name: exportName(spec, units, kind, revision) };
 }
