@@ -134,7 +134,7 @@ describe('wheel design revisions', () => {
 		]);
 		const bad = await me.client.json<{ errors: Record<string, string> }>(`/api/v1/designs/${designId}/compare?a=1&b=x`);
 		expect(bad.status).toBe(400);
-		expect(bad.body.errors.b).toMatch(/^revision: a whole number/);
+		expect(bad.body.errors.b).toMatch(/^b: a whole number/);
 	});
 
 	it('restores an old revision as a new one, leaving history as it was', async () => {

@@ -88,7 +88,9 @@ describe('GET /api/v1/wheel (JSON)', () => {
 		[{ teeth: '36', missing: '1', od: '100', depth: '45', bore: '20' }, 'depth', /less than 39\.50 mm/],
 		[{ teeth: '36', missing: '1', od: '100', depth: '5', bore: '20', bolts: '3', pcd: '30', boltHole: '12' }, 'pcd', /so the holes cut neither/],
 		[{ teeth: '36', missing: '1', od: '100', depth: '5', bore: '20', keyway: 'din6885' }, 'shaft', /shaft diameter/],
-		[{ teeth: '36', missing: '1', od: '4', depth: '3/16', units: 'yards' }, 'units', /one of mm, in/]
+		[{ teeth: '36', missing: '1', od: '4', depth: '3/16', units: 'yards' }, 'units', /one of mm, in/],
+		// A line break in the label would end the DXF TEXT value and start group codes of its own (DXF reference: one value per line).
+		[{ teeth: '36', missing: '1', od: '100', depth: '5', label: 'R1\n  0\nLINE' }, 'label', /no line breaks/]
 	])('refuses an impossible wheel %#', async (params, field, message) => {
 		const res = await get('/api/v1/wheel.dxf', params);
 		expect(res.status).toBe(400);

@@ -6,9 +6,20 @@ import { z } from 'zod';
 
 export const buildLimits = { name: 120, engine: 500, notes: 5000, message: 300, label: 80, params: 80 } as const;
 
+/** Revision numbers stay far below PostgreSQL's integer (2^31 − 1): a larger one would fail the query, not find nothing. */
+const maxRevision = 1_000_000;
+
+/** What PostgreSQL text and jsonb cannot hold: NUL, and an unpaired UTF-16 surrogate (not UTF-8 at all). */
+const unstorable = /[\u0000\p{Cs}]/u;
+
 const text = (field: string, max: number, min = 0) => {
 	const rule = min ? `${field}: ${min} to ${max} characters` : `${field}: at most ${max} characters`;
-	return z.string({ error: `${field}: text, ${rule.split(': ')[1]}` }).trim().min(min, { error: rule }).max(max, { error: rule });
+	return z
+		.string({ error: `${field}: text, ${rule.split(': ')[1]}` })
+		.trim()
+		.min(min, { error: rule })
+		.max(max, { error: rule })
+		.refine((s) => !unstorable.test(s), { error: `${field}: text without NUL or unpaired surrogate characters` });
 };
 
 export const buildName = text('name', buildLimits.name, 1);
@@ -43,11 +54,14 @@ export type BuildQuery = z.infer<typeof buildQuery>;
 /** Flat string parameters of a tool (wheel, tape, phasing): names and values bounded, values as text. */
 export const flatParams = (field: string) =>
 	z
-		.record(z.string().max(40, { error: `${field}: parameter names of at most 40 characters` }), z.union([z.string(), z.number(), z.boolean()]).transform(String), {
+		.record(z.string(), z.union([z.string(), z.number(), z.boolean()], { error: `${field}: each value text, a number or true/false` }).transform(String), {
 			error: `${field}: an object of parameter names to values`
 		})
 		.refine((r) => Object.keys(r).length <= buildLimits.params, { error: `${field}: at most ${buildLimits.params} parameters` })
-		.refine((r) => Object.values(r).every((v) => v.length <= 500), { error: `${field}: values of at most 500 characters` });
+		// Checked on the whole record: a failing key inside z.record is reported with the record's message.
+		.refine((r) => Object.keys(r).every((k) => k.length <= 40), { error: `${field}: parameter names of at most 40 characters` })
+		.refine((r) => Object.values(r).every((v) => v.length <= 500), { error: `${field}: values of at most 500 characters` })
+		.refine((r) => Object.entries(r).every(([k, v]) => !unstorable.test(k) && !unstorable.test(v)), { error: `${field}: names and values without NUL or unpaired surrogate characters` });
 
 export const createDesign = z.object({
 	name: text('name', buildLimits.label, 1),
@@ -57,20 +71,36 @@ export const createDesign = z.object({
 
 /** A save names the revision it started from; a stale base is refused with 409. */
 export const saveRevision = z.object({
-	baseRevision: z.number({ error: 'baseRevision: the revision number this save started from' }).int({ error: 'baseRevision: a whole number from 1' }).min(1, { error: 'baseRevision: a whole number from 1' }),
+	baseRevision: z
+		.number({ error: 'baseRevision: the revision number this save started from' })
+		.int({ error: 'baseRevision: a whole number from 1' })
+		.min(1, { error: 'baseRevision: a whole number from 1' })
+		.max(maxRevision, { error: `baseRevision: a whole number from 1 to ${maxRevision}` }),
 	params: flatParams('params'),
 	message: text('message', buildLimits.message).optional().default('')
 });
 
 export const restoreRevision = z.object({
-	revision: z.number({ error: 'revision: the number of the revision to restore' }).int({ error: 'revision: a whole number from 1' }).min(1, { error: 'revision: a whole number from 1' }),
+	revision: z
+		.number({ error: 'revision: the number of the revision to restore' })
+		.int({ error: 'revision: a whole number from 1' })
+		.min(1, { error: 'revision: a whole number from 1' })
+		.max(maxRevision, { error: `revision: a whole number from 1 to ${maxRevision}` }),
 	baseRevision: saveRevision.shape.baseRevision,
 	message: text('message', buildLimits.message).optional()
 });
 
-export const revisionNumber = z.coerce.number({ error: 'revision: a whole number from 1' }).int({ error: 'revision: a whole number from 1' }).min(1, { error: 'revision: a whole number from 1' }).max(1_000_000, { error: 'revision: a whole number from 1' });
+/** A revision number from a path or query, named by its field (`revision`, or compare's `a` and `b`). */
+const revisionNumberOf = (field: string) =>
+	z.coerce
+		.number({ error: `${field}: a whole number from 1` })
+		.int({ error: `${field}: a whole number from 1` })
+		.min(1, { error: `${field}: a whole number from 1` })
+		.max(maxRevision, { error: `${field}: a whole number from 1 to ${maxRevision}` });
 
-export const compareQuery = z.object({ a: revisionNumber, b: revisionNumber });
+export const revisionNumber = revisionNumberOf('revision');
+
+export const compareQuery = z.object({ a: revisionNumberOf('a'), b: revisionNumberOf('b') });
 
 export const saveRecord = z.object({ label: text('label', buildLimits.label).optional().default(''), params: flatParams('params') });
 
@@ -78,7 +108,12 @@ export const engineProfile = z.object({ params: flatParams('params') });
 
 export const cuttingPackageInput = z.object({
 	designId: z.uuid({ error: 'designId: a wheel design id of this build' }),
-	revision: z.number({ error: 'revision: a whole number from 1' }).int({ error: 'revision: a whole number from 1' }).min(1, { error: 'revision: a whole number from 1' }).optional(),
+	revision: z
+		.number({ error: 'revision: a whole number from 1' })
+		.int({ error: 'revision: a whole number from 1' })
+		.min(1, { error: 'revision: a whole number from 1' })
+		.max(maxRevision, { error: `revision: a whole number from 1 to ${maxRevision}` })
+		.optional(),
 	to: z.email({ error: 'to: the fabricator’s e-mail address' }).max(254, { error: 'to: at most 254 characters' }),
 	quantity: z.number({ error: 'quantity: a whole number from 1 to 10000' }).int({ error: 'quantity: a whole number from 1 to 10000' }).min(1, { error: 'quantity: a whole number from 1 to 10000' }).max(10_000, { error: 'quantity: a whole number from 1 to 10000' }),
 	notes: text('notes', 2000).optional().default('')

@@ -85,7 +85,7 @@ export function parseTape(params: Record<string, string | undefined>): { ok: tru
 	const units = unitsOf(params);
 	if (!units) return { ok: false, errors: { units: 'units: one of mm, in' } };
 	const schema = hubSchema(units).extend({
-		window: z.union([z.literal('full'), number('window', 5, 180, '° each side of TDC')]).default('full'),
+		window: z.union([z.literal('full'), number('window', 5, 180, '° each side of TDC')], { error: 'window: full, or a number from 5 to 180° each side of TDC' }).default('full'),
 		tick: number('tick', 0.25, 10, '°').default(1),
 		mid: number('mid', 0.5, 90, '°').default(5),
 		label: number('label', 1, 90, '°').default(10),

@@ -126,7 +126,7 @@ function buildSchema(units: Units) {
 		keyWidth: length('keyWidth', units).optional(),
 		keyDepth: length('keyDepth', units).optional(),
 		shaft: length('shaft', units).optional(),
-		woodruff: z.string().max(8).optional(),
+		woodruff: z.string().max(8, { error: 'woodruff: an ANSI B17.2 key number such as 404 or 606' }).optional(),
 		keywayAngle: angle('keywayAngle').default(0),
 		bolts: integer('bolts', 0, 24).default(0),
 		pcd: length('pcd', units).optional(),
@@ -137,8 +137,15 @@ function buildSchema(units: Units) {
 		balanceHole: length('balanceHole', units).optional(),
 		balanceAngle: angle('balanceAngle').default(0),
 		balanceSpacing: decimal('balanceSpacing', 0, 180, '°').optional(),
-		mark: z.union([z.literal('none'), angle('mark')]).default(0),
-		label: z.string().trim().max(40, { error: 'label: at most 40 characters' }).default(''),
+		// A union's own message: zod reports a failed union as one issue, without the members' messages.
+		mark: z.union([z.literal('none'), angle('mark')], { error: 'mark: none, or an angle from -360 to 360°' }).default(0),
+		// Etched as one line of text; a line break or control character would also break the DXF's group codes.
+		label: z
+			.string()
+			.trim()
+			.max(40, { error: 'label: at most 40 characters' })
+			.regex(/^[^\p{Cc}]*$/u, { error: 'label: one line of text, at most 40 characters (no line breaks or control characters)' })
+			.default(''),
 		rotation: oneOf('rotation', ['cw', 'ccw'] as const).default('cw'),
 		material: oneOf('material', materialKinds).default('steel'),
 		density: decimal('density', 0.5, 25, ' g/cm³').optional(),

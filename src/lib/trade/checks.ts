@@ -3,7 +3,7 @@
 import { missingPositions, pitchDeg } from './pattern';
 import { permissibleUnbalanceGmm, unbalanceForceN, type MassProperties } from './balance';
 import { deg, formatLength, type Units } from './units';
-import { gapOpenings, rootRadius, type HoleCircle, type WheelSpec } from './wheel';
+import { gapOpenings, holeCenters, rootRadius, type HoleCircle, type WheelSpec } from './wheel';
 
 export interface Refusal {
 	field: string;
@@ -36,7 +36,9 @@ function largest(fits: (v: number) => boolean, hi: number): number {
 	return lo;
 }
 
-const innerRadius = (spec: WheelSpec) => Math.max(spec.boreMm / 2 + (spec.keyway?.depthMm ?? 0), 0);
+/** How far the bore reaches: with a keyway, out to the slot's outer corners (the slot's depth is measured on its centre line). */
+const innerRadius = (spec: WheelSpec) =>
+	spec.keyway ? Math.hypot(spec.boreMm / 2 + spec.keyway.depthMm, spec.keyway.widthMm / 2) : Math.max(spec.boreMm / 2, 0);
 
 function holeRefusals(spec: WheelSpec, holes: HoleCircle, prefix: 'bolt' | 'balance', units: Units): Refusal[] {
 	const out: Refusal[] = [];
@@ -50,8 +52,12 @@ function holeRefusals(spec: WheelSpec, holes: HoleCircle, prefix: 'bolt' | 'bala
 	} else if (holes.pcdMm < lowPcd || holes.pcdMm > highPcd) {
 		out.push({ field, message: `${field}: ${formatLength(lowPcd, units)} to ${formatLength(highPcd, units)}, so the holes cut neither the bore nor the tooth roots` });
 	}
+	// The closest two holes, by angle round the circle: with a given spacing the last hole can come
+	// back round near the first (3 holes 165° apart: the third sits 30° before the first).
 	const step = holes.spacingDeg ?? 360 / holes.count;
-	if (holes.count > 1 && 2 * (holes.pcdMm / 2) * Math.sin((Math.min(step, 180) * Math.PI) / 360) < holes.holeMm + minMaterialMm) {
+	const at = Array.from({ length: holes.count }, (_, i) => (((i * step) % 360) + 360) % 360).sort((a, b) => a - b);
+	const closestDeg = Math.min(...at.map((a, i) => (i + 1 < at.length ? at[i + 1]! - a : at[0]! + 360 - a)));
+	if (holes.count > 1 && 2 * (holes.pcdMm / 2) * Math.sin((Math.min(closestDeg, 180) * Math.PI) / 360) < holes.holeMm + minMaterialMm) {
 		out.push({ field: prefix === 'bolt' ? 'bolts' : 'balanceCount', message: `${prefix === 'bolt' ? 'bolts' : 'balanceCount'}: the holes overlap; use fewer or smaller holes, or a larger pitch circle` });
 	}
 	return out;
@@ -104,6 +110,14 @@ export function refusals(spec: WheelSpec, units: Units): Refusal[] {
 	}
 	if (spec.bolts) out.push(...holeRefusals(spec, spec.bolts, 'bolt', units));
 	if (spec.balanceHoles) out.push(...holeRefusals(spec, spec.balanceHoles, 'balance', units));
+	if (spec.bolts && spec.balanceHoles) {
+		// The two circles are checked apart above; a balance hole may still land on a bolt hole.
+		const [bolts, balance] = [holeCenters(spec, spec.bolts), holeCenters(spec, spec.balanceHoles)];
+		const clear = (spec.bolts.holeMm + spec.balanceHoles.holeMm) / 2 + minMaterialMm;
+		if (balance.some((p) => bolts.some((q) => Math.hypot(p.x - q.x, p.y - q.y) < clear))) {
+			out.push({ field: 'balancePcd', message: 'balancePcd: the balance holes cut into the bolt holes; put them on another pitch circle or turn them with balanceAngle' });
+		}
+	}
 	return out;
 }
 

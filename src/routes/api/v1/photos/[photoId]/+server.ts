@@ -9,7 +9,9 @@ export async function GET(event) {
 	await objectAccess(event, 'read', 'photo', event.params.photoId);
 	const row = (await photoRow(db(), event.params.photoId))!;
 	const response = fileResponse(await photoBytes(row.storageKey), row.mime, row.name, 'private');
-	response.headers.set('content-disposition', `inline; filename*=UTF-8''${encodeURIComponent(row.name)}`);
+	// RFC 8187 ext-value: encodeURIComponent leaves ' ( ) * as they are, which the value may not hold.
+	const encoded = encodeURIComponent(row.name).replace(/['()*]/g, (c) => `%${c.charCodeAt(0).toString(16).toUpperCase()}`);
+	response.headers.set('content-disposition', `inline; filename*=UTF-8''${encoded}`);
 	return response;
 }
 
