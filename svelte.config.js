@@ -5,6 +5,26 @@ import { vitePreprocess } from '@sveltejs/vite-plugin-svelte';
 export default {
 	preprocess: vitePreprocess(),
 	kit: {
-		adapter: adapter({ out: 'build' })
+		adapter: adapter({ out: 'build' }),
+		// The pages' Content-Security-Policy. `auto`: SvelteKit puts a fresh nonce on the inline
+		// script it writes into each rendered page (hashes if a page were prerendered), so scripts
+		// need no 'unsafe-inline'. Styles keep it: the markup carries style attributes (the theme
+		// comes from a server-side attribute, not a script). Answers that are not pages get a stricter
+		// policy in src/lib/server/security-headers.ts.
+		csp: {
+			mode: 'auto',
+			directives: {
+				'default-src': ['self'],
+				'script-src': ['self'],
+				'style-src': ['self', 'unsafe-inline'],
+				'img-src': ['self'],
+				'font-src': ['self'],
+				'connect-src': ['self'],
+				'object-src': ['none'],
+				'base-uri': ['self'],
+				'form-action': ['self'],
+				'frame-ancestors': ['none']
+			}
+		}
 	}
 };

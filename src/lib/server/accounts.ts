@@ -2,7 +2,7 @@ import { hash, verify } from '@node-rs/argon2';
 import { and, eq, gt } from 'drizzle-orm';
 import type { Database, Queryable } from './db';
 import { member, passwordReset, user, workshop } from './db/schema';
-import { clearFailures, delayFor, failureCounts, recordFailure, throttleKeys, throttlePolicy } from './throttle';
+import { clearFailures, delayFor, releaseAttempt, reserveAttempt, throttleKeys, throttlePolicy } from './throttle';
 import { hashToken, newToken } from './tokens';
 
 export interface AccountUser {
@@ -57,13 +57,14 @@ export type PasswordCheck =
  */
 export async function checkPassword(database: Database, email: string, password: string, client: string): Promise<PasswordCheck> {
 	const keys = throttleKeys(email, client);
-	const counts = await failureCounts(database, [keys.email, keys.client]);
-	const byEmail = counts.get(keys.email);
-	const byClient = counts.get(keys.client);
-	const locked =
-		(byEmail && byEmail.failures >= throttlePolicy.lockAfter.email && byEmail) ||
-		(byClient && byClient.failures >= throttlePolicy.lockAfter.client && byClient);
+	// Counted before the check, so parallel attempts cannot slip past the limit (throttle.ts).
+	const counts = await reserveAttempt(database, [keys.email, keys.client]);
+	const byEmail = counts.get(keys.email)!;
+	const byClient = counts.get(keys.client)!;
+	const locked = (byEmail.failures > throttlePolicy.lockAfter.email && byEmail) || (byClient.failures > throttlePolicy.lockAfter.client && byClient);
 	if (locked) {
+		// A refused attempt is not checked, so it does not count as a failure.
+		await releaseAttempt(database, [keys.email, keys.client]);
 		const retryAfterS = Math.ceil((locked.windowStart.getTime() + throttlePolicy.windowMs - Date.now()) / 1000);
 		return { ok: false, reason: 'throttled', retryAfterS };
 	}
@@ -72,10 +73,10 @@ export async function checkPassword(database: Database, email: string, password:
 	const good = found?.passwordHash ? await verify(found.passwordHash, password) : (await verify(await decoyHash, password), false);
 	if (good && found) {
 		await clearFailures(database, keys.email);
+		await releaseAttempt(database, [keys.client]);
 		return { ok: true, user: { id: found.id, email: found.email, name: found.name } };
 	}
-	await recordFailure(database, [keys.email, keys.client]);
-	const wait = delayFor(Math.max(byEmail?.failures ?? 0, byClient?.failures ?? 0) + 1);
+	const wait = delayFor(Math.max(byEmail.failures, byClient.failures));
 	if (wait) await new Promise((r) => setTimeout(r, wait));
 	return { ok: false, reason: 'invalid' };
 }

@@ -24,21 +24,18 @@ export function delayFor(failures: number): number {
 	return Math.min(throttlePolicy.baseDelayMs * 2 ** (over - 1), throttlePolicy.maxDelayMs);
 }
 
-/** Failures counted in the current window for each key (expired windows count as zero). */
-export async function failureCounts(database: Queryable, keys: string[]): Promise<Map<string, { failures: number; windowStart: Date }>> {
-	const rows = await database.select().from(signInFailure).where(inArray(signInFailure.key, keys));
-	const now = Date.now();
-	return new Map(
-		rows
-			.filter((r) => now - r.windowStart.getTime() < throttlePolicy.windowMs)
-			.map((r) => [r.key, { failures: r.failures, windowStart: r.windowStart }])
-	);
-}
-
-export async function recordFailure(database: Queryable, keys: string[]) {
+/**
+ * Counts an attempt against each key before its password is checked, one atomic upsert per key,
+ * and returns the counts with this attempt in them. Counting first is what holds the limit
+ * under parallel attempts: read-then-record let a burst of guesses all see the count from before
+ * them (25 parallel guesses were all checked against a limit of 10). An attempt that turns out
+ * not to be a failure gives its count back with releaseAttempt().
+ */
+export async function reserveAttempt(database: Queryable, keys: string[]): Promise<Map<string, { failures: number; windowStart: Date }>> {
 	const windowStart = new Date(Date.now() - throttlePolicy.windowMs);
+	const counts = new Map<string, { failures: number; windowStart: Date }>();
 	for (const key of keys) {
-		await database
+		const [row] = await database
 			.insert(signInFailure)
 			.values({ key, failures: 1 })
 			.onConflictDoUpdate({
@@ -47,8 +44,20 @@ export async function recordFailure(database: Queryable, keys: string[]) {
 					failures: sql`case when ${signInFailure.windowStart} < ${windowStart} then 1 else ${signInFailure.failures} + 1 end`,
 					windowStart: sql`case when ${signInFailure.windowStart} < ${windowStart} then now() else ${signInFailure.windowStart} end`
 				}
-			});
+			})
+			.returning({ failures: signInFailure.failures, windowStart: signInFailure.windowStart });
+		counts.set(key, row!);
 	}
+	return counts;
+}
+
+/** Gives back an attempt counted by reserveAttempt() that was not a failure (refused unchecked, or a success). */
+export async function releaseAttempt(database: Queryable, keys: string[]) {
+	if (!keys.length) return;
+	await database
+		.update(signInFailure)
+		.set({ failures: sql`greatest(${signInFailure.failures} - 1, 0)` })
+		.where(inArray(signInFailure.key, keys));
 }
 
 export async function clearFailures(database: Queryable, key: string) {

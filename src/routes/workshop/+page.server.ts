@@ -14,6 +14,9 @@ const memberRefusals = {
 	'last-owner': 'A workshop needs at least one owner: make someone else owner first.'
 } as const;
 
+/** Someone outside the workshop is "no such member" (404, as for any id not among yours); the last owner is a conflict. */
+const memberStatus = { 'not-a-member': 404, 'last-owner': 409 } as const;
+
 export const load: PageServerLoad = async (event) => {
 	const access = await workshopAccess(event, 'read');
 	return {
@@ -60,7 +63,7 @@ export const actions: Actions = {
 		const parsed = parseForm(memberRole, await event.request.formData());
 		if (!parsed.ok) return fail(400, { action: 'role', errors: parsed.errors });
 		const result = await setRole(db(), access.workshop.id, parsed.data.userId, parsed.data.role as 'owner' | 'editor' | 'viewer');
-		if (!result.ok) return fail(409, { action: 'role', message: memberRefusals[result.reason] });
+		if (!result.ok) return fail(memberStatus[result.reason], { action: 'role', message: memberRefusals[result.reason] });
 		return { action: 'role' };
 	},
 
@@ -69,7 +72,7 @@ export const actions: Actions = {
 		const parsed = parseForm(memberId, await event.request.formData());
 		if (!parsed.ok) return fail(400, { action: 'remove', errors: parsed.errors });
 		const result = await removeMember(db(), access.workshop.id, parsed.data.userId);
-		if (!result.ok) return fail(409, { action: 'remove', message: memberRefusals[result.reason] });
+		if (!result.ok) return fail(memberStatus[result.reason], { action: 'remove', message: memberRefusals[result.reason] });
 		return { action: 'remove' };
 	},
 
