@@ -19,9 +19,11 @@ export default defineConfig({
 				test: {
 					name: 'integration',
 					include: ['tests/integration/**/*.test.ts'],
+					exclude: ['tests/integration/faults.test.ts'],
 					environment: 'node',
 					setupFiles: ['tests/integration/require-stack.ts'],
 					fileParallelism: false,
+					sequence: { groupOrder: 1 },
 					testTimeout: 20_000
 				}
 			},
@@ -32,7 +34,22 @@ export default defineConfig({
 					include: ['tests/e2e/**/*.test.ts'],
 					environment: 'node',
 					fileParallelism: false,
+					sequence: { groupOrder: 1 },
 					testTimeout: 60_000,
+					hookTimeout: 60_000
+				}
+			},
+			{
+				// Stops and starts the shared PostgreSQL cluster: alone, after every other file.
+				extends: true,
+				test: {
+					name: 'faults',
+					include: ['tests/integration/faults.test.ts'],
+					environment: 'node',
+					setupFiles: ['tests/integration/require-stack.ts'],
+					fileParallelism: false,
+					sequence: { groupOrder: 2 },
+					testTimeout: 120_000,
 					hookTimeout: 60_000
 				}
 			}

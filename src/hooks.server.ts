@@ -1,6 +1,9 @@
-import type { Handle } from '@sveltejs/kit';
+import type { Handle, HandleServerError } from '@sveltejs/kit';
 import { sequence } from '@sveltejs/kit/hooks';
 import { parseTheme, themeCookie } from '$lib/theme';
+import { drainBodyHandle } from '$lib/server/drain-body';
+import { securityHeadersHandle } from '$lib/server/security-headers';
+import { unavailableError, unavailableHandle } from '$lib/server/unavailable';
 import { authHandle } from './auth';
 
 /**
@@ -16,4 +19,16 @@ export const themeHandle: Handle = async ({ event, resolve }) => {
 };
 
 // Auth.js first: it answers its own routes under /auth and gives every request locals.auth().
-export const handle: Handle = sequence(authHandle, themeHandle);
+// unavailableHandle outermost: it turns a lost database connection anywhere inside into a 503.
+// drainBodyHandle around even that: it reads what a refusal left unread, so the connection serves
+// the next request (drain-body.ts).
+export const handle: Handle = sequence(drainBodyHandle, unavailableHandle, securityHeadersHandle, authHandle, themeHandle);
+
+/** A lost database connection answers 503 (see unavailable.ts); anything else is logged as a fault. */
+export const handleError: HandleServerError = ({ error, event, status, message }) => {
+	const unavailable = unavailableError(error, event);
+	if (unavailable) return unavailable;
+	// SvelteKit reports an address that matches no route here too: that is no fault of ours.
+	if (status !== 404) console.error(error);
+	return { message };
+};
