@@ -7,8 +7,11 @@ export const root = join(import.meta.dirname, '..');
 export const dataDir = join(root, '.data');
 export const runDir = join(dataDir, 'run');
 
+/** Moves every port at once, so two checkouts can run their stacks side by side (PW_PORT_OFFSET=100). */
+const offset = Number(process.env.PW_PORT_OFFSET ?? 0);
+
 export const postgres = {
-	port: Number(process.env.PW_PG_PORT ?? 54329),
+	port: Number(process.env.PW_PG_PORT ?? 54329 + offset),
 	host: '127.0.0.1',
 	role: 'phasewright',
 	password: 'phasewright'
@@ -30,21 +33,21 @@ export function profile(name: ProfileName): Profile {
 	if (name === 'local') {
 		return {
 			name,
-			appPort: Number(process.env.PORT ?? 3000),
+			appPort: Number(process.env.PORT ?? 3000 + offset),
 			database: 'phasewright',
-			smtpPort: 2525,
-			mailboxPort: 2580,
-			s3Port: 4568,
+			smtpPort: 2525 + offset,
+			mailboxPort: 2580 + offset,
+			s3Port: 4568 + offset,
 			bucket: 'phasewright-uploads'
 		};
 	}
 	return {
 		name,
-		appPort: Number(process.env.PW_TEST_PORT ?? 3100),
+		appPort: Number(process.env.PW_TEST_PORT ?? 3100 + offset),
 		database: 'phasewright_test',
-		smtpPort: 2625,
-		mailboxPort: 2680,
-		s3Port: 4668,
+		smtpPort: 2625 + offset,
+		mailboxPort: 2680 + offset,
+		s3Port: 4668 + offset,
 		bucket: 'phasewright-test-uploads'
 	};
 }
