@@ -88,6 +88,12 @@ describe('GET /api/v1/wheel (JSON)', () => {
 		[{ teeth: '36', missing: '1', od: '100', depth: '45', bore: '20' }, 'depth', /less than 39\.50 mm/],
 		[{ teeth: '36', missing: '1', od: '100', depth: '5', bore: '20', bolts: '3', pcd: '30', boltHole: '12' }, 'pcd', /so the holes cut neither/],
 		[{ teeth: '36', missing: '1', od: '100', depth: '5', bore: '20', keyway: 'din6885' }, 'shaft', /shaft diameter/],
+		// ANSI B17.2 lists its key numbers; 999, 1299 and 1650 are none of them.
+		[{ teeth: '36', missing: '1', od: '100', depth: '5', bore: '20', keyway: 'woodruff', woodruff: '999' }, 'woodruff', /one of the ANSI B17\.2 key numbers 202, 202\.5, .*1212/],
+		[{ teeth: '36', missing: '1', od: '100', depth: '5', bore: '20', keyway: 'woodruff', woodruff: '1299' }, 'woodruff', /key numbers/],
+		[{ teeth: '36', missing: '1', od: '100', depth: '5', bore: '20', keyway: 'woodruff', woodruff: '1650' }, 'woodruff', /key numbers/],
+		// B17.1's square keys stop at 6 1/2 in shafts; DIN 6885-1 at 500 mm.
+		[{ teeth: '36', missing: '1', od: '12', depth: '1/4', bore: '7', keyway: 'b17.1', shaft: '7', thickness: '1/4', units: 'in' }, 'shaft', /to 6\.500 in for ANSI B17\.1 square keys \(the standard's square-key sizes end there\)/],
 		[{ teeth: '36', missing: '1', od: '4', depth: '3/16', units: 'yards' }, 'units', /one of mm, in/],
 		// A line break in the label would end the DXF TEXT value and start group codes of its own (DXF reference: one value per line).
 		[{ teeth: '36', missing: '1', od: '100', depth: '5', label: 'R1\n  0\nLINE' }, 'label', /no line breaks/]
@@ -128,6 +134,28 @@ describe('DXF for a cutting order, read back by ezdxf', () => {
 			const within = (((a - 90) % c.pitch) + c.pitch) % c.pitch;
 			expect([0, c.duty * c.pitch, c.pitch].some((v) => Math.abs(within - v) < 1e-3), `flank at ${a}°`).toBe(true);
 		}
+	});
+
+	it('cuts the ANSI B17.1 hub keyseat to the published depth: 1 in bore, 1/4 key, T = 1.114 in', async () => {
+		// Machinery's Handbook, Table 2 "Depth Control Values S and T" (B17.1), hubs, parallel, square:
+		// 1.114 in from the keyseat floor across to the far side of a 1 in bore. Read from the DXF
+		// by ezdxf: the keyseat floor corners are the CUT line ends nearest the bore beyond it.
+		const res = await get('/api/v1/wheel.dxf', { teeth: '36', missing: '1', od: '4', depth: '3/16', bore: '1', keyway: 'b17.1', shaft: '1', thickness: '1/8', units: 'in' });
+		expect(res.status).toBe(200);
+		const file = join(dir, 'b17-1in.dxf');
+		writeFileSync(file, Buffer.from(await res.arrayBuffer()));
+		const script = [
+			'import sys, math, ezdxf',
+			'doc = ezdxf.readfile(sys.argv[1])',
+			'pts = [p for e in doc.modelspace() if e.dxf.layer == "CUT" and e.dxftype() == "LINE" for p in (e.dxf.start, e.dxf.end)]',
+			'near = [p for p in pts if math.hypot(p.x, p.y) < 0.75]',
+			'far = max(near, key=lambda p: math.hypot(p.x, p.y))',
+			'print(math.hypot(far.x, far.y))'
+		].join('\n');
+		const cornerRadius = Number(execFileSync('/usr/bin/python3', ['-c', script, file], { encoding: 'utf8' }));
+		// The floor's corners sit half the key width (1/8 in) off the centre line.
+		const floorFromCentre = Math.sqrt(cornerRadius ** 2 - 0.125 ** 2);
+		expect(Math.abs(floorFromCentre + 0.5 - 1.114)).toBeLessThanOrEqual(0.0005);
 	});
 
 	it('names the file after pattern, diameter and units', async () => {

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { ansiShaftRangeIn, ansiSlot, dinShaftRange, dinSlot, woodruffSlot, type HubSlot } from '$lib/trade/keys';
+import { ansiShaftRangeIn, ansiSlot, dinShaftRange, dinSlot, woodruffNumbers, woodruffSlot, type HubSlot } from '$lib/trade/keys';
 import { materials } from '$lib/trade/materials';
 import { formatLength, fromMm, parseLength, toMm, type Units } from '$lib/trade/units';
 import type { WheelSpec } from '$lib/trade/wheel';
@@ -25,7 +25,7 @@ export const lengthRanges = {
 	bore: [0, 1900],
 	keyWidth: [0.5, 100],
 	keyDepth: [0.2, 50],
-	shaft: [1, 300],
+	shaft: [1, 500],
 	pcd: [2, 1990],
 	boltHole: [0.5, 100],
 	balancePcd: [2, 1990],
@@ -126,7 +126,7 @@ function buildSchema(units: Units) {
 		keyWidth: length('keyWidth', units).optional(),
 		keyDepth: length('keyDepth', units).optional(),
 		shaft: length('shaft', units).optional(),
-		woodruff: z.string().max(8, { error: 'woodruff: an ANSI B17.2 key number such as 404 or 606' }).optional(),
+		woodruff: z.string().max(8, { error: `woodruff: one of the ANSI B17.2 key numbers ${woodruffNumbers.join(', ')}` }).optional(),
 		keywayAngle: angle('keywayAngle').default(0),
 		bolts: integer('bolts', 0, 24).default(0),
 		pcd: length('pcd', units).optional(),
@@ -196,7 +196,7 @@ export function parseWheel(params: WheelParams): { ok: true; value: ParsedWheel 
 			const shaft = need('shaft', v.shaft, 'shaft: the shaft diameter, to look up the DIN 6885-1 key');
 			if (v.shaft !== undefined) {
 				keyway = dinSlot(shaft) ?? null;
-				if (!keyway) errors.shaft = `shaft: over ${formatLength(dinShaftRange.min, units)} to ${formatLength(dinShaftRange.max, units)} for DIN 6885-1 keys`;
+				if (!keyway) errors.shaft = `shaft: over ${formatLength(dinShaftRange.min, units)} to ${formatLength(dinShaftRange.max, units)} for DIN 6885-1 keys (the standard's table ends there); outside it, use keyway=custom`;
 			}
 			break;
 		}
@@ -204,13 +204,13 @@ export function parseWheel(params: WheelParams): { ok: true; value: ParsedWheel 
 			const shaft = need('shaft', v.shaft, 'shaft: the shaft diameter, to look up the ANSI B17.1 key');
 			if (v.shaft !== undefined) {
 				keyway = ansiSlot(fromMm(shaft, 'in')) ?? null;
-				if (!keyway) errors.shaft = `shaft: over ${formatLength(toMm(ansiShaftRangeIn.min, 'in'), units)} to ${formatLength(toMm(ansiShaftRangeIn.max, 'in'), units)} for ANSI B17.1 keys`;
+				if (!keyway) errors.shaft = `shaft: over ${formatLength(toMm(ansiShaftRangeIn.min, 'in'), units)} to ${formatLength(toMm(ansiShaftRangeIn.max, 'in'), units)} for ANSI B17.1 square keys (the standard's square-key sizes end there); outside it, use keyway=custom`;
 			}
 			break;
 		}
 		case 'woodruff':
 			keyway = woodruffSlot(v.woodruff ?? '') ?? null;
-			if (!keyway) errors.woodruff = 'woodruff: an ANSI B17.2 key number such as 404 or 606 (width in 32nds, then diameter in 8ths of an inch)';
+			if (!keyway) errors.woodruff = `woodruff: one of the ANSI B17.2 key numbers ${woodruffNumbers.join(', ')}`;
 			break;
 	}
 	if (keyway && v.bore <= 0) errors.bore = 'bore: needed for a keyway (more than 0)';
