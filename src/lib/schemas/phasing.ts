@@ -1,12 +1,13 @@
 import { z } from 'zod';
 import { cycleDeg, layoutChoices, layouts, legacyVTwin, vAngleRange, vTwin, type Layout, type Stroke } from '$lib/trade/engine';
+import { patternRefusals } from '$lib/trade/pattern';
 import { keyFromSensorFrom, toothAtTdcFrom, type MeasuredAngles, type PhasingInput } from '$lib/trade/phasing';
 import { summarize, type WheelSummary } from '$lib/trade/summary';
 import { tdcFromMarks, type TdcResult } from '$lib/trade/tdc';
 import { formatLength, parseLength, toMm } from '$lib/trade/units';
 import type { FieldErrors } from './form';
 import { parseTdc } from './tape';
-import { parseWheel, type ParsedWheel } from './wheel';
+import { gapsField, parseWheel, patternKinds, patternOf, type ParsedWheel } from './wheel';
 
 // The phasing check's public parameters (query or form), flat strings. Refusals name the field.
 // Where the sensor is can be said two ways (`input`): `tooth`, the tooth under the sensor with
@@ -30,8 +31,12 @@ const layoutIds = layoutChoices.map((l) => l.id) as [string, ...string[]];
 const layoutField = z.enum([...layoutIds, 'v-twin-45', 'v-twin-60', 'v-twin-75', 'v-twin-90'], { error: `layout: one of ${layoutIds.join(', ')}` });
 
 const schema = z.object({
+	// The wheel's pattern parameters, with the wheel's names (src/lib/schemas/wheel.ts).
+	pattern: oneOf('pattern', patternKinds).default('missing'),
 	teeth: whole('teeth', 2, 720),
 	missing: whole('missing', 0, 719).default(1),
+	gaps: gapsField,
+	extraAfter: whole('extraAfter', 0, 719).default(0),
 	duty: number('duty', 0.05, 0.95).default(0.5),
 	mount: oneOf('mount', ['crank', 'cam'] as const).default('crank'),
 	layout: layoutField.optional(),
@@ -76,7 +81,8 @@ export function parsePhasing(params: Record<string, string | undefined>): { ok: 
 		return { ok: false, errors };
 	}
 	const v = parsed.data;
-	if (v.missing >= v.teeth) errors.missing = `missing: at most ${v.teeth - 1}, so that a tooth is left of the ${v.teeth} positions`;
+	const pattern = patternOf(v);
+	for (const r of patternRefusals(pattern)) errors[r.field] ??= r.message;
 
 	let measured: MeasuredAngles | null = null;
 	let toothAtTdc = v.toothAtTdc ?? 0;
@@ -139,7 +145,7 @@ export function parsePhasing(params: Record<string, string | undefined>): { ok: 
 			measured,
 			clocking,
 			input: {
-				pattern: { kind: 'missing', teeth: v.teeth, missing: v.missing },
+				pattern,
 				duty: v.duty,
 				mount: v.mount,
 				stroke,
@@ -232,7 +238,9 @@ export function parseBuildSheet(params: Record<string, string | undefined>): { o
 			revision: more.data.revision || 'unsaved',
 			wheel: wheel.value,
 			summary: summary.summary,
-			phasing: phase.value,
+			// One wheel on the sheet: the phasing check runs on the pattern and duty the wheel is cut
+			// with (the phasing check's own defaults, such as missing=1, would describe another wheel).
+			phasing: { ...phase.value, input: { ...phase.value.input, pattern: wheel.value.spec.pattern, duty: wheel.value.spec.duty } },
 			tdc,
 			tapeHubMm
 		}

@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { ansiShaftRangeIn, ansiSlot, dinShaftRange, dinSlot, woodruffNumbers, woodruffSlot, type HubSlot } from '$lib/trade/keys';
 import { materials } from '$lib/trade/materials';
+import type { Pattern } from '$lib/trade/pattern';
 import { formatLength, fromMm, parseLength, toMm, type Units } from '$lib/trade/units';
 import type { WheelSpec } from '$lib/trade/wheel';
 import type { FieldErrors } from './form';
@@ -95,6 +96,33 @@ function length(field: LengthField, units: Units) {
 
 const angle = (field: string) => decimal(field, -360, 360, '°');
 
+/** `gaps`: the missing positions of a custom pattern, as the wheel and the phasing check both read them. */
+export const gapsField = z
+	.string()
+	.default('')
+	.transform((text, ctx) => {
+		const list = text.split(/[\s,;]+/).filter(Boolean).map(Number);
+		if (list.some((n) => !Number.isInteger(n))) {
+			ctx.addIssue({ code: 'custom', message: 'gaps: whole position numbers separated by commas, like 17, 35' });
+			return z.NEVER;
+		}
+		return list;
+	});
+
+/** The tooth pattern from the public parameters `pattern`, `teeth`, `missing`, `gaps`, `extraAfter`. */
+export function patternOf(v: { pattern: (typeof patternKinds)[number]; teeth: number; missing: number; gaps: number[]; extraAfter: number }): Pattern {
+	switch (v.pattern) {
+		case 'missing':
+			return { kind: 'missing', teeth: v.teeth, missing: v.missing };
+		case 'custom':
+			return { kind: 'custom', teeth: v.teeth, missingPositions: v.gaps };
+		case 'single':
+			return { kind: 'single', teeth: v.teeth };
+		case 'extra':
+			return { kind: 'extra', teeth: v.teeth, extraAfter: v.extraAfter };
+	}
+}
+
 // Built once per unit system: making a zod schema costs far more than using it.
 const schemas = new Map<Units, ReturnType<typeof buildSchema>>();
 const schemaFor = (units: Units) => schemas.get(units) ?? schemas.set(units, buildSchema(units)).get(units)!;
@@ -104,17 +132,7 @@ function buildSchema(units: Units) {
 		pattern: oneOf('pattern', patternKinds).default('missing'),
 		teeth: integer('teeth', 1, 720),
 		missing: integer('missing', 0, 719).default(0),
-		gaps: z
-			.string()
-			.default('')
-			.transform((text, ctx) => {
-				const list = text.split(/[\s,;]+/).filter(Boolean).map(Number);
-				if (list.some((n) => !Number.isInteger(n))) {
-					ctx.addIssue({ code: 'custom', message: 'gaps: whole position numbers separated by commas, like 17, 35' });
-					return z.NEVER;
-				}
-				return list;
-			}),
+		gaps: gapsField,
 		extraAfter: integer('extraAfter', 0, 719).default(0),
 		duty: decimal('duty', 0.05, 0.95),
 		od: length('od', units),
@@ -229,14 +247,7 @@ export function parseWheel(params: WheelParams): { ok: true; value: ParsedWheel 
 	const densityGcm3 = v.material === 'custom' ? need('density', v.density, 'density: needed for a custom material, 0.5 to 25 g/cm³') : materials[v.material].densityGcm3;
 	if (Object.keys(errors).length) return { ok: false, errors };
 
-	const pattern =
-		v.pattern === 'missing'
-			? { kind: 'missing' as const, teeth: v.teeth, missing: v.missing }
-			: v.pattern === 'custom'
-				? { kind: 'custom' as const, teeth: v.teeth, missingPositions: v.gaps }
-				: v.pattern === 'single'
-					? { kind: 'single' as const, teeth: v.teeth }
-					: { kind: 'extra' as const, teeth: v.teeth, extraAfter: v.extraAfter };
+	const pattern = patternOf(v);
 
 	return {
 		ok: true,

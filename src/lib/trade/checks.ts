@@ -1,6 +1,6 @@
 // What makes a wheel impossible (refused, naming the field and the range that would work) and
 // what makes it risky (warned, with the reason and where on the wheel).
-import { missingPositions, pitchDeg } from './pattern';
+import { patternRefusals, pitchDeg } from './pattern';
 import { permissibleUnbalanceGmm, unbalanceForceN, type MassProperties } from './balance';
 import { deg, formatLength, type Units } from './units';
 import { gapOpenings, holeCenters, rootRadius, type HoleCircle, type WheelSpec } from './wheel';
@@ -68,16 +68,8 @@ export function refusals(spec: WheelSpec, units: Units): Refusal[] {
 	const out: Refusal[] = [];
 	const p = spec.pattern;
 	const N = p.teeth;
-	if (p.kind === 'missing' && p.missing >= N) out.push({ field: 'missing', message: `missing: at most ${N - 1}, so that a tooth is left of the ${N} positions` });
-	if (p.kind === 'custom') {
-		const bad = p.missingPositions.filter((k) => k < 0 || k >= N || !Number.isInteger(k));
-		if (bad.length) out.push({ field: 'gaps', message: `gaps: positions 0 to ${N - 1} (got ${bad.join(', ')})` });
-		else if (missingPositions(p).length >= N) out.push({ field: 'gaps', message: `gaps: at least one of the ${N} positions must keep its tooth` });
-	}
-	if (p.kind === 'extra') {
-		if (p.extraAfter < 0 || p.extraAfter >= N) out.push({ field: 'extraAfter', message: `extraAfter: 0 to ${N - 1}` });
-		if (spec.duty >= 0.5) out.push({ field: 'duty', message: 'duty: below 0.5 on an N+1 wheel, so the extra tooth fits between two regular ones' });
-	}
+	out.push(...patternRefusals(p));
+	if (p.kind === 'extra' && spec.duty >= 0.5) out.push({ field: 'duty', message: 'duty: below 0.5 on an N+1 wheel, so the extra tooth fits between two regular ones' });
 	if (out.length) return out;
 
 	const R = spec.odMm / 2;

@@ -190,3 +190,120 @@ describe('engine layouts', () => {
 		expect(layoutChoices.filter((l) => l.id.startsWith('v-twin')).map((l) => l.id)).toEqual(['v-twin']);
 	});
 });
+
+/**
+ * An independent model of the running engine (geometry, not phasing.ts's formulas): walk the crank
+ * through one engine cycle in small steps; at crank angle θ after TDC 1 the point of the wheel at
+ * the sensor is toothAtTdc·p + θ/factor wheel degrees after tooth 0's leading edge. Material is
+ * there when that point lies within `duty` of a pitch after a present tooth's leading edge (plus
+ * the half-pitch extra tooth of N+1). A run without material longer than an ordinary space is a
+ * gap. Clearance: the crank degrees from each cylinder's spark window to the nearest gap sample.
+ */
+function modelClearances(i: PhasingInput, step = 0.01): { gapRuns: number; clearances: number[] } {
+	const factor = i.mount === 'cam' ? 2 : 1;
+	const N = i.pattern.teeth;
+	const pitch = 360 / N;
+	const gone = new Set<number>(
+		i.pattern.kind === 'missing'
+			? Array.from({ length: i.pattern.missing }, (_, k) => N - 1 - k)
+			: i.pattern.kind === 'custom'
+				? i.pattern.missingPositions
+				: i.pattern.kind === 'single'
+					? Array.from({ length: N - 1 }, (_, k) => k + 1)
+					: []
+	);
+	const material = (w: number) => {
+		const at = (((w % 360) + 360) % 360) / pitch;
+		const k = Math.floor(at);
+		if (!gone.has(k) && at - k < i.duty) return true;
+		if (i.pattern.kind === 'extra' && at - i.pattern.extraAfter - 0.5 >= 0 && at - i.pattern.extraAfter - 0.5 < i.duty) return true;
+		return false;
+	};
+	const cycle = i.stroke === 4 ? 720 : 360;
+	const steps = Math.round(cycle / step);
+	const empty = Array.from({ length: steps }, (_, s) => !material(i.toothAtTdc * pitch + (s * step) / factor));
+	// Runs of empty samples (wrapping round the cycle), kept when longer than an ordinary space.
+	const ordinary = (1 - i.duty) * pitch * factor;
+	const inGap = new Array<boolean>(steps).fill(false);
+	let runs = 0;
+	const start = empty.findIndex((e) => !e);
+	if (start >= 0) {
+		for (let s = 0; s < steps; ) {
+			const at = (start + s) % steps;
+			if (!empty[at]) {
+				s++;
+				continue;
+			}
+			let len = 0;
+			while (s + len < steps && empty[(start + s + len) % steps]) len++;
+			if (len * step > ordinary + 2 * step * factor) {
+				runs++;
+				for (let j = 0; j < len; j++) inGap[(start + s + j) % steps] = true;
+			}
+			s += len;
+		}
+	}
+	let tdc = 0;
+	const tdcs = [0, ...i.intervals.slice(0, -1).map((v) => (tdc += v))];
+	const clearances = tdcs.map((t) => {
+		const w0 = t - i.windowFromBtdc;
+		const w1 = t - i.windowToBtdc;
+		let best = Infinity;
+		for (let s = 0; s < steps; s++) {
+			if (!inGap[s]) continue;
+			const theta = s * step;
+			for (const shift of [-cycle, 0, cycle]) {
+				const x = theta + shift;
+				best = Math.min(best, x < w0 ? w0 - x : x > w1 ? x - w1 : 0);
+			}
+		}
+		return best;
+	});
+	return { gapRuns: runs / (i.stroke === 4 && factor === 1 ? 2 : 1), clearances };
+}
+
+describe('every gap of the real pattern against each spark window (numerical model)', () => {
+	const cases: [string, Partial<PhasingInput>][] = [
+		// The issue's case: 36-1-1 with the second gap (position 17) inside the window: tooth 19 at TDC.
+		['36-1-1, gap at 17 inside the window', { pattern: { kind: 'custom', teeth: 36, missingPositions: [17, 35] }, toothAtTdc: 19 }],
+		['36-1-1, both clear', { pattern: { kind: 'custom', teeth: 36, missingPositions: [17, 35] }, toothAtTdc: 9 }],
+		['36-2-2-2 style, three gaps, V-twin', { pattern: { kind: 'custom', teeth: 36, missingPositions: [10, 11, 22, 23, 34, 35] }, intervals: [315, 405], toothAtTdc: 1.5 }],
+		['60-2 on the cam, four cylinders', { pattern: { kind: 'missing', teeth: 60, missing: 2 }, mount: 'cam', intervals: [180, 180, 180, 180], toothAtTdc: 13.25 }],
+		['12-3 two-stroke twin', { pattern: { kind: 'missing', teeth: 12, missing: 3 }, stroke: 2, intervals: [180, 180], toothAtTdc: 2.5, duty: 0.4 }]
+	];
+	it.each(cases)('%s', (_, over) => {
+		const i = input(over);
+		const r = phasing(i);
+		const model = modelClearances(i);
+		expect(r.gapClearanceDeg).toHaveLength(model.clearances.length);
+		r.gapClearanceDeg.forEach((c, k) => expect(Math.abs(c.clearanceDeg - model.clearances[k]!), `cylinder ${c.cylinder}`).toBeLessThanOrEqual(0.05));
+	});
+
+	it('the issue’s 36-1-1 case: the gap at position 17 passes inside the window (clearance 0); a 36-1 reading would have said 125° or more', () => {
+		const i = input({ pattern: { kind: 'custom', teeth: 36, missingPositions: [17, 35] }, toothAtTdc: 19 });
+		expect(modelClearances(i).clearances).toEqual([0]);
+		expect(phasing(i).gapClearanceDeg[0]!.clearanceDeg).toBe(0);
+		expect(phasing(i).warnings.map((w) => w.code)).toContain('gap-in-spark-window');
+		expect(modelClearances(input({ toothAtTdc: 19 })).clearances[0]).toBeGreaterThan(100);
+	});
+
+	it('an N+1 cam wheel has no gap: no cranking time, no clearance', () => {
+		const i = input({ pattern: { kind: 'extra', teeth: 24, extraAfter: 3 }, mount: 'cam', duty: 0.4 });
+		expect(modelClearances(i).gapRuns).toBe(0);
+		const r = phasing(i);
+		expect(r.gapAtCrankingMs).toBeNull();
+		expect(r.gapClearanceDeg.every((c) => Number.isNaN(c.clearanceDeg))).toBe(true);
+	});
+
+	it('with gaps of different lengths the cranking time is the shortest gap’s', () => {
+		// 36 teeth, gaps of one and of two positions, duty 0.5: open spaces 1.5 and 2.5 pitches (15° and 25°).
+		// At 200 rpm a crank degree takes 60000 / (200 · 360) ms: 15° -> 12.5 ms.
+		const r = phasing(input({ pattern: { kind: 'custom', teeth: 36, missingPositions: [11, 34, 35] } }));
+		expect(r.gapAtCrankingMs).toBe(12.5);
+	});
+
+	it('drops the "TDC between teeth" warning: nothing in it for a tuner to act on', () => {
+		const r = phasing(input({ toothAtTdc: 9.3, intervals: [315, 405] }));
+		expect(r.warnings.map((w) => w.code)).not.toContain('tdc-between-teeth');
+	});
+});

@@ -30,7 +30,8 @@ export interface PhasingResult {
 	resolutionDeg: number;
 	firstToothOffsetDeg: number;
 	pitchFrequencyHz: number;
-	gapAtCrankingMs: number;
+	/** How long the shortest gap takes to pass the sensor at cranking speed; null when the pattern has no gap. */
+	gapAtCrankingMs: number | null;
 	gapClearanceDeg: { cylinder: number; tdcDeg: number; clearanceDeg: number }[];
 	warnings: { code: string; message: string }[];
 }
@@ -70,7 +71,9 @@ export function phasing(input: PhasingInput): PhasingResult {
 		return { from: (from - input.toothAtTdc * pitch) * factor, to: (to - input.toothAtTdc * pitch) * factor };
 	});
 	const tdcs = firingTdcs(input.intervals);
-	const gapAtCrankingMs = gaps.length ? (((gaps[0]!.to - gaps[0]!.from) / factor / 360) * 60_000) / wheelRpmAt(input.crankingRpm) : 0;
+	// The shortest gap is the one the ECU is likeliest to miss while cranking; no gap, nothing to time.
+	const shortestGap = Math.min(...gaps.map((g) => g.to - g.from));
+	const gapAtCrankingMs = gaps.length ? ((shortestGap / factor / 360) * 60_000) / wheelRpmAt(input.crankingRpm) : null;
 
 	const clearances = tdcs.map((tdc, i) => {
 		const w0 = tdc - input.windowFromBtdc;
@@ -101,17 +104,13 @@ export function phasing(input: PhasingInput): PhasingResult {
 	if (input.resolutionDeg !== undefined && resolution > input.resolutionDeg) {
 		warnings.push({ code: 'too-few-teeth', message: `One tooth every ${round(resolution)} crank degrees is coarser than the ${input.resolutionDeg}° asked for: use more teeth.` });
 	}
-	const offTooth = tdcs.filter((t) => Math.abs(norm(t / factor, pitch)) > 1e-6 && Math.abs(norm(t / factor, pitch) - pitch) > 1e-6);
-	if (offTooth.length) {
-		warnings.push({ code: 'tdc-between-teeth', message: `Cylinder TDCs at ${offTooth.map((t) => `${t}°`).join(', ')} fall between teeth of a ${round(pitch)}° pitch: the ECU must interpolate their timing between edges.` });
-	}
 
 	return {
 		pitchDeg: round(pitch),
 		resolutionDeg: round(resolution),
 		firstToothOffsetDeg: round(norm(firstToothOffsetDeg, wheelTurn)),
 		pitchFrequencyHz: round(pitchFrequencyHz, 1),
-		gapAtCrankingMs: round(gapAtCrankingMs, 2),
+		gapAtCrankingMs: gapAtCrankingMs === null ? null : round(gapAtCrankingMs, 2),
 		gapClearanceDeg: clearances,
 		warnings
 	};

@@ -4,7 +4,9 @@ import type { PageLoad } from './$types';
 /** The phasing check's public parameters (the names parsePhasing reads), read from the query. */
 export const _phasingKeys = [
 	'teeth', 'missing', 'duty', 'mount', 'layout', 'vAngle', 'stroke', 'intervals', 'input', 'toothAtTdc', 'sensorAngle', 'keywayAngle',
-	'keyAngle', 'edge', 'rpm', 'cranking', 'sensor', 'sensorMaxHz', 'windowFrom', 'windowTo', 'resolution', 'target', 'keyFromSensor'
+	'keyAngle', 'edge', 'rpm', 'cranking', 'sensor', 'sensorMaxHz', 'windowFrom', 'windowTo', 'resolution', 'target', 'keyFromSensor',
+	// The wheel's other patterns (two gaps, N+1), read from a link; the form offers N-M.
+	'pattern', 'gaps', 'extraAfter'
 ] as const;
 
 /**
@@ -17,7 +19,7 @@ export const _sheetKeys = ['buildName', 'units', 'od', 'depth', 'thickness', 'ma
 export const _phasingDefaults: Record<string, string> = {
 	teeth: '36', missing: '1', duty: '0.5', mount: 'crank', layout: 'single-4', vAngle: '', stroke: '4', intervals: '', input: 'tooth',
 	toothAtTdc: '', sensorAngle: '', keywayAngle: '', keyAngle: '', edge: 'leading', rpm: '8000', cranking: '200', sensor: 'hall',
-	sensorMaxHz: '', windowFrom: '45', windowTo: '0', resolution: '', target: '', keyFromSensor: '',
+	sensorMaxHz: '', windowFrom: '45', windowTo: '0', resolution: '', target: '', keyFromSensor: '', pattern: 'missing', gaps: '', extraAfter: '',
 	buildName: '', units: 'mm', od: '', depth: '', thickness: '', material: 'steel', bore: '', tdcA: '', tdcB: '', tapeDiameter: '', paper: 'a4'
 };
 

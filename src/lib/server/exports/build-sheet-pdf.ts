@@ -2,6 +2,7 @@
 import type { ParsedPhasing } from '$lib/schemas/phasing';
 import type { ParsedWheel } from '$lib/schemas/wheel';
 import { firingTdcs } from '$lib/trade/engine';
+import { gapsOf } from '$lib/trade/pattern';
 import { clockingFor, type PhasingResult } from '$lib/trade/phasing';
 import type { WheelSummary } from '$lib/trade/summary';
 import { mmPerDegree } from '$lib/trade/tape';
@@ -66,10 +67,20 @@ export async function buildSheetPdf(s: BuildSheet): Promise<Buffer> {
 	if (clock) row('Clocking for a target', `keyway angle ${clockingFor(clock.targetDeg, clock.keyFromSensorDeg, p.mount)}° of wheel gives ${clock.targetDeg}° BTDC`);
 	row('Pitch, resolution', `${r.pitchDeg}° of wheel, ${r.resolutionDeg} crank degrees per tooth`);
 	row('Tooth pitch frequency', `${r.pitchFrequencyHz} Hz at ${p.revLimitRpm} rpm`);
-	row('Gap at cranking', `${r.gapAtCrankingMs} ms at ${p.crankingRpm} rpm`);
+	// The wheel's own pattern, gap by gap, as the phasing check saw it (every gap, every pass).
+	const gaps = gapsOf(p.pattern);
+	const where = gaps.map((g) => (g.count === 1 ? `position ${g.first}` : `positions ${g.first}–${g.first + g.count - 1}`)).join(', ');
+	const gapWords = gaps.length === 1 ? 'the gap' : `the ${gaps.length} gaps`;
+	row('Gaps in the pattern', gaps.length ? `${gaps.length}: missing ${where}` : 'none');
+	row('Gap at cranking', r.gapAtCrankingMs === null ? `no gap on this wheel (${p.pattern.kind === 'extra' ? 'it keeps its cam sync by the extra tooth' : 'the ECU needs another sync signal'})` : `${r.gapAtCrankingMs} ms at ${p.crankingRpm} rpm${gaps.length > 1 ? ' (the shortest gap)' : ''}`);
 	row('Engine', `${s.phasing.layoutLabel}; firing intervals ${p.intervals.join(' / ')}°`);
 	const tdcs = firingTdcs(p.intervals);
-	row('Gap clearance', r.gapClearanceDeg.map((c) => `cyl ${c.cylinder} (TDC at ${tdcs[c.cylinder - 1]}°): ${c.clearanceDeg}°`).join('; ') + ` from the ${p.windowFromBtdc}°–${p.windowToBtdc}° BTDC spark window`);
+	row(
+		'Gap clearance',
+		gaps.length
+			? r.gapClearanceDeg.map((c) => `cyl ${c.cylinder} (TDC at ${tdcs[c.cylinder - 1]}°): ${c.clearanceDeg}°${c.clearanceDeg === 0 ? ' (inside)' : ''}`).join('; ') + ` from the ${p.windowFromBtdc}°–${p.windowToBtdc}° BTDC spark window, nearest of ${gapWords}`
+			: 'no gap on this wheel, nothing to keep clear of the spark window'
+	);
 
 	section('TDC record and tape');
 	row('Piston-stop marks', s.tdc ? `${s.tdc.a}° and ${s.tdc.b}°: true TDC at ${s.tdc.result.tdcDeg}°, spread ${s.tdc.result.spreadDeg}° (${s.tdc.result.halfSpreadDeg}° each side)` : 'not recorded');
