@@ -1,3 +1,4 @@
+import { modelClearances } from '../support/phasing-model';
 import { describe, expect, it } from 'vitest';
 
 const get = (params: Record<string, string>) => fetch(`${process.env.APP_URL}/api/v1/phasing?${new URLSearchParams(params)}`);
@@ -159,6 +160,48 @@ describe('GET /api/v1/build-sheet.pdf', () => {
 		expect(text).toMatch(/V-twin, 52° V, one crankpin; firing intervals 412 \/ 308°/);
 		// For 60° BTDC: the key reaches the sensor (5 − 90) mod 360 = 275° later, so the keyway at 60 + 275 = 335°.
 		expect(text).toMatch(/keyway angle 335° of wheel gives 60° BTDC/);
+	});
+
+	/** The sheet's text as poppler reads it, runs of white space made one (the value column wraps). */
+	async function sheetText(params: Record<string, string>): Promise<string> {
+		const { execFileSync } = await import('node:child_process');
+		const { mkdtempSync, writeFileSync } = await import('node:fs');
+		const { join } = await import('node:path');
+		const { tmpdir } = await import('node:os');
+		const res = await fetch(`${process.env.APP_URL}/api/v1/build-sheet.pdf?${new URLSearchParams(params)}`);
+		expect(res.status).toBe(200);
+		const file = join(mkdtempSync(join(tmpdir(), 'phasewright-sheet-')), 'sheet.pdf');
+		writeFileSync(file, Buffer.from(await res.arrayBuffer()));
+		return execFileSync('pdftotext', ['-layout', file, '-'], { encoding: 'utf8' }).replace(/\s+/g, ' ');
+	}
+
+	it('a two-gap wheel: the sheet clears every gap, and names the one inside the spark window (model: tests/support/phasing-model.ts)', async () => {
+		// 36-1-1, gaps at positions 17 and 35, tooth 19 at the sensor at TDC, single four-stroke,
+		// window 45° to 0° BTDC. The model walks the wheel: the gap at 17 passes inside the window.
+		const model = modelClearances({ pattern: { kind: 'custom', teeth: 36, missingPositions: [17, 35] }, duty: 0.5, mount: 'crank', stroke: 4, intervals: [720], toothAtTdc: 19, windowFromBtdc: 45, windowToBtdc: 0 });
+		expect(model.clearances).toEqual([0]);
+		const text = await sheetText({ buildName: 'Two gaps', pattern: 'custom', teeth: '36', gaps: '17,35', od: '100', depth: '5', bore: '20', toothAtTdc: '19', layout: 'single-4' });
+		expect(text).toContain('Gaps in the pattern 2: missing position 17, position 35');
+		expect(text).toContain(`cyl 1 (TDC at 0°): ${model.clearances[0]}° (inside) from the 45°–0° BTDC spark window, nearest of the 2 gaps`);
+		expect(text).toContain('inside cylinder 1');
+		// At 200 rpm cranking one crank degree takes 60000 / (200 · 360) ms; each gap's open space is 1.5 pitches = 15°.
+		expect(text).toContain(`Gap at cranking ${(15 * 60000) / (200 * 360)} ms at 200 rpm (the shortest gap)`);
+	});
+
+	it('the same wheel clocked clear of the window shows the model’s clearance', async () => {
+		const model = modelClearances({ pattern: { kind: 'custom', teeth: 36, missingPositions: [17, 35] }, duty: 0.5, mount: 'crank', stroke: 4, intervals: [720], toothAtTdc: 9, windowFromBtdc: 45, windowToBtdc: 0 });
+		const text = await sheetText({ pattern: 'custom', teeth: '36', gaps: '17,35', od: '100', depth: '5', bore: '20', toothAtTdc: '9', layout: 'single-4' });
+		expect(model.clearances[0]).toBeGreaterThan(0);
+		expect(text).toContain(`cyl 1 (TDC at 0°): ${Math.round(model.clearances[0]!)}° from the`);
+	});
+
+	it('an N+1 cam wheel has no gap: the sheet says so instead of a cranking time', async () => {
+		expect(modelClearances({ pattern: { kind: 'extra', teeth: 24, extraAfter: 3 }, duty: 0.4, mount: 'cam', stroke: 4, intervals: [180, 180, 180, 180], toothAtTdc: 2, windowFromBtdc: 45, windowToBtdc: 0 }).gapRuns).toBe(0);
+		const text = await sheetText({ pattern: 'extra', teeth: '24', extraAfter: '3', duty: '0.4', mount: 'cam', od: '100', depth: '5', bore: '20', toothAtTdc: '2', layout: 'four-inline' });
+		expect(text).toContain('Gaps in the pattern none');
+		expect(text).toContain('Gap at cranking no gap on this wheel (it keeps its cam sync by the extra tooth)');
+		expect(text).toContain('Gap clearance no gap on this wheel');
+		expect(text).not.toMatch(/Gap at cranking [\d.]+ ms/);
 	});
 
 	it('refuses bad parameters of either part, naming them all at once', async () => {
