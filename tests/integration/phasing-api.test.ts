@@ -22,6 +22,19 @@ describe('GET /api/v1/phasing', () => {
 		expect(t360.warnings.map((w: { code: string }) => w.code)).not.toContain('gap-in-spark-window');
 	});
 
+	it('takes the wheel’s other patterns with the wheel’s names: every gap of 36-1-1, no gap on 24+1 (model: tests/support/phasing-model.ts)', async () => {
+		const model = modelClearances({ pattern: { kind: 'custom', teeth: 36, missingPositions: [17, 35] }, duty: 0.5, mount: 'crank', stroke: 4, intervals: [180, 540], toothAtTdc: 9, windowFromBtdc: 45, windowToBtdc: 0 });
+		const twoGaps = await (await get({ pattern: 'custom', teeth: '36', gaps: '17,35', toothAtTdc: '9', layout: 'twin-180' })).json();
+		twoGaps.gapClearanceDeg.forEach((c: { clearanceDeg: number }, k: number) => expect(Math.abs(c.clearanceDeg - model.clearances[k]!)).toBeLessThanOrEqual(0.05));
+		const cam = await (await get({ pattern: 'extra', teeth: '24', extraAfter: '3', duty: '0.4', mount: 'cam', toothAtTdc: '2', layout: 'four-inline' })).json();
+		expect(cam.gapAtCrankingMs).toBeNull();
+		const bad = await get({ pattern: 'custom', teeth: '36', gaps: '17,40', toothAtTdc: '9' });
+		expect(bad.status).toBe(400);
+		expect((await bad.json()).errors).toEqual({ gaps: 'gaps: positions 0 to 35 (got 40)' });
+		const kind = await get({ pattern: 'odd', teeth: '36', toothAtTdc: '9' });
+		expect((await kind.json()).errors).toEqual({ pattern: 'pattern: one of missing, custom, single, extra' });
+	});
+
 	it('suggests a clocking when given a target and where the key sits', async () => {
 		const body = await (await get({ teeth: '36', missing: '1', toothAtTdc: '9', target: '90', keyFromSensor: '30' })).json();
 		expect(body.clocking).toEqual({ targetDeg: 90, keyFromSensorDeg: 30, keywayAngleDeg: 120 });
