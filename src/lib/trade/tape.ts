@@ -77,7 +77,7 @@ export function tapeWarnings(spec: TapeSpec): string[] {
 }
 
 /** How a tape sits on paper (mm): strips stacked between a header and the calibration bars. */
-export const tapePage = { marginMm: 12, headerMm: 26, footerMm: 26, stripHeightMm: 24, rowGapMm: 7, overlapMm: 12 } as const;
+export const tapePage = { marginMm: 12, headerMm: 40, footerMm: 22, stripHeightMm: 24, rowGapMm: 7, overlapMm: 12 } as const;
 
 /** The strips a tape prints as on a paper size, with their pages. */
 export function tapeStrips(spec: TapeSpec, paper: Paper): Strip[] {
