@@ -40,7 +40,7 @@ describe('tape preview against the turning engine (Chromium)', () => {
 	] as const)('%s, %s mm hub, window %s: the drawn label under the pointer reads θ BTDC before TDC, θ ATDC after', async (rotation, diameter, window, diameterMm) => {
 		const context = await browser.newContext();
 		const page = await context.newPage();
-		await page.goto(`${baseUrl}/tape?${new URLSearchParams({ units: 'mm', diameter, window, rotation, tick: '1', mid: '5', label: '10' })}`);
+		await page.goto(`${baseUrl}/tape?${new URLSearchParams({ units: 'mm', diameter, window, rotation, tick: '1', mid: '5', label: '10', timing: 'idle:15, full:32', tdc2: 'cyl 2:320' })}`);
 		const { texts, shaft, head } = await drawn(page);
 		const tdc = texts.find((t) => t.text === 'TDC');
 		expect(tdc, 'the TDC label').toBeDefined();
@@ -69,6 +69,18 @@ describe('tape preview against the turning engine (Chromium)', () => {
 			checked++;
 		}
 		expect(checked).toBeGreaterThanOrEqual(9);
+
+		// The marks, drawn centred on their lines: spec timings 15° and 32° BTDC, and cylinder 2's TDC
+		// 320° after cylinder 1's, which the turning engine brings under the pointer 40° before it.
+		for (const [text, crank] of [
+			['idle 15°', -15],
+			['full 32°', -32],
+			['cyl 2', 320]
+		] as const) {
+			const mark = texts.find((t) => t.text === text);
+			expect(mark, text).toBeDefined();
+			expect(Math.abs(mark!.x - tdc!.x - underPointer(engine, crank)), text).toBeLessThan(0.3);
+		}
 
 		// The arrow: as the crank turns on, the point under the pointer moves along the tape the other
 		// way from the tape's own motion.
