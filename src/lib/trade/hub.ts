@@ -39,5 +39,5 @@ export const faceClockwiseDeg = (rotation: Rotation, atdcDeg: number): number =>
 /** The direction of travel in words, for prints and answers a person checks against the engine. */
 export function travelWords(rotation: Rotation): string {
 	const toward = btdcSide(rotation);
-	return `Crank turning ${rotation === 'cw' ? 'clockwise' : 'anticlockwise'} seen from the wheel side: the tape moves ${toward === 'right' ? 'left to right' : 'right to left'} past the pointer, so BTDC numbers sit to the ${toward} of 0 and reach the pointer first.`;
+	return `Crank turning ${rotation === 'cw' ? 'clockwise' : 'counter-clockwise'} seen from the wheel side: the tape moves ${toward === 'right' ? 'left to right' : 'right to left'} past the pointer, so BTDC numbers sit to the ${toward} of 0 and reach the pointer first.`;
 }

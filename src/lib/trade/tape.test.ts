@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest';
+import { underPointer } from '../../../tests/support/turning-engine';
 import { mmPerDegree, tapeX, ticks, tile, type TapeSpec } from './tape';
 
 const spec = (over: Partial<TapeSpec> = {}): TapeSpec => ({
@@ -20,10 +21,30 @@ describe('degree tape scale', () => {
 		expect(mmPerDegree(spec())).toBeCloseTo((Math.PI * 76.3) / 360, 12);
 	});
 
-	it('puts BTDC on the side that reaches the pointer first', () => {
-		// Clockwise seen from the tape side: the tape moves left to right at the pointer, BTDC left of TDC.
-		expect(tapeX(spec(), -10)).toBeLessThan(tapeX(spec(), 0));
-		expect(tapeX(spec({ rotation: 'ccw' }), -10)).toBeGreaterThan(tapeX(spec({ rotation: 'ccw' }), 0));
+	// The turning-engine model (tests/support/turning-engine.ts, rigid rotation of the hub past a
+	// fixed pointer) says which tape point is under the pointer at each crank angle; tapeX must put
+	// that crank angle's tick there, measured from the tick at TDC, for both rotations and wherever
+	// the pointer sits round the rim.
+	it('puts each crank angle where the turning engine brings it under the pointer', () => {
+		for (const rotation of ['cw', 'ccw'] as const) {
+			for (const hubDiameterMm of [40, 76.2, 300]) {
+				const s = spec({ rotation, hubDiameterMm, windowDeg: 180 });
+				for (const pointerAtDeg of [90, 0, 210]) {
+					for (const crank of [-170, -45, -10, -1, 0, 1, 10, 45, 170]) {
+						const expected = underPointer({ hubDiameterMm, paperThicknessMm: 0.1, rotation, pointerAtDeg }, crank);
+						expect(tapeX(s, crank) - tapeX(s, 0)).toBeCloseTo(expected, 9);
+					}
+				}
+			}
+		}
+	});
+
+	it('10° BTDC is right of 0 on a clockwise crank, left on an anticlockwise one', () => {
+		// Worked by hand on the model: clockwise seen from the wheel side, the top of the hub moves to
+		// the right; 10° before TDC the tape's 0 is still 10° short of the pointer, to its left.
+		expect(underPointer({ hubDiameterMm: 76.2, paperThicknessMm: 0.1, rotation: 'cw' }, -10)).toBeCloseTo(10 * mmPerDegree(spec()), 9);
+		expect(tapeX(spec(), -10)).toBeGreaterThan(tapeX(spec(), 0));
+		expect(tapeX(spec({ rotation: 'ccw' }), -10)).toBeLessThan(tapeX(spec({ rotation: 'ccw' }), 0));
 	});
 
 	it('ticks every degree, longer every 5, labelled every 10, zero at TDC', () => {

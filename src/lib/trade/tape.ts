@@ -2,14 +2,15 @@
 // Scale: arc length s = r·θ, so one degree is π·D/360 along the hub; the tape lies on its own
 // mid-thickness, so D is the hub diameter plus the paper thickness t (about 0.1 mm for office
 // paper, from memory).
+import { tapeOffsetDeg, type Rotation } from './hub';
 import { papers, type Paper } from './paper';
 
 export interface TapeSpec {
 	/** Hub diameter, mm (from a measured circumference C: D = C/π). */
 	hubDiameterMm: number;
 	paperThicknessMm: number;
-	/** Crank rotation seen from the tape side. */
-	rotation: 'cw' | 'ccw';
+	/** Crank rotation seen from the wheel side (hub.ts: how the tape sits on the engine). */
+	rotation: Rotation;
 	/** Degrees shown each side of TDC; 180 = the full circle. */
 	windowDeg: number;
 	/** Degrees between ticks; every `midEvery`-th tick is longer, every `labelEvery` degrees labelled. */
@@ -26,14 +27,16 @@ export const mmPerDegree = (spec: Pick<TapeSpec, 'hubDiameterMm' | 'paperThickne
 export const diameterFromCircumference = (circumferenceMm: number) => circumferenceMm / Math.PI;
 
 /**
- * Where a crank angle sits along the tape, mm from the tape's left end. Angles are degrees ATDC
- * (BTDC negative). Read with the print upright at the pointer: a clockwise crank carries the tape
- * from left to right past the pointer, so the BTDC side, which arrives first, is on the left.
+ * Where a crank angle sits along the tape, mm from the tape's left end as printed and read
+ * upright. Angles are degrees ATDC (BTDC negative); which side of 0 BTDC takes is hub.ts's.
  */
 export function tapeX(spec: TapeSpec, atdcDeg: number): number {
-	const side = spec.rotation === 'cw' ? 1 : -1;
-	return (spec.windowDeg + side * atdcDeg) * mmPerDegree(spec);
+	return (spec.windowDeg + tapeOffsetDeg(spec.rotation, atdcDeg)) * mmPerDegree(spec);
 }
+
+/** How to fit the printed tape on the engine, in words (the PDF, the page and the API say it). */
+export const fittingWords =
+	'Fit the tape on the rim of the timing hub, printed side out, its top edge (the header side of the print) toward the engine and its bottom edge toward the wheel face, so that it reads upright from where you stand at the wheel.';
 
 export const tapeLengthMm = (spec: TapeSpec) => 2 * spec.windowDeg * mmPerDegree(spec);
 
@@ -74,7 +77,7 @@ export function tapeWarnings(spec: TapeSpec): string[] {
 }
 
 /** How a tape sits on paper (mm): strips stacked between a header and the calibration bars. */
-export const tapePage = { marginMm: 12, headerMm: 26, footerMm: 26, stripHeightMm: 24, rowGapMm: 7, overlapMm: 12 } as const;
+export const tapePage = { marginMm: 12, headerMm: 40, footerMm: 22, stripHeightMm: 24, rowGapMm: 7, overlapMm: 12 } as const;
 
 /** The strips a tape prints as on a paper size, with their pages. */
 export function tapeStrips(spec: TapeSpec, paper: Paper): Strip[] {

@@ -1,5 +1,7 @@
 // The timing-light card: for each engine speed, the advance the ECU should give and where the
-// mark must then appear on the hub's tape (degrees BTDC and distance from TDC along the tape).
+// mark must then appear on the hub's tape (degrees BTDC, distance from TDC along the tape and on
+// which side of it, as hub.ts places BTDC).
+import { tapeOffsetDeg, type Rotation } from './hub';
 import { mmPerDegree } from './tape';
 
 export interface AdvancePoint {
@@ -21,10 +23,18 @@ export const exampleCurve: AdvancePoint[] = [
 ];
 
 export interface CardRow extends AdvancePoint {
+	/** Distance along the tape from its TDC line, mm, never negative. */
 	fromTdcMm: number;
+	/** The side of the TDC line, the tape read upright; null at TDC. */
+	side: 'left' | 'right' | null;
 }
 
-export function timingRows(points: AdvancePoint[], hub: { hubDiameterMm: number; paperThicknessMm: number }): CardRow[] {
+export function timingRows(points: AdvancePoint[], hub: { hubDiameterMm: number; paperThicknessMm: number; rotation: Rotation }): CardRow[] {
 	const k = mmPerDegree(hub);
-	return [...points].sort((a, b) => a.rpm - b.rpm).map((p) => ({ ...p, fromTdcMm: Math.round(p.advanceDeg * k * 100) / 100 }));
+	return [...points]
+		.sort((a, b) => a.rpm - b.rpm)
+		.map((p) => {
+			const offset = tapeOffsetDeg(hub.rotation, -p.advanceDeg);
+			return { ...p, fromTdcMm: Math.round(Math.abs(offset) * k * 100) / 100, side: offset === 0 ? null : offset > 0 ? 'right' : 'left' };
+		});
 }

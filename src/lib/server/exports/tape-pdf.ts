@@ -1,11 +1,12 @@
 // The degree tape as a PDF to print at actual size: strips stacked on the page, tiled over pages
 // with overlap and join marks when the hub is large, calibration bars on every page.
-import { mmPerDegree, tapePage, tapeStrips, tapeWarnings, tapeX, ticks, type TapeSpec } from '$lib/trade/tape';
+import { btdcSide, tapeTravel, travelWords, type Rotation } from '$lib/trade/hub';
+import { fittingWords, mmPerDegree, tapePage, tapeStrips, tapeWarnings, tapeX, ticks, type Strip, type TapeSpec } from '$lib/trade/tape';
 import { formatLength, type Units } from '$lib/trade/units';
 import { calibrationBars, finish, mm, newDocument, papers, printNote } from './pdf-kit';
 import { keyOf, Recent } from './recent';
 
-const { marginMm: margin, headerMm: header, footerMm: footer, stripHeightMm: stripHeight, rowGapMm: rowGap, overlapMm } = tapePage;
+const { marginMm: margin, headerMm: header, footerMm: footer, stripHeightMm: stripHeight, rowGapMm: rowGap } = tapePage;
 
 /** Recent tapes by what makes them (see recent.ts); kept as promises so identical requests share one. */
 const recent = new Recent<Promise<Buffer>>(32);
@@ -20,6 +21,9 @@ export function tapePdf(spec: TapeSpec, units: Units, paper: keyof typeof papers
 	return made;
 }
 
+/** Where two neighbouring strips line up: the middle of the stretch both print. */
+const joinMm = (strips: Strip[], i: number) => (strips[i + 1]!.fromMm + strips[i]!.toMm) / 2;
+
 async function drawTape(spec: TapeSpec, units: Units, paper: keyof typeof papers): Promise<Buffer> {
 	const size = papers[paper];
 	const k = mmPerDegree(spec);
@@ -28,31 +32,37 @@ async function drawTape(spec: TapeSpec, units: Units, paper: keyof typeof papers
 	const all = ticks(spec);
 	const doc = newDocument(`Degree tape, ${formatLength(spec.hubDiameterMm, units)} hub`, size);
 	const side = (atdc: number) => (Math.abs(atdc) < 1e-9 ? 'TDC' : atdc < 0 ? 'BTDC' : 'ATDC');
-	const direction = spec.rotation === 'cw' ? 'left to right' : 'right to left';
+	const textWidth = size.widthMm - 2 * margin - fitting.widthMm - 4;
 
 	for (let page = 1; page <= pages; page++) {
 		if (page > 1) doc.addPage({ size: [mm(size.widthMm), mm(size.heightMm)], margin: 0 });
-		doc.font('bold').fontSize(11).fillColor('black').text(`Degree tape: ${formatLength(spec.hubDiameterMm, units)} hub, ${(units === 'in' ? k / 25.4 : k).toFixed(4)} ${units} per degree`, mm(margin), mm(margin), { lineBreak: false });
-		doc.font('text').fontSize(7.5).text(printNote, mm(margin), mm(margin + 6), { lineBreak: false });
-		doc.text(`Crank turns ${spec.rotation === 'cw' ? 'clockwise' : 'counter-clockwise'} seen from the tape side: the tape passes the pointer ${direction}, so BTDC comes first. Page ${page} of ${pages}; cut along the dashed lines and join the strips in order.`, mm(margin), mm(margin + 10), { width: mm(size.widthMm - 2 * margin) });
-		tapeWarnings(spec).forEach((w, i) => doc.fillColor('#8a5200').text(w, mm(margin), mm(margin + 17 + i * 3.5), { lineBreak: false }));
+		doc.font('bold').fontSize(11).fillColor('black').text(`Degree tape: ${formatLength(spec.hubDiameterMm, units)} hub, ${(units === 'in' ? k / 25.4 : k).toFixed(4)} ${units} per degree`, mm(margin), mm(margin), { width: mm(textWidth) });
+		doc.font('text').fontSize(7).text(printNote, mm(margin), doc.y + 2, { width: mm(textWidth) });
+		doc.text(`${fittingWords} ${travelWords(spec.rotation)}`, mm(margin), doc.y + 2, { width: mm(textWidth) });
+		doc.text(`Page ${page} of ${pages}. Cut along the dashed lines; glue each strip's end over the grey end of the next strip, their join marks one on the other.`, mm(margin), doc.y + 2, { width: mm(textWidth) });
+		tapeWarnings(spec).forEach((w) => doc.fillColor('#8a5200').text(w, mm(margin), doc.y + 1, { width: mm(textWidth) }));
+		fittingDiagram(doc, spec.rotation, size.widthMm - margin - fitting.widthMm, margin);
 
 		strips.filter((s) => s.page === page).forEach((strip, row) => {
 			const top = margin + header + row * (stripHeight + rowGap);
 			const width = strip.toMm - strip.fromMm;
 			const x = (tapeMm: number) => mm(margin + tapeMm - strip.fromMm);
+			const i = strip.index - 1;
 			doc.save().lineWidth(0.3).dash(2, { space: 1.5 }).strokeColor('#888').rect(mm(margin), mm(top), mm(width), mm(stripHeight)).stroke().undash().restore();
-			if (strip.index > 1) {
-				// The overlap: glue the previous strip's end over it, lining up the join marks.
-				doc.save().fillColor('#eeeeee').rect(mm(margin), mm(top), mm(overlapMm), mm(stripHeight)).fill().restore();
-				doc.font('text').fontSize(5).fillColor('#555').text(`glue strip ${strip.index - 1} here`, mm(margin + 0.5), mm(top + stripHeight - 4), { width: mm(overlapMm - 1), lineBreak: false });
-				doc.save().fillColor('black').polygon([x(strip.fromMm + overlapMm), mm(top + stripHeight)], [x(strip.fromMm + overlapMm) - mm(1.2), mm(top + stripHeight + 2)], [x(strip.fromMm + overlapMm) + mm(1.2), mm(top + stripHeight + 2)]).fill().restore();
+			// Join marks: the same tape point on both strips of a join, so lining them up lines up the scale.
+			const joinMark = (at: number, join: number) => {
+				doc.save().fillColor('black').polygon([x(at), mm(top + stripHeight)], [x(at) - mm(1.2), mm(top + stripHeight + 2)], [x(at) + mm(1.2), mm(top + stripHeight + 2)]).fill().restore();
+				doc.font('text').fontSize(5.5).fillColor('black').text(`join ${join}`, x(at) - mm(6), mm(top + stripHeight + 2.5), { width: mm(12), align: 'center', lineBreak: false });
+			};
+			if (i > 0) {
+				// The overlap: the previous strip's end is glued over it.
+				doc.save().fillColor('#eeeeee').rect(mm(margin), mm(top), mm(strips[i - 1]!.toMm - strip.fromMm), mm(stripHeight)).fill().restore();
+				doc.font('text').fontSize(5).fillColor('#555').text(`glue strip ${i} here`, mm(margin + 0.5), mm(top + stripHeight - 4), { lineBreak: false });
+				joinMark(joinMm(strips, i - 1), i);
 			}
-			if (strip.index < strips.length) {
-				const joinAt = x(strip.toMm - overlapMm);
-				doc.save().fillColor('black').polygon([joinAt, mm(top + stripHeight)], [joinAt - mm(1.2), mm(top + stripHeight + 2)], [joinAt + mm(1.2), mm(top + stripHeight + 2)]).fill().restore();
-			}
-			doc.font('text').fontSize(5.5).fillColor('#555').text(`strip ${strip.index} of ${strips.length}`, mm(margin), mm(top + stripHeight + 2.5), { lineBreak: false });
+			if (i < strips.length - 1) joinMark(joinMm(strips, i), i + 1);
+			const labelAt = i > 0 ? strips[i - 1]!.toMm - strip.fromMm + 1 : 0;
+			doc.font('text').fontSize(5.5).fillColor('#555').text(`strip ${strip.index} of ${strips.length}`, mm(margin + labelAt), mm(top + stripHeight + 2.5), { lineBreak: false });
 
 			doc.lineWidth(0.25).strokeColor('black').fillColor('black').font('mono').fontSize(7);
 			for (const t of all) {
@@ -81,8 +91,84 @@ async function drawTape(spec: TapeSpec, units: Units, paper: keyof typeof papers
 				doc.fillColor('black');
 			}
 		});
-		doc.font('text').fontSize(6.5).fillColor('black').text('Engine off and ignition off while fitting the tape. Verify timing with a timing light before load; keep hands and leads clear of the pulley.', mm(margin), mm(size.heightMm - margin - footer + 2), { width: mm(size.widthMm - 2 * margin) });
+		doc.font('text').fontSize(6.5).fillColor('black').text('Engine off and ignition off while fitting the tape. Verify timing with a timing light before load; keep hands and leads clear of the pulley.', mm(margin), mm(size.heightMm - margin - footer + 1), { width: mm(size.widthMm - 2 * margin), lineBreak: false });
 		calibrationBars(doc, margin, size.heightMm - margin - 12);
 	}
 	return finish(doc);
+}
+
+/** The fitting diagram's box, mm. */
+const fitting = { widthMm: 72, heightMm: 38 } as const;
+
+/**
+ * How the tape goes on, drawn for this rotation: the hub seen from the wheel side with the
+ * pointer, the way it turns and the side BTDC takes; and the tape at the pointer, its top edge
+ * toward the engine, its bottom edge toward the wheel face, with the way it moves. No numbers, so
+ * nothing here reads as a tape label.
+ */
+function fittingDiagram(doc: PDFKit.PDFDocument, rotation: Rotation, left: number, top: number) {
+	const P = (v: number) => mm(v);
+	const travel = tapeTravel(rotation);
+	const btdc = btdcSide(rotation);
+	doc.save().lineWidth(0.3).strokeColor('#888').rect(P(left), P(top), P(fitting.widthMm), P(fitting.heightMm)).stroke();
+
+	// The hub from the wheel side: pointer at the top, the tape on the rim, the crank's sense of rotation.
+	const cx = left + 15;
+	const cy = top + 19;
+	const r = 9;
+	const at = (deg: number, radius: number): [number, number] => [P(cx + radius * Math.cos((deg * Math.PI) / 180)), P(cy - radius * Math.sin((deg * Math.PI) / 180))];
+	doc.lineWidth(0.5).strokeColor('black').circle(P(cx), P(cy), P(r)).stroke();
+	doc.circle(P(cx), P(cy), P(1.2)).fill('black');
+	// The tape on the rim round the pointer.
+	doc.lineWidth(P(1.2)).strokeColor('#bbbbbb');
+	doc.path(`M ${at(150, r + 0.7).join(' ')} A ${P(r + 0.7)} ${P(r + 0.7)} 0 0 1 ${at(30, r + 0.7).join(' ')}`).stroke();
+	doc.lineWidth(0.3).strokeColor('black');
+	doc.polygon([P(cx), P(cy - r - 1.6)], [P(cx - 1.3), P(cy - r - 4)], [P(cx + 1.3), P(cy - r - 4)]).fill('black');
+	doc.font('text').fontSize(5).fillColor('black').text('pointer', P(cx + 1.8), P(cy - r - 4.6), { lineBreak: false });
+	// Rotation arrow inside the hub.
+	const a0 = 120;
+	const a1 = 60;
+	const [from, to] = travel === 1 ? [a0, a1] : [a1, a0];
+	doc.lineWidth(0.5).strokeColor('black').path(`M ${at(from, 5.5).join(' ')} A ${P(5.5)} ${P(5.5)} 0 0 ${travel === 1 ? 1 : 0} ${at(to, 5.5).join(' ')}`).stroke();
+	const tip = at(to - travel * 14, 5.5);
+	const b1 = at(to, 4.2);
+	const b2 = at(to, 6.8);
+	doc.polygon(tip, b1, b2).fill('black');
+	doc.font('bold').fontSize(5).fillColor('#8a5200');
+	// BTDC beside the tape's end ahead of the pointer in the sense of rotation, ATDC beside the other.
+	const rightEnd = at(38, r + 2.4);
+	const leftEnd = at(142, r + 2.4);
+	const words = btdc === 'right' ? (['ATDC', 'BTDC'] as const) : (['BTDC', 'ATDC'] as const);
+	doc.fillColor(words[0] === 'BTDC' ? '#8a5200' : 'black').text(words[0], leftEnd[0] - P(8), leftEnd[1] - P(2), { width: P(8), align: 'right', lineBreak: false });
+	doc.fillColor(words[1] === 'BTDC' ? '#8a5200' : 'black').text(words[1], rightEnd[0], rightEnd[1] - P(2), { lineBreak: false });
+	doc.font('text').fontSize(5).fillColor('black').text(`seen from the wheel side, turning ${rotation === 'cw' ? 'clockwise' : 'counter-clockwise'}`, P(left + 1), P(top + fitting.heightMm - 4.5), { width: P(30), align: 'center' });
+
+	// The tape at the pointer, looking at the rim: engine beyond, wheel face toward you.
+	const bx = left + 33;
+	const bw = fitting.widthMm - 35;
+	doc.rect(P(bx), P(top + 2), P(bw), P(4)).fill('#dddddd');
+	doc.fillColor('black').font('bold').fontSize(5.5).text('ENGINE', P(bx), P(top + 2.8), { width: P(bw), align: 'center', lineBreak: false });
+	const tx = bx + bw / 2;
+	doc.polygon([P(tx), P(top + 9.5)], [P(tx - 1.3), P(top + 6.5)], [P(tx + 1.3), P(top + 6.5)]).fill('black');
+	const tapeTop = top + 9.5;
+	const tapeH = 9;
+	doc.lineWidth(0.4).strokeColor('black').rect(P(bx + 1), P(tapeTop), P(bw - 2), P(tapeH)).stroke();
+	for (let d = -7; d <= 7; d++) {
+		const xx = tx + d * 2.2;
+		doc.lineWidth(d === 0 ? 0.6 : 0.25).moveTo(P(xx), P(tapeTop)).lineTo(P(xx), P(tapeTop + (d === 0 ? 3.5 : d % 5 === 0 ? 2.5 : 1.5))).stroke();
+	}
+	doc.font('bold').fontSize(4.5).text('TDC', P(tx - 3), P(tapeTop + 3.4), { width: P(6), align: 'center', lineBreak: false });
+	doc.font('bold').fontSize(4.5).fillColor('#8a5200').text('BTDC', P(btdc === 'right' ? tx + 5 : tx - 13), P(tapeTop + 3.4), { width: P(8), align: 'center', lineBreak: false });
+	doc.fillColor('black').text('ATDC', P(btdc === 'right' ? tx - 13 : tx + 5), P(tapeTop + 3.4), { width: P(8), align: 'center', lineBreak: false });
+	doc.font('text').fontSize(4.5).text('top edge (header side) toward the engine', P(bx), P(tapeTop + tapeH - 2.9), { width: P(bw), align: 'center', lineBreak: false });
+	// The way the tape moves past the pointer.
+	const ay = tapeTop + tapeH + 3;
+	const half = bw / 2 - 5;
+	const [ax0, ax1] = [tx - travel * half, tx + travel * half];
+	doc.lineWidth(0.6).moveTo(P(ax0), P(ay)).lineTo(P(ax1 - travel * 1.8), P(ay)).stroke();
+	doc.polygon([P(ax1), P(ay)], [P(ax1 - travel * 2.2), P(ay - 1.2)], [P(ax1 - travel * 2.2), P(ay + 1.2)]).fill('black');
+	doc.font('text').fontSize(5).text('tape moves this way', P(bx), P(ay + 1.6), { width: P(bw), align: 'center', lineBreak: false });
+	doc.rect(P(bx), P(ay + 5), P(bw), P(4)).fill('#eef3ff');
+	doc.fillColor('black').font('bold').fontSize(5.5).text('WHEEL FACE: YOU', P(bx), P(ay + 5.8), { width: P(bw), align: 'center', lineBreak: false });
+	doc.restore();
 }

@@ -1,30 +1,32 @@
 // The timing-light card: a table to take to the engine of where the mark should appear at each
 // speed, on this hub's tape.
-import { mmPerDegree } from '$lib/trade/tape';
+import { travelWords, type Rotation } from '$lib/trade/hub';
+import { fittingWords, mmPerDegree } from '$lib/trade/tape';
 import type { CardRow } from '$lib/trade/timing';
 import { formatLength, fromMm, type Units } from '$lib/trade/units';
 import { calibrationBars, finish, mm, newDocument, papers, printNote } from './pdf-kit';
 
 const margin = 15;
 
-export async function timingCardPdf(rows: CardRow[], hub: { hubDiameterMm: number; paperThicknessMm: number }, rotation: 'cw' | 'ccw', units: Units, paper: keyof typeof papers): Promise<Buffer> {
+export async function timingCardPdf(rows: CardRow[], hub: { hubDiameterMm: number; paperThicknessMm: number }, rotation: Rotation, units: Units, paper: keyof typeof papers): Promise<Buffer> {
 	const size = papers[paper];
 	const doc = newDocument('Timing-light card', size);
 	const k = mmPerDegree(hub);
 	doc.font('bold').fontSize(14).text('Timing-light card', mm(margin), mm(margin));
-	doc.font('text').fontSize(8.5).text(`Hub ${formatLength(hub.hubDiameterMm, units)}, ${formatLength(k, units)} per degree on the tape; crank turns ${rotation === 'cw' ? 'clockwise' : 'counter-clockwise'} seen from the tape side. ${printNote}`, mm(margin), mm(margin + 8), { width: mm(size.widthMm - 2 * margin) });
+	doc.font('text').fontSize(8.5).text(`Hub ${formatLength(hub.hubDiameterMm, units)}, ${formatLength(k, units)} per degree on the tape. ${travelWords(rotation)} Left and right below are as you read the tape upright. ${printNote}`, mm(margin), mm(margin + 8), { width: mm(size.widthMm - 2 * margin) });
+	doc.fontSize(7.5).text(fittingWords, { width: mm(size.widthMm - 2 * margin) });
 
-	const cols = [margin, margin + 35, margin + 80, margin + 125];
-	let y = margin + 24;
+	const cols = [margin, margin + 30, margin + 62, margin + 135];
+	let y = Math.max(margin + 30, doc.y / mm(1) + 5);
 	doc.font('bold').fontSize(9);
-	['Engine speed', 'Mark at', 'From TDC on the tape', ''].forEach((h, i) => doc.text(h, mm(cols[i]!), mm(y), { lineBreak: false }));
+	['Engine speed', 'Mark at', 'Pointer on the tape', ''].forEach((h, i) => doc.text(h, mm(cols[i]!), mm(y), { lineBreak: false }));
 	y += 6;
 	doc.lineWidth(0.4).moveTo(mm(margin), mm(y - 1.5)).lineTo(mm(size.widthMm - margin), mm(y - 1.5)).stroke();
 	for (const r of rows) {
 		doc.font('mono').fontSize(10);
 		doc.text(`${r.rpm} rpm`, mm(cols[0]!), mm(y), { lineBreak: false });
-		doc.text(`${r.advanceDeg}° ${r.advanceDeg >= 0 ? 'BTDC' : 'ATDC'}`, mm(cols[1]!), mm(y), { lineBreak: false });
-		doc.text(`${fromMm(Math.abs(r.fromTdcMm), units).toFixed(units === 'in' ? 3 : 1)} ${units}`, mm(cols[2]!), mm(y), { lineBreak: false });
+		doc.text(r.advanceDeg === 0 ? 'TDC' : `${Math.abs(r.advanceDeg)}° ${r.advanceDeg > 0 ? 'BTDC' : 'ATDC'}`, mm(cols[1]!), mm(y), { lineBreak: false });
+		doc.text(r.side ? `${fromMm(r.fromTdcMm, units).toFixed(units === 'in' ? 3 : 1)} ${units} ${r.side} of TDC` : 'on the TDC line', mm(cols[2]!), mm(y), { lineBreak: false });
 		doc.font('text').fontSize(8).text('checked: ____', mm(cols[3]!), mm(y + 0.5), { lineBreak: false });
 		y += 7.5;
 	}

@@ -1,7 +1,8 @@
 import { json } from '@sveltejs/kit';
 import { parseTape } from '$lib/schemas/tape';
 import { refuse } from '$lib/server/api';
-import { mmPerDegree, tapeLengthMm, tapeStrips, tapeWarnings } from '$lib/trade/tape';
+import { btdcSide, travelWords } from '$lib/trade/hub';
+import { fittingWords, mmPerDegree, tapeLengthMm, tapeStrips, tapeWarnings } from '$lib/trade/tape';
 import { fromMm } from '$lib/trade/units';
 
 export function GET({ url }) {
@@ -16,6 +17,11 @@ export function GET({ url }) {
 		perDegree: r(fromMm(mmPerDegree(spec), units)),
 		length: r(fromMm(tapeLengthMm(spec), units)),
 		windowDeg: spec.windowDeg,
+		rotation: spec.rotation,
+		// Where BTDC lies, said as the print says it, for a person to check against the printed tape.
+		btdcSide: btdcSide(spec.rotation),
+		sides: travelWords(spec.rotation),
+		fitting: fittingWords,
 		paper,
 		strips: strips.length,
 		pages: strips.at(-1)!.page,

@@ -7,5 +7,5 @@ export async function GET({ url }) {
 	const parsed = parseCard(Object.fromEntries(url.searchParams));
 	if (!parsed.ok) return refuse(parsed.errors);
 	const { hub, points, rotation, units, paper } = parsed.value;
-	return fileResponse(await timingCardPdf(timingRows(points, hub), hub, rotation, units, paper), 'application/pdf', 'timing-light-card.pdf');
+	return fileResponse(await timingCardPdf(timingRows(points, { ...hub, rotation }), hub, rotation, units, paper), 'application/pdf', 'timing-light-card.pdf');
 }
