@@ -54,7 +54,7 @@ describe('the etched label', () => {
 		expect(f.kinds).not.toContain('TEXT');
 		expect(f.kinds).not.toContain('MTEXT');
 		expect(f.kindsByLayer['LINE@ETCH']).toBeGreaterThan(100);
-		const [x0, y0, x1, y1] = f.etchBox!.map((v) => v * k);
+		const [x0, y0, x1, y1] = f.etchBox!.map((v) => v * k) as [number, number, number, number];
 		// Curves are flattened to within 4 font units (0.006 mm at a 4 mm cap height).
 		expect(Math.abs(x1 - x0 - ink.width)).toBeLessThan(0.02);
 		expect(Math.abs(y1 - y0 - ink.height)).toBeLessThan(0.02);
