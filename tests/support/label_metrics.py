@@ -27,4 +27,9 @@ for ch in text:
         x0, y0, x1, y1 = pen.bounds
         box = [min(box[0], pen_x + x0), min(box[1], y0), max(box[2], pen_x + x1), max(box[3], y1)]
     pen_x += font["hmtx"][name][0]
-print(json.dumps({"width": (box[2] - box[0]) * scale, "height": (box[3] - box[1]) * scale, "missing": missing}))
+inked = box[0] <= box[2]
+print(json.dumps({
+    "width": (box[2] - box[0]) * scale if inked else 0,
+    "height": (box[3] - box[1]) * scale if inked else 0,
+    "missing": missing,
+}))
