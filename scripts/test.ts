@@ -19,6 +19,7 @@ export const chromiumPath = '/usr/bin/chromium';
 const referenceTools = [
 	{ pkg: 'chromium', present: () => existsSync(chromiumPath) },
 	{ pkg: 'python3-ezdxf', present: () => spawnSync('/usr/bin/python3', ['-c', 'import ezdxf']).status === 0 },
+	{ pkg: 'python3-fonttools', present: () => spawnSync('/usr/bin/python3', ['-c', 'import fontTools']).status === 0 },
 	{ pkg: 'poppler-utils', present: () => existsSync('/usr/bin/pdfinfo') && existsSync('/usr/bin/pdftotext') },
 	{ pkg: 'librecad', present: () => existsSync('/usr/bin/librecad') }
 ];

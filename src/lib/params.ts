@@ -1,11 +1,24 @@
 // Helpers for the tools' forms, which keep their inputs as flat strings named like the public API.
 import { fromMm, parseLength, toMm, type Units } from './trade/units';
+import type { HoleCircle } from './trade/wheel';
 
 export type Params = Record<string, string>;
 
 /** A length as it goes back into a text field: mm to 0.01, inches to 0.0001, no trailing zeros. */
 export function lengthText(mm: number, units: Units): string {
 	return String(Number(fromMm(mm, units).toFixed(units === 'in' ? 4 : 2)));
+}
+
+/** The balance-hole fields for holes given in mm: what "Add balance holes" writes into the design. */
+export function balanceParams(h: HoleCircle, units: Units): Params {
+	const angle = (d: number) => String(Number(d.toFixed(2)));
+	return {
+		balanceCount: String(h.count),
+		balancePcd: lengthText(h.pcdMm, units),
+		balanceHole: lengthText(h.holeMm, units),
+		balanceAngle: angle(h.clockDeg),
+		balanceSpacing: h.spacingDeg === undefined ? '' : angle(h.spacingDeg)
+	};
 }
 
 /** A message keyed by field says the field's name first; beside the field that is said already. */

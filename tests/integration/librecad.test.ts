@@ -49,3 +49,28 @@ describe('LibreCAD opens the DXF and prints it at true size', () => {
 		expect(extent.height / 10).toBeCloseTo(odMm, 0);
 	});
 });
+
+describe('LibreCAD draws the etched label the size the font file gives', () => {
+	it('a 36-1 labelled "Müller Ø 60-2": the label is as wide as fontTools sets it at a 4 mm cap height', async () => {
+		const label = 'Müller Ø 60-2';
+		const params = { teeth: '36', missing: '1', od: '100', depth: '5', bore: '20', mark: 'none', label, units: 'mm' };
+		const res = await fetch(`${process.env.APP_URL}/api/v1/wheel.dxf?${new URLSearchParams(params)}`);
+		expect(res.status).toBe(200);
+		const dxf = join(dir, 'label.dxf');
+		writeFileSync(dxf, Buffer.from(await res.arrayBuffer()));
+		execFileSync('librecad', ['dxf2pdf', '-s', '1', '-c', dxf], { cwd: dir, env: { ...process.env, QT_QPA_PLATFORM: 'offscreen', XDG_RUNTIME_DIR: dir }, stdio: 'pipe' });
+		const pdf = join(dir, 'label.pdf');
+		const size = /Page size:\s+([\d.]+) x ([\d.]+) pts/.exec(execFileSync('pdfinfo', [pdf], { encoding: 'utf8' }))!;
+		const px = (pt: number) => Math.round((pt / 72) * 254);
+		// The label sits below the centre, across the web between the 10 mm bore and the 45 mm roots:
+		// a window 40 mm wide, 14 to 38 mm below the centre, holds it and nothing else (10 px per mm).
+		const [cx, cy] = [px(Number(size[1]) / 2), px(Number(size[2]) / 2)];
+		execFileSync('pdftoppm', ['-r', '254', '-gray', '-singlefile', '-x', String(cx - 200), '-y', String(cy + 140), '-W', '400', '-H', '240', pdf, join(dir, 'label')]);
+		const extent = inkExtent(readFileSync(join(dir, 'label.pgm')));
+		const font = join(import.meta.dirname, '..', '..', 'static', 'fonts', 'Inter-Regular.otf');
+		const ink = JSON.parse(execFileSync('/usr/bin/python3', [join(import.meta.dirname, '..', 'support', 'label_metrics.py'), font, label, '4'], { encoding: 'utf8' }));
+		// Within LibreCAD's line width and a pixel either side (0.3 mm); a TEXT entity in its own font came out about 40% wider.
+		expect(Math.abs(extent.width / 10 - ink.width)).toBeLessThan(0.3);
+		expect(Math.abs(extent.height / 10 - ink.height)).toBeLessThan(0.3);
+	});
+});

@@ -22,6 +22,7 @@ interface DxfFacts {
 	reach: number;
 	tipArcs: number;
 	flankAngles: number[];
+	etchBox: [number, number, number, number] | null;
 }
 
 /** Debian's python3-ezdxf reads the file back (tests/support/dxf_facts.py). */
@@ -85,8 +86,8 @@ describe('GET /api/v1/wheel (JSON)', () => {
 
 	it.each<[Record<string, string>, string, RegExp]>([
 		[{ teeth: '36', missing: '36', od: '100', depth: '5' }, 'missing', /at most 35/],
-		[{ teeth: '36', missing: '1', od: '100', depth: '45', bore: '20' }, 'depth', /less than 39\.50 mm/],
-		[{ teeth: '36', missing: '1', od: '100', depth: '5', bore: '20', bolts: '3', pcd: '30', boltHole: '12' }, 'pcd', /so the holes cut neither/],
+		[{ teeth: '36', missing: '1', od: '100', depth: '45', bore: '20' }, 'depth', /less than 39\.00 mm/],
+		[{ teeth: '36', missing: '1', od: '100', depth: '5', bore: '20', bolts: '3', pcd: '30', boltHole: '12' }, 'pcd', /so the holes keep 1\.00 mm from the bore, keyway and tooth roots/],
 		[{ teeth: '36', missing: '1', od: '100', depth: '5', bore: '20', keyway: 'din6885' }, 'shaft', /shaft diameter/],
 		// ANSI B17.2 lists its key numbers; 999, 1299 and 1650 are none of them.
 		[{ teeth: '36', missing: '1', od: '100', depth: '5', bore: '20', keyway: 'woodruff', woodruff: '999' }, 'woodruff', /one of the ANSI B17\.2 key numbers 202, 202\.5, .*1212/],
@@ -95,7 +96,7 @@ describe('GET /api/v1/wheel (JSON)', () => {
 		// B17.1's square keys stop at 6 1/2 in shafts; DIN 6885-1 at 500 mm.
 		[{ teeth: '36', missing: '1', od: '12', depth: '1/4', bore: '7', keyway: 'b17.1', shaft: '7', thickness: '1/4', units: 'in' }, 'shaft', /to 6\.500 in for ANSI B17\.1 square keys \(the standard's square-key sizes end there\)/],
 		[{ teeth: '36', missing: '1', od: '4', depth: '3/16', units: 'yards' }, 'units', /one of mm, in/],
-		// A line break in the label would end the DXF TEXT value and start group codes of its own (DXF reference: one value per line).
+		// One line of text: a line break or control character has no place in an etched label.
 		[{ teeth: '36', missing: '1', od: '100', depth: '5', label: 'R1\n  0\nLINE' }, 'label', /no line breaks/]
 	])('refuses an impossible wheel %#', async (params, field, message) => {
 		const res = await get('/api/v1/wheel.dxf', params);
@@ -120,7 +121,7 @@ describe('DXF for a cutting order, read back by ezdxf', () => {
 		expect(f.layers.CUT).toBeDefined();
 		expect(f.layers.ETCH).toBeDefined();
 		expect(f.layers.CUT).not.toBe(f.layers.ETCH);
-		expect(f.kinds.every((k) => ['LINE', 'ARC', 'CIRCLE', 'TEXT'].includes(k))).toBe(true);
+		expect(f.kinds.every((k) => ['LINE', 'ARC', 'CIRCLE'].includes(k))).toBe(true);
 		expect(f.openEnds).toBe(0);
 		// The tips reach the outside diameter; with rounded tip corners no tip needs to cross an axis,
 		// so the bounding box may fall short of it by less than a fillet.

@@ -1,6 +1,6 @@
 """Reads a DXF with ezdxf (Debian's python3-ezdxf, the reference reader) and prints what the
 tests check, as JSON: the audit, header units, layers, entity kinds, open chain ends, extents,
-and the tooth flanks and tips. Usage: /usr/bin/python3 dxf_facts.py FILE OD"""
+the tooth flanks and tips, and the box round the etched geometry. Usage: /usr/bin/python3 dxf_facts.py FILE OD"""
 import json
 import math
 import sys
@@ -62,6 +62,9 @@ for e in cut:
     if abs(((a0 - a1 + 180) % 360) - 180) < 1e-3 and max(math.hypot(x0, y0), math.hypot(x1, y1)) > od / 2 * 0.8:
         flanks.append(round(a0 % 360, 6))
 
+etch = [e for e in msp if e.dxf.layer == "ETCH"]
+etch_box = bbox.extents(etch) if etch else None
+
 print(json.dumps({
     "auditErrors": len(auditor.errors),
     "auditFixes": len(auditor.fixes),
@@ -74,4 +77,6 @@ print(json.dumps({
     "reach": reach,
     "tipArcs": len(tips),
     "flankAngles": sorted(flanks),
+    # Everything etched (index mark, label outlines): [x0, y0, x1, y1], or null.
+    "etchBox": [etch_box.extmin.x, etch_box.extmin.y, etch_box.extmax.x, etch_box.extmax.y] if etch_box else None,
 }))

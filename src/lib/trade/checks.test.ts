@@ -15,12 +15,12 @@ describe('refusals name the field and the range that would work', () => {
 
 	it('tooth roots must stay outside the bore and keyway', () => {
 		const [r] = refusals(exampleSpec({ depthMm: 42 }), 'mm');
-		expect(r).toEqual({ field: 'depth', message: 'depth: more than 0 and less than 39.50 mm, so the tooth roots stay outside the bore and keyway' });
+		expect(r).toEqual({ field: 'depth', message: 'depth: more than 0 and less than 39.00 mm, so the tooth roots keep 1.00 mm from the bore and keyway' });
 	});
 
 	it('ranges come in the caller\'s units', () => {
 		const [r] = refusals(exampleSpec({ depthMm: 42 }), 'in');
-		expect(r!.message).toContain('1.555 in');
+		expect(r!.message).toContain('1.535 in');
 	});
 
 	it('bolt holes must clear the bore and the roots, and each other', () => {

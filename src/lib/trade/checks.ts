@@ -3,7 +3,9 @@
 import { patternRefusals, pitchDeg } from './pattern';
 import { permissibleUnbalanceGmm, unbalanceForceN, type MassProperties } from './balance';
 import { deg, formatLength, type Units } from './units';
-import { gapOpenings, holeCenters, rootRadius, type HoleCircle, type WheelSpec } from './wheel';
+import { circleClear, clearOfHole, clearOfLabel, holeBand } from './clearance';
+import { characterName, labelShape, missingCharacters } from './label';
+import { clearanceMm, gapOpenings, holeCenters, innerRadius, minLabelHeightMm, placeLabel, rootRadius, type HoleCircle, type WheelSpec } from './wheel';
 
 export interface Refusal {
 	field: string;
@@ -20,8 +22,6 @@ export interface Warning {
 /** Tooth tips and depth a typical 12 mm Hall or VR sensor wants (from memory; check the sensor's data sheet). */
 export const sensorNeeds = { toothWidthMm: 3, toothDepthMm: 3 };
 
-/** Smallest web, bolt-hole edge or flank left standing that we still draw, mm. */
-const minMaterialMm = 0.5;
 
 const fillet = (radius: number, rho: number, convex: boolean) => (rho <= 0 ? 0 : deg(Math.asin(rho / (convex ? radius - rho : radius + rho))));
 
@@ -36,29 +36,27 @@ function largest(fits: (v: number) => boolean, hi: number): number {
 	return lo;
 }
 
-/** How far the bore reaches: with a keyway, out to the slot's outer corners (the slot's depth is measured on its centre line). */
-const innerRadius = (spec: WheelSpec) =>
-	spec.keyway ? Math.hypot(spec.boreMm / 2 + spec.keyway.depthMm, spec.keyway.widthMm / 2) : Math.max(spec.boreMm / 2, 0);
-
 function holeRefusals(spec: WheelSpec, holes: HoleCircle, prefix: 'bolt' | 'balance', units: Units): Refusal[] {
 	const out: Refusal[] = [];
-	const inner = innerRadius(spec) + minMaterialMm;
-	const outer = rootRadius(spec) - minMaterialMm;
-	const lowPcd = 2 * (inner + holes.holeMm / 2);
-	const highPcd = 2 * (outer - holes.holeMm / 2);
+	const [lo, hi] = holeBand(spec, holes.holeMm);
+	const [lowPcd, highPcd] = [2 * lo, 2 * hi];
 	const field = prefix === 'bolt' ? 'pcd' : 'balancePcd';
+	const size = prefix === 'bolt' ? 'boltHole' : 'balanceHole';
+	const clear = formatLength(clearanceMm, units);
 	if (lowPcd > highPcd) {
-		out.push({ field: prefix === 'bolt' ? 'boltHole' : 'balanceHole', message: `${prefix === 'bolt' ? 'boltHole' : 'balanceHole'}: at most ${formatLength(Math.max(0, outer - inner), units)} to fit between the bore and the tooth roots` });
-	} else if (holes.pcdMm < lowPcd || holes.pcdMm > highPcd) {
-		out.push({ field, message: `${field}: ${formatLength(lowPcd, units)} to ${formatLength(highPcd, units)}, so the holes cut neither the bore nor the tooth roots` });
+		out.push({ field: size, message: `${size}: at most ${formatLength(Math.max(0, rootRadius(spec) - innerRadius(spec) - 2 * clearanceMm), units)}, to fit between the bore (with its keyway) and the tooth roots with ${clear} to spare on each side` });
+	} else if (holes.pcdMm < lowPcd - 1e-9 || holes.pcdMm > highPcd + 1e-9) {
+		out.push({ field, message: `${field}: ${formatLength(lowPcd, units)} to ${formatLength(highPcd, units)}, so the holes keep ${clear} from the bore, keyway and tooth roots` });
 	}
-	// The closest two holes, by angle round the circle: with a given spacing the last hole can come
-	// back round near the first (3 holes 165° apart: the third sits 30° before the first).
-	const step = holes.spacingDeg ?? 360 / holes.count;
-	const at = Array.from({ length: holes.count }, (_, i) => (((i * step) % 360) + 360) % 360).sort((a, b) => a - b);
-	const closestDeg = Math.min(...at.map((a, i) => (i + 1 < at.length ? at[i + 1]! - a : at[0]! + 360 - a)));
-	if (holes.count > 1 && 2 * (holes.pcdMm / 2) * Math.sin((Math.min(closestDeg, 180) * Math.PI) / 360) < holes.holeMm + minMaterialMm) {
-		out.push({ field: prefix === 'bolt' ? 'bolts' : 'balanceCount', message: `${prefix === 'bolt' ? 'bolts' : 'balanceCount'}: the holes overlap; use fewer or smaller holes, or a larger pitch circle` });
+	if (holes.count > 1 && !circleClear(spec, holes)) {
+		const count = prefix === 'bolt' ? 'bolts' : 'balanceCount';
+		out.push({ field: count, message: `${count}: the holes come closer than ${clear} to each other; use fewer or smaller holes, or a larger pitch circle` });
+	}
+	const label = placeLabel(spec);
+	if (label && holeCenters(spec, holes).some((c) => !clearOfLabel(c, holes.holeMm, label))) {
+		const angle = prefix === 'bolt' ? 'boltAngle' : 'balanceAngle';
+		out.push({ field, message: `${field}: the ${prefix} holes come closer than ${clear} to the etched label; move them (${field}, ${angle}) or shorten the label` });
+		out.push({ field: 'label', message: `label: ${prefix} holes come closer than ${clear} to it; shorten it, or move the holes (${field}, ${angle})` });
 	}
 	return out;
 }
@@ -70,6 +68,10 @@ export function refusals(spec: WheelSpec, units: Units): Refusal[] {
 	const N = p.teeth;
 	out.push(...patternRefusals(p));
 	if (p.kind === 'extra' && spec.duty >= 0.5) out.push({ field: 'duty', message: 'duty: below 0.5 on an N+1 wheel, so the extra tooth fits between two regular ones' });
+	const missingChars = missingCharacters(spec.label);
+	if (missingChars.length) {
+		out.push({ field: 'label', message: `label: the etching font has no ${missingChars.map(characterName).join(', ')}; use letters, digits and signs of Latin scripts` });
+	}
 	if (out.length) return out;
 
 	const R = spec.odMm / 2;
@@ -77,9 +79,9 @@ export function refusals(spec: WheelSpec, units: Units): Refusal[] {
 	if (spec.keyway && spec.keyway.widthMm >= spec.boreMm) {
 		out.push({ field: 'keyWidth', message: `keyWidth: less than the bore (${formatLength(spec.boreMm, units)})` });
 	}
-	const maxDepth = R - inner - minMaterialMm - Math.max(spec.tipRadiusMm, 0);
+	const maxDepth = R - inner - clearanceMm - Math.max(spec.tipRadiusMm, 0);
 	if (spec.depthMm >= maxDepth) {
-		out.push({ field: 'depth', message: `depth: more than 0 and less than ${formatLength(Math.max(0, maxDepth), units)}, so the tooth roots stay outside the bore and keyway` });
+		out.push({ field: 'depth', message: `depth: more than 0 and less than ${formatLength(Math.max(0, maxDepth), units)}, so the tooth roots keep ${formatLength(clearanceMm, units)} from the bore and keyway` });
 		return out;
 	}
 	const r = rootRadius(spec);
@@ -100,17 +102,21 @@ export function refusals(spec: WheelSpec, units: Units): Refusal[] {
 	if (spec.rootRadiusMm > 0 && !rootFits(spec.rootRadiusMm)) {
 		out.push({ field: 'rootRadius', message: `rootRadius: 0 to ${formatLength(largest(rootFits, spec.depthMm), units)} for gaps this narrow` });
 	}
+	if (labelShape(spec.label) && !placeLabel(spec)) {
+		out.push({ field: 'label', message: `label: no room to etch it at least ${formatLength(minLabelHeightMm, units)} high between the bore (with its keyway) and the tooth roots; shorten it or leave it empty` });
+	}
 	if (spec.bolts) out.push(...holeRefusals(spec, spec.bolts, 'bolt', units));
 	if (spec.balanceHoles) out.push(...holeRefusals(spec, spec.balanceHoles, 'balance', units));
 	if (spec.bolts && spec.balanceHoles) {
 		// The two circles are checked apart above; a balance hole may still land on a bolt hole.
 		const [bolts, balance] = [holeCenters(spec, spec.bolts), holeCenters(spec, spec.balanceHoles)];
-		const clear = (spec.bolts.holeMm + spec.balanceHoles.holeMm) / 2 + minMaterialMm;
-		if (balance.some((p) => bolts.some((q) => Math.hypot(p.x - q.x, p.y - q.y) < clear))) {
-			out.push({ field: 'balancePcd', message: 'balancePcd: the balance holes cut into the bolt holes; put them on another pitch circle or turn them with balanceAngle' });
+		const [b, h] = [spec.bolts.holeMm, spec.balanceHoles.holeMm];
+		if (balance.some((p) => bolts.some((q) => !clearOfHole(p, h, q, b)))) {
+			out.push({ field: 'balancePcd', message: `balancePcd: the balance holes come closer than ${formatLength(clearanceMm, units)} to the bolt holes; put them on another pitch circle or turn them with balanceAngle` });
 		}
 	}
-	return out;
+	// One message per field: the answer keys them by field.
+	return out.filter((r, i) => out.findIndex((o) => o.field === r.field) === i);
 }
 
 export interface Running {

@@ -1,11 +1,11 @@
 // Everything a builder, fabricator and tuner read off a wheel design, in one object: what the API
 // answers as JSON and what the page and the spec sheets show.
-import { balanceHoles, massProperties, permissibleUnbalanceGmm, unbalanceForceN } from './balance';
+import { balanceHoles, massProperties, permissibleUnbalanceGmm, unbalanceForceN, type BalanceSuggestion } from './balance';
 import { refusals, warnings, type Refusal, type Running, type Warning } from './checks';
 import { patternName, pitchDeg, teethOf } from './pattern';
 import type { Units } from './units';
 import { valueKey } from './value-key';
-import { gapOpenings, rootRadius, type HoleCircle, type WheelSpec } from './wheel';
+import { gapOpenings, rootRadius, type WheelSpec } from './wheel';
 
 export interface WheelSummary {
 	pattern: string;
@@ -22,7 +22,10 @@ export interface WheelSummary {
 	massG: number;
 	unbalance: { gmm: number; heavySideDeg: number; forceAtRpmN: number; rpm: number };
 	permissible: { gmm: number; grade: number; standard: 'ISO 21940-11' };
-	balanceSuggestion: HoleCircle | null;
+	/** Balance holes that bring the wheel within `permissible`, for the wheel without any. */
+	balanceSuggestion: BalanceSuggestion | null;
+	/** Why there is no suggestion, when there is none. */
+	balanceNote: string | null;
 	warnings: Warning[];
 }
 
@@ -53,6 +56,7 @@ function summarizeAnew(spec: WheelSpec, units: Units, running: Running): Summari
 	const teeth = teethOf(spec.pattern, spec.duty);
 	const mass = massProperties(spec);
 	const bare = spec.balanceHoles ? massProperties({ ...spec, balanceHoles: null }) : mass;
+	const advice = balanceHoles(spec, running, units, bare);
 	const permissible = permissibleUnbalanceGmm(running.gradeMmS, mass.massG / 1000, running.rpm);
 	return {
 		ok: true,
@@ -76,7 +80,8 @@ function summarizeAnew(spec: WheelSpec, units: Units, running: Running): Summari
 				rpm: running.rpm
 			},
 			permissible: { gmm: round(permissible, 2), grade: running.gradeMmS, standard: 'ISO 21940-11' },
-			balanceSuggestion: bare.unbalanceGmm > 0.01 ? balanceHoles(spec, bare) : null,
+			balanceSuggestion: advice.ok ? advice.holes : null,
+			balanceNote: advice.ok ? null : advice.reason,
 			warnings: warnings(spec, units, running, mass)
 		}
 	};

@@ -58,3 +58,14 @@ export function segmentsPath(segments: Segment[], k = 1): string {
 	for (const s of segments) d += `M${pt(s.from, k)}${segmentPath(s, k)}`;
 	return d;
 }
+
+/** Path data for closed polylines (the label's letter outlines), scaled by k. */
+export function outlinesPath(outlines: Point[][], k = 1): string {
+	let d = '';
+	for (const o of outlines) {
+		d += `M${pt(o[0]!, k)}`;
+		for (let i = 1; i < o.length; i++) d += `L${pt(o[i]!, k)}`;
+		d += 'Z';
+	}
+	return d;
+}

@@ -3,6 +3,7 @@
 // measured from the leading edge of the first tooth after the gap, in the sense of rotation.
 import { arc, line, polar, type Contour, type Point, type Segment } from './geometry';
 import type { HubSlot } from './keys';
+import { labelShape, placeShape, type PlacedLabel } from './label';
 import { gapsOf, pitchDeg, teethOf, type Pattern, type Tooth } from './pattern';
 import { deg } from './units';
 
@@ -65,6 +66,50 @@ export function toothSpans(spec: WheelSpec): ToothSpan[] {
 }
 
 export const rootRadius = (spec: WheelSpec) => spec.odMm / 2 - spec.depthMm;
+
+/** How far the bore reaches: with a keyway, out to the slot's outer corners (the slot's depth is measured on its centre line). */
+export const innerRadius = (spec: WheelSpec) =>
+	spec.keyway ? Math.hypot(spec.boreMm / 2 + spec.keyway.depthMm, spec.keyway.widthMm / 2) : Math.max(spec.boreMm / 2, 0);
+
+/**
+ * The web every hole (bolt, balance) and the keyway keep from the etched label, the tooth roots
+ * and each other, and the label from the bore and the roots, mm: 1 mm, enough for a laser or
+ * waterjet to leave a wall standing in thin plate (common cutting practice, from memory).
+ */
+export const clearanceMm = 1;
+
+/** The smallest cap height an etched label is drawn at, mm (common practice for etched part marks). */
+export const minLabelHeightMm = 1.5;
+
+/**
+ * Where the label goes: across the web opposite the index mark, turned so that it never reads
+ * upside down, as tall as the web allows up to 4 mm (cap height) and at least minLabelHeightMm,
+ * its ink clear of the bore, keyway and tooth roots. Null when there is no label, or no room for
+ * it (checks.ts refuses that).
+ */
+export function placeLabel(spec: WheelSpec): PlacedLabel | null {
+	const shape = labelShape(spec.label);
+	if (!shape) return null;
+	const out = rootRadius(spec) - clearanceMm;
+	const inn = innerRadius(spec) + clearanceMm;
+	const fits = (h: number) => inn + 2 * shape.halfHeight * h <= out && (inn + 2 * shape.halfHeight * h) ** 2 + (shape.halfWidth * h) ** 2 <= out * out;
+	let h = Math.min(4, (rootRadius(spec) - innerRadius(spec)) * 0.25);
+	if (!fits(h)) {
+		let lo = 0;
+		for (let i = 0; i < 30; i++) {
+			const mid = (lo + h) / 2;
+			if (fits(mid)) lo = mid;
+			else h = mid;
+		}
+		h = lo;
+	}
+	if (h < minLabelHeightMm) return null;
+	const [hx, hy] = [shape.halfWidth * h, shape.halfHeight * h];
+	const labelR = Math.min(Math.sqrt(out * out - hx * hx) - hy, Math.max(inn + hy, (rootRadius(spec) + innerRadius(spec)) / 2));
+	const labelAngle = drawDeg(spec, (spec.indexMarkDeg ?? 0) + 180);
+	const along = (((labelAngle - 90) % 360) + 360) % 360;
+	return placeShape(shape, h, polar(labelR, labelAngle), along > 90 && along < 270 ? along - 180 : along);
+}
 
 /**
  * Corner geometry: a fillet of radius ρ between a radial flank and a circle of radius R touches
@@ -181,8 +226,8 @@ export interface WheelDrawing {
 	etch: Segment[];
 	/** The gaps' open spaces in drawing angles, a0 < a1. */
 	gaps: { a0: number; a1: number }[];
-	/** Where the part label sits (centre of its baseline) and its height, mm. */
-	labelAt: { point: Point; heightMm: number; angleDeg: number } | null;
+	/** The etched part label as outlines of the font's letters (etched, like the index mark). */
+	label: PlacedLabel | null;
 	spans: ToothSpan[];
 }
 
@@ -202,14 +247,6 @@ export function drawWheel(spec: WheelSpec): WheelDrawing {
 
 function draw(spec: WheelSpec): WheelDrawing {
 	const mark = indexMark(spec);
-	const r = rootRadius(spec);
-	const inner = spec.boreMm / 2 + (spec.keyway?.depthMm ?? 0);
-	const labelR = (r + inner) / 2;
-	const heightMm = Math.min(4, (r - inner) * 0.25);
-	const labelAngle = drawDeg(spec, (spec.indexMarkDeg ?? 0) + 180);
-	// Text runs along the circle, turned so that it never reads upside down.
-	const along = (((labelAngle - 90) % 360) + 360) % 360;
-	const textAngle = along > 90 && along < 270 ? along - 180 : along;
 	const spans = toothSpans(spec);
 	return {
 		outer: outerProfile(spec, spans),
@@ -220,9 +257,12 @@ function draw(spec: WheelSpec): WheelDrawing {
 			return { a0: Math.min(p, q), a1: Math.max(p, q) };
 		}),
 		etch: mark ? [mark] : [],
-		labelAt: spec.label && heightMm >= 1.5 ? { point: polar(labelR, labelAngle), heightMm, angleDeg: textAngle } : null,
+		label: placeLabel(spec),
 		spans
 	};
 }
+
+/** The label's outlines as straight edges, for writers that take segments (DXF). */
+export const labelSegments = (d: WheelDrawing): Segment[] => (d.label ? d.label.outlines.flatMap((o) => o.map((p, i) => line(p, o[(i + 1) % o.length]!))) : []);
 
 export { pitchDeg };

@@ -6,7 +6,7 @@
 import makerjs from 'makerjs';
 import type { Contour, Segment } from '$lib/trade/geometry';
 import type { Units } from '$lib/trade/units';
-import { cutContours, drawWheel, type WheelDrawing, type WheelSpec } from '$lib/trade/wheel';
+import { cutContours, drawWheel, labelSegments, type WheelSpec } from '$lib/trade/wheel';
 
 export const layers = {
 	cut: { name: 'CUT', color: makerjs.exporter.colors.red },
@@ -34,35 +34,18 @@ export function wheelModel(spec: WheelSpec, units: Units): makerjs.IModel {
 	const onLayer = (p: makerjs.IPath, layer: string) => ((p.layer = layer), p);
 	cut.forEach((c, i) => contourPaths(c, k).forEach((p, j) => (paths[`cut${i}_${j}`] = onLayer(p, layers.cut.name))));
 	d.etch.forEach((s, i) => (paths[`etch${i}`] = onLayer(toPath(s, k), layers.etch.name)));
-	const model: makerjs.IModel = { paths, units: units === 'in' ? makerjs.unitType.Inch : makerjs.unitType.Millimeter };
-	const caption = captionOf(spec, d, k);
-	if (caption) {
-		model.caption = caption;
-		model.layer = layers.etch.name;
-	}
-	return model;
-}
-
-/** The part label, centred on a short line along which it runs. */
-function captionOf(spec: WheelSpec, d: WheelDrawing, k: number): makerjs.ICaption | null {
-	if (!d.labelAt || !spec.label) return null;
-	const { point, angleDeg } = d.labelAt;
-	const half = 10;
-	const dx = Math.cos((angleDeg * Math.PI) / 180) * half;
-	const dy = Math.sin((angleDeg * Math.PI) / 180) * half;
-	return { text: spec.label, anchor: new makerjs.paths.Line([(point.x - dx) * k, (point.y - dy) * k], [(point.x + dx) * k, (point.y + dy) * k]) };
+	// The label as its letters' outlines, not text: a CAD program has no font of its own to pick.
+	labelSegments(d).forEach((s, i) => (paths[`label${i}`] = onLayer(toPath(s, k), layers.etch.name)));
+	return { paths, units: units === 'in' ? makerjs.unitType.Inch : makerjs.unitType.Millimeter };
 }
 
 /** What makerjs.exporter.toDXF is given for the wheel's model. */
 export function dxfOptions(spec: WheelSpec, units: Units): makerjs.exporter.IDXFRenderOptions {
-	const k = units === 'in' ? 1 / 25.4 : 1;
-	const fontSize = (drawWheel(spec).labelAt?.heightMm ?? 3) * k;
 	return {
 		units: units === 'in' ? makerjs.unitType.Inch : makerjs.unitType.Millimeter,
-		fontSize,
 		layerOptions: {
 			[layers.cut.name]: { color: layers.cut.color },
-			[layers.etch.name]: { color: layers.etch.color, fontSize }
+			[layers.etch.name]: { color: layers.etch.color }
 		}
 	};
 }
@@ -86,18 +69,10 @@ function contourEntities(c: Contour, k: number, layer: string): string[] {
 export function wheelDxf(spec: WheelSpec, units: Units): string {
 	const k = units === 'in' ? 1 / 25.4 : 1;
 	const d = drawWheel(spec);
-	const fontSize = (d.labelAt?.heightMm ?? 3) * k;
 	const entities = cutContours(d).flatMap((c) => contourEntities(c, k, layers.cut.name));
-	for (const s of d.etch) entities.push(entity(s, k, layers.etch.name));
-	const caption = captionOf(spec, d, k);
-	if (caption) {
-		// Placed as makerjs places a caption: centred on its anchor line, turned along it.
-		const [anchor] = makerjs.model.getAllCaptionsOffset({ caption });
-		const centre = makerjs.point.middle(anchor!.anchor);
-		const [x, y] = [r(centre[0]!), r(centre[1]!)];
-		entities.push(`0\nTEXT\n10\n${x}\n20\n${y}\n11\n${x}\n21\n${y}\n40\n${fontSize}\n1\n${spec.label}\n50\n${makerjs.angle.ofPointInDegrees(anchor!.anchor.origin, anchor!.anchor.end)}\n8\n${layers.etch.name}\n72\n4\n73\n0`);
-	}
-	const used = [layers.cut, ...(d.etch.length || caption ? [layers.etch] : [])];
+	const etch = [...d.etch, ...labelSegments(d)];
+	for (const s of etch) entities.push(entity(s, k, layers.etch.name));
+	const used = [layers.cut, ...(etch.length ? [layers.etch] : [])];
 	return [
 		`0\nSECTION\n2\nHEADER\n9\n$INSUNITS\n70\n${units === 'in' ? 1 : 4}\n0\nENDSEC`,
 		`0\nSECTION\n2\nTABLES\n0\nTABLE\n2\nLTYPE\n${lineTypes}\n0\nENDTAB\n0\nTABLE\n2\nLAYER\n${used.map(layerRow).join('\n')}\n0\nENDTAB\n0\nENDSEC`,

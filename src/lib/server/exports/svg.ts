@@ -1,6 +1,6 @@
 // SVG at true scale: width and height in the design's units, one path per cut contour, etch in
 // its own group; fill-rule evenodd so the bore and holes read as holes.
-import { contourPath, segmentsPath } from '$lib/trade/svg';
+import { contourPath, outlinesPath, segmentsPath } from '$lib/trade/svg';
 import { fromMm, type Units } from '$lib/trade/units';
 import { cutContours, drawWheel, type WheelSpec } from '$lib/trade/wheel';
 
@@ -12,9 +12,8 @@ export function wheelSvg(spec: WheelSpec, units: Units): string {
 	const size = fromMm(spec.odMm, units);
 	const half = size / 2;
 	const cut = cutContours(d).map((c) => contourPath(c, k)).join('');
-	const label = d.labelAt
-		? `<text x="${(d.labelAt.point.x * k).toFixed(4)}" y="${(-d.labelAt.point.y * k).toFixed(4)}" font-size="${(d.labelAt.heightMm * k).toFixed(4)}" font-family="Inter, sans-serif" text-anchor="middle" dominant-baseline="middle" transform="rotate(${(-d.labelAt.angleDeg).toFixed(3)} ${(d.labelAt.point.x * k).toFixed(4)} ${(-d.labelAt.point.y * k).toFixed(4)})" fill="#1d47b0">${escape(spec.label)}</text>`
-		: '';
+	// The label's letters as outlines, the same the DXF carries: no font left for a reader to choose.
+	const label = d.label ? `<path id="label" d="${outlinesPath(d.label.outlines, k)}"/>` : '';
 	const stroke = (0.2 * k).toFixed(4);
 	return [
 		`<?xml version="1.0" encoding="UTF-8"?>`,

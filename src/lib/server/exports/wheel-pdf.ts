@@ -1,5 +1,5 @@
 // The 1:1 wheel template: outline, centre cross, spec table, calibration bars, "print at actual size".
-import { contourPath, segmentsPath } from '$lib/trade/svg';
+import { contourPath, outlinesPath, segmentsPath } from '$lib/trade/svg';
 import type { WheelSummary } from '$lib/trade/summary';
 import { formatLength, type Units } from '$lib/trade/units';
 import { cutContours, drawWheel, type WheelSpec } from '$lib/trade/wheel';
@@ -48,6 +48,8 @@ export async function wheelPdf(spec: WheelSpec, summary: WheelSummary, units: Un
 	for (const c of cutContours(d)) doc.path(contourPath(c)).stroke();
 	doc.strokeColor('#1d47b0');
 	if (d.etch.length) doc.path(segmentsPath(d.etch)).stroke();
+	// The etched label at 1:1, filled as it reads once etched (its outlines are the DXF's).
+	if (d.label) doc.path(outlinesPath(d.label.outlines)).fill('#1d47b0');
 	// Centre cross, to line the template up on the blank.
 	const arm = Math.min(8, spec.odMm * 0.08);
 	doc.lineWidth(0.15).strokeColor('#555').moveTo(-arm, 0).lineTo(arm, 0).moveTo(0, -arm).lineTo(0, arm).stroke();
