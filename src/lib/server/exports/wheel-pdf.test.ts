@@ -132,6 +132,7 @@ describe('the wheel PDF template, read by poppler', () => {
 		const words = pages.flatMap((p) => p.words.map((w) => w.text));
 		expect(words).toContain('continued');
 		expect(words).toContain('Warnings');
+		expect(words).toContain('Layers');
 		for (const page of pages) expect(page.words.map((w) => w.text)).toContain('sharp');
 	}, 30_000);
 });
@@ -184,7 +185,7 @@ describe('the Layers row says where the index mark is (from the mark option)', (
 		expect(text).toContain(words);
 		if (mark === 'none') {
 			expect(text).not.toContain('index mark');
-			expect(text).not.toContain('etch');
+			expect(text).not.toContain('etch:');
 			return;
 		}
 		// The drawing agrees: the model of the turning wheel puts the mark that many degrees after
