@@ -21,7 +21,8 @@ const referenceTools = [
 	{ pkg: 'python3-ezdxf', present: () => spawnSync('/usr/bin/python3', ['-c', 'import ezdxf']).status === 0 },
 	{ pkg: 'python3-fonttools', present: () => spawnSync('/usr/bin/python3', ['-c', 'import fontTools']).status === 0 },
 	{ pkg: 'poppler-utils', present: () => existsSync('/usr/bin/pdfinfo') && existsSync('/usr/bin/pdftotext') },
-	{ pkg: 'librecad', present: () => existsSync('/usr/bin/librecad') }
+	{ pkg: 'librecad', present: () => existsSync('/usr/bin/librecad') },
+	{ pkg: 'openscad', present: () => existsSync('/usr/bin/openscad') }
 ];
 const bin = (name: string) => join(root, 'node_modules', '.bin', name);
 const results = join(root, 'test-results');
@@ -57,7 +58,7 @@ for (const signal of ['SIGINT', 'SIGTERM'] as const) {
 
 let exitCode = 1;
 try {
-	await step('Reference tools from Debian (Chromium, ezdxf, poppler, LibreCAD)', () => {
+	await step('Reference tools from Debian (Chromium, ezdxf, poppler, LibreCAD, OpenSCAD)', () => {
 		const missing = referenceTools.filter((t) => !t.present()).map((t) => t.pkg);
 		if (!missing.length) return 'present';
 		if (process.getuid?.() !== 0) throw new StepError(`Missing: ${missing.join(', ')}.`, `Install them with \`sudo apt-get install -y ${missing.join(' ')}\`.`);

@@ -171,9 +171,12 @@ describe('SVG and PDF', () => {
 		const res = await get('/api/v1/wheel.svg', cases[0]!.params);
 		expect(res.headers.get('content-type')).toBe('image/svg+xml');
 		const svg = await res.text();
-		expect(svg).toMatch(/<svg [^>]*width="100\.0000mm" height="100\.0000mm" viewBox="-50 -50 100 100"/);
+		// The view reaches one 0.2 mm stroke width past the 100 mm outline on each side (so the stroke,
+		// centred on the cut line, is never clipped); width and height state that view in mm.
+		expect(svg).toMatch(/<svg [^>]*width="100\.4000mm" height="100\.4000mm" viewBox="-50\.2000 -50\.2000 100\.4000 100\.4000"/);
 		const inch = await (await get('/api/v1/wheel.svg', cases[1]!.params)).text();
-		expect(inch).toMatch(/width="6\.0000in" height="6\.0000in"/);
+		// 6 in plus two strokes of 0.2/25.4 in.
+		expect(inch).toMatch(/width="6\.0157in" height="6\.0157in"/);
 	});
 
 	it.each([

@@ -1,8 +1,9 @@
 // DXF for a cutting order: plain LINE/ARC/CIRCLE entities, every contour closed, cut and etch
-// geometry on separate layers with distinct colours, units in the header ($INSUNITS). The file is
-// makerjs's DXF of the wheel's model (wheelModel), written here straight from the drawing: the
-// same text, character for character (checked in dxf.test.ts), without makerjs's walk of the model
-// and its object per entity, which were three quarters of an export's time.
+// geometry on separate layers with distinct colours, version, code page and units in the header.
+// The entities and tables are makerjs's DXF of the wheel's model (wheelModel), written here
+// straight from the drawing (checked in dxf.test.ts), without makerjs's walk of the model and its
+// object per entity, which were three quarters of an export's time; the header is our own, and
+// angles are brought into [0, 360) where makerjs writes them as they come.
 import makerjs from 'makerjs';
 import type { Contour, Segment } from '$lib/trade/geometry';
 import type { Units } from '$lib/trade/units';
@@ -55,10 +56,36 @@ const r = makerjs.round;
 const lineTypes = ['0\nLTYPE\n72\n65\n70\n0\n2\nCONTINUOUS\n3\n______\n73\n0\n40\n0', '0\nLTYPE\n72\n65\n70\n0\n2\nDASHED\n3\n_ _ _ \n73\n2\n40\n7.5\n49\n5\n49\n-2.5', '0\nLTYPE\n72\n65\n70\n0\n2\nDOTTED\n3\n. . . \n73\n2\n40\n1.5\n49\n0.5\n49\n-1'].join('\n');
 const layerRow = (l: { name: string; color: number }) => `0\nLAYER\n2\n${l.name}\n70\n0\n62\n${l.color}\n6\nCONTINUOUS`;
 
+/**
+ * An angle as the DXF reference writes one, in [0, 360): the drawing's arcs may run past a turn
+ * (a bore arc from 72.5° to 432.5°), which some readers take for a different arc or refuse. Rounded
+ * first, so 359.99999999 comes out as 0 rather than 360.
+ */
+export function dxfAngle(deg: number): number {
+	const a = r(((deg % 360) + 360) % 360);
+	return a >= 360 || a === 0 ? 0 : a;
+}
+
 function entity(s: Segment, k: number, layer: string): string {
 	if (s.kind === 'line') return `0\nLINE\n8\n${layer}\n6\nCONTINUOUS\n10\n${r(s.from.x * k)}\n20\n${r(s.from.y * k)}\n11\n${r(s.to.x * k)}\n21\n${r(s.to.y * k)}`;
 	const [start, end] = s.ccw ? [s.startDeg, s.endDeg] : [s.endDeg, s.startDeg];
-	return `0\nARC\n8\n${layer}\n6\nCONTINUOUS\n10\n${r(s.center.x * k)}\n20\n${r(s.center.y * k)}\n40\n${r(s.radius * k)}\n50\n${r(start)}\n51\n${r(end)}`;
+	return `0\nARC\n8\n${layer}\n6\nCONTINUOUS\n10\n${r(s.center.x * k)}\n20\n${r(s.center.y * k)}\n40\n${r(s.radius * k)}\n50\n${dxfAngle(start)}\n51\n${dxfAngle(end)}`;
+}
+
+/**
+ * The header: the version the file is written to (AC1009, DXF R12: plain entities, no handles),
+ * its code page, and its units twice over: $INSUNITS (1 inches, 4 millimetres) for readers that
+ * scale drawings on insertion, $MEASUREMENT (0 imperial, 1 metric) for those that pick their
+ * defaults from it. AutoCAD DXF reference, HEADER section.
+ */
+export function dxfHeader(units: Units): string {
+	const vars: [string, number, string | number][] = [
+		['$ACADVER', 1, 'AC1009'],
+		['$DWGCODEPAGE', 3, 'ANSI_1252'],
+		['$INSUNITS', 70, units === 'in' ? 1 : 4],
+		['$MEASUREMENT', 70, units === 'in' ? 0 : 1]
+	];
+	return `0\nSECTION\n2\nHEADER\n${vars.map(([name, code, value]) => `9\n${name}\n${code}\n${value}`).join('\n')}\n0\nENDSEC`;
 }
 
 function contourEntities(c: Contour, k: number, layer: string): string[] {
@@ -74,7 +101,7 @@ export function wheelDxf(spec: WheelSpec, units: Units): string {
 	for (const s of etch) entities.push(entity(s, k, layers.etch.name));
 	const used = [layers.cut, ...(etch.length ? [layers.etch] : [])];
 	return [
-		`0\nSECTION\n2\nHEADER\n9\n$INSUNITS\n70\n${units === 'in' ? 1 : 4}\n0\nENDSEC`,
+		dxfHeader(units),
 		`0\nSECTION\n2\nTABLES\n0\nTABLE\n2\nLTYPE\n${lineTypes}\n0\nENDTAB\n0\nTABLE\n2\nLAYER\n${used.map(layerRow).join('\n')}\n0\nENDTAB\n0\nENDSEC`,
 		`0\nSECTION\n2\nENTITIES${entities.length ? `\n${entities.join('\n')}` : ''}\n0\nENDSEC`,
 		'0\nEOF'

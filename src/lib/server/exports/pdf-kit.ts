@@ -49,14 +49,58 @@ function parsedFont(file: string): Fontkit.Font {
 	return font;
 }
 
-export function newDocument(title: string, size: { widthMm: number; heightMm: number }) {
-	const doc = new PDFDocument({ size: [mm(size.widthMm), mm(size.heightMm)], margin: 0, info: { Title: title, Creator: 'Phasewright' }, autoFirstPage: true });
+/** A document with the shipped fonts; its first page `size`, or none yet when size is null (add it with addPageMm). */
+export function newDocument(title: string, size: { widthMm: number; heightMm: number } | null) {
+	const doc = new PDFDocument({ size: size ? [mm(size.widthMm), mm(size.heightMm)] : 'A4', margin: 0, info: { Title: title, Creator: 'Phasewright' }, autoFirstPage: size !== null });
 	// pdfkit takes a parsed font (anything with layout()), though its types list only files and bytes.
 	doc.registerFont('text', parsedFont(pdfFonts.text) as unknown as PDFKit.Mixins.PDFFontSource);
 	doc.registerFont('bold', parsedFont(pdfFonts.bold) as unknown as PDFKit.Mixins.PDFFontSource);
 	doc.registerFont('mono', parsedFont(pdfFonts.mono) as unknown as PDFKit.Mixins.PDFFontSource);
 	doc.font('text');
 	return doc;
+}
+
+export function addPageMm(doc: PDFKit.PDFDocument, size: { widthMm: number; heightMm: number }) {
+	doc.addPage({ size: [mm(size.widthMm), mm(size.heightMm)], margin: 0 });
+}
+
+/**
+ * The height, in pt, one line of the current font and size takes: its ascent to its descent plus
+ * the font's line gap, the same ascent and descent the PDF's font descriptor states (so the boxes a
+ * reader such as poppler draws round the words of neighbouring lines never overlap).
+ */
+export const lineHeight = (doc: PDFKit.PDFDocument) => doc.currentLineHeight(true);
+
+/**
+ * `text` broken into lines no wider than `widthPt` in the current font and size: at spaces, and
+ * inside a word only when the word alone is wider than the line. Written a line at a time (with
+ * lineBreak off) they sit exactly where a layout put them, so a table can measure, move a row to
+ * the next page, or split it, before it draws anything.
+ */
+export function wrapLines(doc: PDFKit.PDFDocument, text: string, widthPt: number): string[] {
+	const lines: string[] = [];
+	let line = '';
+	const fits = (s: string) => doc.widthOfString(s) <= widthPt;
+	for (const word of text.split(/ +/)) {
+		const joined = line ? `${line} ${word}` : word;
+		if (fits(joined)) {
+			line = joined;
+			continue;
+		}
+		if (line) lines.push(line);
+		line = '';
+		let rest = word;
+		while (!fits(rest)) {
+			// The longest head of the word that fits, at least one character.
+			let n = 1;
+			while (n < rest.length && fits(rest.slice(0, n + 1))) n++;
+			lines.push(rest.slice(0, n));
+			rest = rest.slice(n);
+		}
+		line = rest;
+	}
+	if (line || !lines.length) lines.push(line);
+	return lines;
 }
 
 export function finish(doc: PDFKit.PDFDocument): Promise<Buffer> {

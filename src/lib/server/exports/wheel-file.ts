@@ -27,5 +27,5 @@ export async function wheelFile(kind: WheelFileKind, wheel: ParsedWheel, summary
 		made = recent.set(key, kind === 'dxf' ? Promise.resolve(wheelDxf(spec, units)) : kind === 'svg' ? Promise.resolve(wheelSvg(spec, units)) : wheelPdf(spec, summary, units, paper));
 		made.catch(() => recent.delete(key));
 	}
-	return { body: await made, contentType: types[kind], name: exportName(spec, units, kind, revision) };
+	return { body: await made, contentType: types[kind], name: exportName(spec, units, kind, revision, kind === 'pdf' ? paper : undefined) };
 }
