@@ -9,8 +9,12 @@ export const afterSignIn = '/builds';
  * parsed path, so it holds no control characters a header cannot carry.
  */
 export function redirectTarget(raw: unknown, fallback = afterSignIn): string {
+	return sameOriginPath(raw, config().origin, fallback);
+}
+
+/** The check itself, against a given origin (scheme://host[:port]). */
+export function sameOriginPath(raw: unknown, origin: string, fallback = afterSignIn): string {
 	if (typeof raw !== 'string' || !raw.startsWith('/')) return fallback;
-	const origin = config().origin;
 	let url: URL;
 	try {
 		url = new URL(raw, origin);
