@@ -1,6 +1,6 @@
 import type { RequestEvent } from '@sveltejs/kit';
 import { config } from './config';
-import { isLoopback } from './origin';
+import { clientAddress, isLoopback } from './origin';
 
 /** A message as the local SMTP fake lists it (scripts/fakes/mailbox.ts). */
 export interface MailboxMessage {
@@ -30,7 +30,7 @@ export function mailboxOpen(c: { mailboxUrl?: string; mailFake: boolean; smtpUrl
 /** The local SMTP fake's address when this request may see the mailbox, else undefined. */
 export function mailboxUrl(event: RequestEvent): string | undefined {
 	const c = config();
-	return mailboxOpen(c, { client: event.getClientAddress(), host: event.request.headers.get('host') }) ? c.mailboxUrl : undefined;
+	return mailboxOpen(c, { client: clientAddress(event), host: event.request.headers.get('host') }) ? c.mailboxUrl : undefined;
 }
 
 export async function listMailbox(base: string, fetcher: typeof fetch = fetch): Promise<MailboxMessage[]> {

@@ -1,4 +1,4 @@
-import type { Handle } from '@sveltejs/kit';
+import type { Handle, RequestEvent } from '@sveltejs/kit';
 import { dev } from '$app/environment';
 import { config } from './config';
 
@@ -37,9 +37,9 @@ function namesHost(value: string | null, origin: URL): boolean {
  */
 export function hostRefusal(
 	headers: Headers,
-	opts: { origin: string; hostHeader?: string; client: string; path: string }
+	opts: { origin: string; hostHeader?: string; client: () => string; path: string }
 ): string | null {
-	if (opts.path === '/api/health' && isLoopback(opts.client)) return null;
+	if (opts.path === '/api/health' && isLoopback(opts.client())) return null;
 	const origin = new URL(opts.origin);
 	if (!namesHost(headers.get(opts.hostHeader?.toLowerCase() || 'host'), origin)) return 'Host';
 	const forwardedHost = headers.get('x-forwarded-host');
@@ -49,13 +49,25 @@ export function hostRefusal(
 	return null;
 }
 
-/** The built server answers only under its configured name: 421 Misdirected Request (RFC 9110 15.5.20) otherwise. */
+/** The client's address, or '' where there is none to tell (adapter-node throws when ADDRESS_HEADER is missing). */
+export function clientAddress(event: RequestEvent): string {
+	try {
+		return event.getClientAddress();
+	} catch {
+		return '';
+	}
+}
+
+/**
+ * The built server answers only under its configured name: 421 Misdirected Request (RFC 9110
+ * 15.5.20) otherwise. SvelteKit's own fetches during a page load (sub-requests) carry no Host.
+ */
 export const hostHandle: Handle = async ({ event, resolve }) => {
-	if (dev) return resolve(event);
+	if (dev || event.isSubRequest) return resolve(event);
 	const refused = hostRefusal(event.request.headers, {
 		origin: config().origin,
 		hostHeader: process.env.HOST_HEADER,
-		client: event.getClientAddress(),
+		client: () => clientAddress(event),
 		path: event.url.pathname
 	});
 	if (!refused) return resolve(event);
