@@ -65,6 +65,8 @@ export function appEnv(p: Profile): Record<string, string> {
 		DATABASE_URL: databaseUrl(p),
 		SMTP_URL: `smtp://127.0.0.1:${p.smtpPort}`,
 		MAILBOX_URL: `http://127.0.0.1:${p.mailboxPort}`,
+		// The SMTP fake runs (stack.ts removes this when SMTP_URL points at a real server): /dev/mail may open.
+		PW_MAIL_FAKE: '1',
 		S3_ENDPOINT: `http://127.0.0.1:${p.s3Port}`,
 		S3_BUCKET: p.bucket,
 		S3_ACCESS_KEY_ID: s3Fake.accessKeyId,

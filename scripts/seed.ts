@@ -1,7 +1,7 @@
 // The demo: an invented small shop with three conversions under way. Safe to run any number of
 // times; rows are matched by their natural keys (workshop slug, build name) and never doubled.
 import { hash } from '@node-rs/argon2';
-import { eq, inArray } from 'drizzle-orm';
+import { eq, inArray, sql } from 'drizzle-orm';
 import { connect, type Database } from '../src/lib/server/db';
 import { activity, build, member, tdcRecord, user, wheelDesign, wheelRevision, workshop, type FlatParams } from '../src/lib/server/db/schema';
 
@@ -59,9 +59,14 @@ export async function seedDemo(database: Database) {
 			.returning({ id: build.id, name: build.name });
 		const users = await tx
 			.insert(user)
-			.values(demoUsers.map((u, i) => ({ name: u.name, email: u.email, passwordHash: hashes[i]!, emailVerified: new Date() })))
+			.values(demoUsers.map((u, i) => ({ name: u.name, email: u.email, passwordHash: hashes[i]!, emailVerified: new Date(), passwordConfirmedAt: new Date() })))
 			.onConflictDoNothing({ target: user.email })
 			.returning({ id: user.id });
+		// Demo users seeded before addresses and passwords were confirmed count as confirmed too.
+		await tx
+			.update(user)
+			.set({ emailVerified: sql`coalesce(${user.emailVerified}, now())`, passwordConfirmedAt: sql`coalesce(${user.passwordConfirmedAt}, now())` })
+			.where(inArray(user.email, demoUsers.map((u) => u.email)));
 		const ids = await tx.select({ id: user.id, email: user.email }).from(user).where(inArray(user.email, demoUsers.map((u) => u.email)));
 		await tx
 			.insert(member)

@@ -87,6 +87,7 @@ export async function bringUp(p: Profile, opts: { freshDatabase: boolean; real?:
 		}
 		if (real.mail) {
 			delete env.MAILBOX_URL;
+			delete env.PW_MAIL_FAKE;
 			env.SMTP_URL = process.env.SMTP_URL!;
 		}
 		if (real.storage) {

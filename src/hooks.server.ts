@@ -2,6 +2,7 @@ import type { Handle, HandleServerError } from '@sveltejs/kit';
 import { sequence } from '@sveltejs/kit/hooks';
 import { parseTheme, themeCookie } from '$lib/theme';
 import { drainBodyHandle } from '$lib/server/drain-body';
+import { hostHandle } from '$lib/server/origin';
 import { securityHeadersHandle } from '$lib/server/security-headers';
 import { unavailableError, unavailableHandle } from '$lib/server/unavailable';
 import { authHandle } from './auth';
@@ -21,8 +22,9 @@ export const themeHandle: Handle = async ({ event, resolve }) => {
 // Auth.js first: it answers its own routes under /auth and gives every request locals.auth().
 // unavailableHandle outermost: it turns a lost database connection anywhere inside into a 503.
 // drainBodyHandle around even that: it reads what a refusal left unread, so the connection serves
-// the next request (drain-body.ts).
-export const handle: Handle = sequence(drainBodyHandle, unavailableHandle, securityHeadersHandle, authHandle, themeHandle);
+// the next request (drain-body.ts). hostHandle next: a request for another host name is refused
+// before anything reads it (origin.ts).
+export const handle: Handle = sequence(drainBodyHandle, hostHandle, unavailableHandle, securityHeadersHandle, authHandle, themeHandle);
 
 /** A lost database connection answers 503 (see unavailable.ts); anything else is logged as a fault. */
 export const handleError: HandleServerError = ({ error, event, status, message }) => {

@@ -52,6 +52,12 @@ describe('a workshop in Chromium: sign up, build, invite, viewer refused', () =>
 		expect(await viewer.getByLabel('E-mail').inputValue()).toBe(viewerEmail);
 		await signUpIn(viewer, 'Vic Viewer', viewerEmail);
 		await viewer.waitForURL(/\/invite\//);
+		// Sign-up does not prove the address: the invitation waits for the link mailed to it.
+		expect(await viewer.getByRole('button', { name: 'Accept invitation' }).count()).toBe(0);
+		await expect.poll(() => viewer.getByText('Confirm').count()).toBeGreaterThan(0);
+		const confirmation = await mailTo(viewerEmail, 'Confirm your');
+		await viewer.goto(confirmation.link);
+		await viewer.waitForURL(/\/invite\//);
 		await viewer.getByRole('button', { name: 'Accept invitation' }).click();
 		await viewer.waitForURL(`${baseUrl}/builds`);
 

@@ -116,9 +116,18 @@ export function freshEmail(label: string) {
 	return `${label}-${Date.now().toString(36)}-${(counter++).toString(36)}@example.test`;
 }
 
-export async function signUp(name: string, email: string, password = 'long enough password') {
+/**
+ * A new account, signed in. Unless told not to, its address is confirmed the way a person does it:
+ * the confirmation link mailed at sign-up, opened in the same browser (which keeps the password).
+ */
+export async function signUp(name: string, email: string, password = 'long enough password', opts: { confirm?: boolean } = {}) {
 	const client = new Client();
 	const result = await client.action('/signup', '', { name, email, password });
 	if (result.type !== 'redirect') throw new Error(`sign-up of ${email} failed: ${JSON.stringify(result)}`);
+	if (opts.confirm ?? true) {
+		const mail = await mailTo(email, 'Confirm your');
+		const landing = await client.follow(mail.link);
+		if (landing.status !== 200) throw new Error(`confirming ${email} answered ${landing.status}`);
+	}
 	return client;
 }

@@ -14,11 +14,8 @@ export const password = z
 	.min(passwordLimits.min, { error: `password: ${passwordLimits.min} to ${passwordLimits.max} characters` })
 	.max(passwordLimits.max, { error: `password: ${passwordLimits.min} to ${passwordLimits.max} characters` });
 
-/** A same-site path to go to afterwards; anything else becomes "/" (no open redirects). */
-export const redirectTo = z
-	.string()
-	.optional()
-	.transform((v) => (v && v.startsWith('/') && !v.startsWith('//') && !v.startsWith('/\\') ? v : '/'));
+/** Where to go afterwards, as sent: the server keeps it only when it is a path of this app (redirect-target.ts). */
+export const redirectTo = z.string().optional();
 
 export const signUp = z.object({
 	name: z.string().trim().min(1, { error: 'name: 1 to 80 characters' }).max(80, { error: 'name: 1 to 80 characters' }),
@@ -40,4 +37,12 @@ export const resetRequest = z.object({ email });
 
 export const resetPassword = z
 	.object({ password, confirm: z.string() })
+	.refine((v) => v.password === v.confirm, { error: 'confirm: must match the new password', path: ['confirm'] });
+
+export const changePassword = z
+	.object({
+		current: z.string({ error: 'current: required' }).min(1, { error: 'current: required' }).max(1000, { error: 'current: at most 1000 characters' }),
+		password,
+		confirm: z.string()
+	})
 	.refine((v) => v.password === v.confirm, { error: 'confirm: must match the new password', path: ['confirm'] });

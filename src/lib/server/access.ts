@@ -1,8 +1,9 @@
 import { error, redirect, type RequestEvent } from '@sveltejs/kit';
-import { and, eq } from 'drizzle-orm';
+import { and, eq, gt } from 'drizzle-orm';
 import { z } from 'zod';
 import { db } from './db';
-import { build, member, user, wheelDesign, wheelPhoto, type Role } from './db/schema';
+import { build, member, user, userSession, wheelDesign, wheelPhoto, type Role } from './db/schema';
+import { sessionIdOf, sessionLifetimeS } from './sessions';
 import { workshopsOf, type WorkshopMembership } from './workshops';
 
 // Who may do what, in one place. Every load, form action and API route that touches a workshop's
@@ -35,15 +36,20 @@ export interface WorkshopAccess {
 
 const perRequest = new WeakMap<Request, Promise<SessionUser | null>>();
 
-/** The signed-in user, or null. The session cookie may outlive the account, so the account is looked up. */
+/**
+ * The signed-in user, or null. The session cookie may outlive the account and its session (signed
+ * out, password changed), so both are looked up: one query, with the user's row.
+ */
 export function signedInUser(event: RequestEvent): Promise<SessionUser | null> {
 	let found = perRequest.get(event.request);
 	if (!found) {
 		found = (async () => {
 			const session = await event.locals.auth();
 			const id = session?.user?.id;
-			if (!id) return null;
-			const [row] = await db().select({ id: user.id, email: user.email, name: user.name }).from(user).where(eq(user.id, id));
+			const sid = sessionIdOf((session as { sid?: unknown } | null)?.sid);
+			if (!id || !sid) return null;
+			const live = and(eq(userSession.id, sid), eq(userSession.userId, user.id), gt(userSession.createdAt, new Date(Date.now() - sessionLifetimeS * 1000)));
+			const [row] = await db().select({ id: user.id, email: user.email, name: user.name }).from(user).innerJoin(userSession, live).where(eq(user.id, id));
 			return row ?? null;
 		})();
 		perRequest.set(event.request, found);

@@ -1,8 +1,9 @@
 import { hash, verify } from '@node-rs/argon2';
-import { and, eq, gt } from 'drizzle-orm';
+import { and, eq, gt, sql } from 'drizzle-orm';
 import type { Database, Queryable } from './db';
 import { member, passwordReset, user, workshop } from './db/schema';
 import { clearFailures, delayFor, releaseAttempt, reserveAttempt, throttleKeys, throttlePolicy } from './throttle';
+import { endAllSessions } from './sessions';
 import { hashToken, newToken } from './tokens';
 
 export interface AccountUser {
@@ -100,7 +101,10 @@ export async function passwordResetIsValid(database: Database, token: string): P
 	return !!row;
 }
 
-/** Sets the new password and spends every reset link of that user. */
+/**
+ * Sets the new password, spends every reset link of that user and ends every session. The link
+ * came by e-mail, so the address and the new password are confirmed (address-proof.ts).
+ */
 export async function resetPassword(database: Database, token: string, newPassword: string): Promise<AccountUser | null> {
 	const passwordHash = await hashPassword(newPassword);
 	return database.transaction(async (tx) => {
@@ -112,9 +116,10 @@ export async function resetPassword(database: Database, token: string, newPasswo
 		await tx.delete(passwordReset).where(eq(passwordReset.userId, row.userId));
 		const [updated] = await tx
 			.update(user)
-			.set({ passwordHash })
+			.set({ passwordHash, passwordConfirmedAt: new Date(), emailVerified: sql`coalesce(${user.emailVerified}, now())` })
 			.where(eq(user.id, row.userId))
 			.returning({ id: user.id, email: user.email, name: user.name });
+		await endAllSessions(tx, row.userId);
 		await clearFailures(tx, throttleKeys(updated!.email, '').email);
 		return updated ?? null;
 	});

@@ -5,7 +5,8 @@ const minimal = {
 	DATABASE_URL: 'postgres://u:p@127.0.0.1:5432/db',
 	SMTP_URL: 'smtp://127.0.0.1:25',
 	S3_BUCKET: 'uploads',
-	AUTH_SECRET: 'x'.repeat(32)
+	AUTH_SECRET: 'x'.repeat(32),
+	ORIGIN: 'https://phasewright.example/'
 };
 
 describe('server configuration', () => {
@@ -15,6 +16,9 @@ describe('server configuration', () => {
 		expect(c.s3.forcePathStyle).toBe(false);
 		expect(c.s3.credentials).toBeUndefined();
 		expect(c.mailboxUrl).toBeUndefined();
+		expect(c.mailFake).toBe(false);
+		// The origin alone: links are built as origin + path.
+		expect(c.origin).toBe('https://phasewright.example');
 	});
 
 	it('uses path-style addressing for a self-hosted endpoint unless told otherwise', () => {

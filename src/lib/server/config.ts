@@ -17,8 +17,15 @@ const Env = z.object({
 	S3_FORCE_PATH_STYLE: z.enum(['true', 'false']).optional(),
 	/** Signs the session cookies (JWT). At least 32 random characters: `openssl rand -base64 33`. */
 	AUTH_SECRET: z.string().min(32, { error: 'AUTH_SECRET: at least 32 characters' }),
+	/**
+	 * The public address of the app (adapter-node reads it too). Every link in every e-mail is built
+	 * from it, never from the request's Host or X-Forwarded-* headers.
+	 */
+	ORIGIN: z.url({ protocol: /^https?$/, error: 'ORIGIN: the public address, like https://phasewright.example' }),
 	/** HTTP address of the local SMTP fake's message list; set by the local scripts only. */
-	MAILBOX_URL: z.url().optional()
+	MAILBOX_URL: z.url().optional(),
+	/** "1" where the local scripts run the SMTP fake (never with a real SMTP_URL): opens /dev/mail to loopback. */
+	PW_MAIL_FAKE: z.enum(['1']).optional()
 });
 
 export type Config = ReturnType<typeof parseConfig>;
@@ -46,7 +53,10 @@ export function parseConfig(env: Record<string, string | undefined>) {
 			forcePathStyle: e.S3_FORCE_PATH_STYLE ? e.S3_FORCE_PATH_STYLE === 'true' : !!e.S3_ENDPOINT
 		},
 		authSecret: e.AUTH_SECRET,
-		mailboxUrl: e.MAILBOX_URL
+		/** scheme://host[:port] only, no path or trailing slash. */
+		origin: new URL(e.ORIGIN).origin,
+		mailboxUrl: e.MAILBOX_URL,
+		mailFake: e.PW_MAIL_FAKE === '1'
 	};
 }
 

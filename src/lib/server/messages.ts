@@ -47,3 +47,11 @@ export function cuttingPackageMessage(input: { to: string; from: string | null; 
 		attachments: input.attachments
 	};
 }
+
+export function confirmAddressMessage(to: string, url: string): Message {
+	return {
+		to,
+		subject: 'Confirm your Phasewright address',
+		text: `A Phasewright account was created with this address. Open this link to confirm that the address is yours and to sign in:\n\n${url}\n\nOpen it in the browser you signed up with and the password you chose stays. Opened anywhere else, the link still confirms the address and signs you in there, but removes the password set at sign-up and signs out every other browser: if you did not create this account, that is what keeps whoever did out. You can set a new password afterwards with "Forgot the password?" on the sign-in page.\n\nUntil the address is confirmed, the account cannot join workshops. The link works once, for 30 minutes.${footer}`
+	};
+}

@@ -1,6 +1,7 @@
 import { isRedirect, type RequestEvent } from '@sveltejs/kit';
 import { CredentialsSignin } from '@auth/sveltekit';
 import { signIn, signOut } from '../../auth';
+import { originHeaders } from './origin';
 
 /**
  * Runs one of Auth.js's SvelteKit actions with the fields we give it (our own forms parse and
@@ -8,7 +9,8 @@ import { signIn, signOut } from '../../auth';
  * its cookies on the event; it answers by redirecting, with ?error=… in the target on failure.
  */
 async function runAuthAction(action: typeof signIn, event: RequestEvent, fields: Record<string, string>): Promise<URL> {
-	const headers = new Headers(event.request.headers);
+	// Auth.js makes its links (the e-mailed one too) from these headers: give it ORIGIN's host only.
+	const headers = originHeaders(event.request.headers);
 	headers.set('content-type', 'application/x-www-form-urlencoded');
 	const request = new Request(event.url, { method: 'POST', headers, body: new URLSearchParams(fields) });
 	try {
@@ -40,6 +42,7 @@ export async function sendSignInLink(event: RequestEvent, email: string, redirec
 	await runAuthAction(signIn, event, { providerId: 'nodemailer', email, redirectTo });
 }
 
+/** Signs this browser out; its session row goes with it (auth.ts, events.signOut). */
 export async function endSession(event: RequestEvent): Promise<void> {
 	await runAuthAction(signOut, event, { redirectTo: '/' });
 }

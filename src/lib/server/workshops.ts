@@ -74,14 +74,14 @@ export async function invitationByToken(database: Queryable, token: string) {
 
 export type AcceptResult =
 	| { ok: true; workshopId: string; role: Role }
-	| { ok: false; reason: Exclude<InvitationState, 'valid'> | 'wrong-account' };
+	| { ok: false; reason: Exclude<InvitationState, 'valid'> | 'wrong-account' | 'unconfirmed' };
 
 const rank: Record<Role, number> = { viewer: 1, editor: 2, owner: 3 };
 
 /**
  * Accepts an invitation for the signed-in user. Single use even under concurrent clicks: the
  * row is locked, and spent in the same transaction that adds the member. Only the invited address
- * may accept. Someone already in the workshop keeps the higher of their role and the invited one.
+ * may accept, and only once that address is confirmed. Someone already in the workshop keeps the higher of their role and the invited one.
  */
 export async function acceptInvitation(database: Database, token: string, by: { id: string; email: string }): Promise<AcceptResult> {
 	return database.transaction(async (tx) => {
@@ -90,6 +90,9 @@ export async function acceptInvitation(database: Database, token: string, by: { 
 		if (inv.acceptedAt) return { ok: false, reason: 'used' };
 		if (inv.expiresAt <= new Date()) return { ok: false, reason: 'expired' };
 		if (inv.email.toLowerCase() !== by.email.toLowerCase()) return { ok: false, reason: 'wrong-account' };
+		// Sign-up does not prove the address: only an account whose address was confirmed by a link joins.
+		const [me] = await tx.select({ emailVerified: user.emailVerified }).from(user).where(eq(user.id, by.id));
+		if (!me?.emailVerified) return { ok: false, reason: 'unconfirmed' };
 
 		const [existing] = await tx
 			.select({ role: member.role })

@@ -1,12 +1,13 @@
 import { fail, redirect } from '@sveltejs/kit';
-import { signIn as signInSchema, signInLink, redirectTo as redirectSchema } from '$lib/schemas/account';
+import { signIn as signInSchema, signInLink } from '$lib/schemas/account';
 import { parseForm } from '$lib/schemas/form';
 import { signedInUser } from '$lib/server/access';
+import { redirectTarget } from '$lib/server/redirect-target';
 import { passwordSignIn, sendSignInLink, signInMessages } from '$lib/server/sign-in';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {
-	const redirectTo = redirectSchema.parse(event.url.searchParams.get('redirectTo') ?? undefined);
+	const redirectTo = redirectTarget(event.url.searchParams.get('redirectTo'));
 	if (await signedInUser(event)) redirect(303, redirectTo);
 	// Auth.js sends failed sign-in links back here with ?error=…
 	const authError = event.url.searchParams.get('error');
@@ -27,14 +28,14 @@ export const actions: Actions = {
 		if (!outcome.ok) {
 			return fail(outcome.reason === 'throttled' ? 429 : 400, { form: 'password', email, message: signInMessages[outcome.reason] });
 		}
-		redirect(303, parsed.data.redirectTo);
+		redirect(303, redirectTarget(parsed.data.redirectTo));
 	},
 
 	link: async (event) => {
 		const form = await event.request.formData();
 		const parsed = parseForm(signInLink, form);
 		if (!parsed.ok) return fail(400, { form: 'link', email: String(form.get('email') ?? ''), errors: parsed.errors });
-		await sendSignInLink(event, parsed.data.email, parsed.data.redirectTo);
+		await sendSignInLink(event, parsed.data.email, redirectTarget(parsed.data.redirectTo));
 		redirect(303, '/signin/check-email');
 	}
 };

@@ -1,16 +1,19 @@
 import { fail, redirect } from '@sveltejs/kit';
-import { signUp, redirectTo as redirectSchema } from '$lib/schemas/account';
+import { signUp } from '$lib/schemas/account';
 import { parseForm } from '$lib/schemas/form';
 import { signedInUser } from '$lib/server/access';
+import { rememberSignUp } from '$lib/server/address-proof';
 import { createAccount } from '$lib/server/accounts';
 import { db } from '$lib/server/db';
 import { sendMail } from '$lib/server/mail';
 import { accountExistsMessage } from '$lib/server/messages';
-import { passwordSignIn } from '$lib/server/sign-in';
+import { linkTo } from '$lib/server/origin';
+import { redirectTarget } from '$lib/server/redirect-target';
+import { passwordSignIn, sendSignInLink } from '$lib/server/sign-in';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {
-	const redirectTo = redirectSchema.parse(event.url.searchParams.get('redirectTo') ?? undefined);
+	const redirectTo = redirectTarget(event.url.searchParams.get('redirectTo'));
 	if (await signedInUser(event)) redirect(303, redirectTo);
 	return { redirectTo, email: event.url.searchParams.get('email') ?? '' };
 };
@@ -25,10 +28,15 @@ export const actions: Actions = {
 		const created = await createAccount(db(), parsed.data);
 		if (!created.ok) {
 			// Say nothing here about whether the address has an account; its owner hears by e-mail.
-			await sendMail(accountExistsMessage(parsed.data.email, `${event.url.origin}/signin`));
+			await sendMail(accountExistsMessage(parsed.data.email, linkTo('/signin')));
 			return { checkEmail: true };
 		}
+		const next = redirectTarget(parsed.data.redirectTo);
 		await passwordSignIn(event, parsed.data.email, parsed.data.password);
-		redirect(303, parsed.data.redirectTo === '/' ? '/builds' : parsed.data.redirectTo);
+		// The account is unconfirmed until a link mailed to the address is opened (address-proof.ts);
+		// this browser is marked as the one that chose the password, so opening the link here keeps it.
+		await rememberSignUp(db(), event.cookies, created.user.id, event.url.protocol === 'https:');
+		await sendSignInLink(event, parsed.data.email, next);
+		redirect(303, next);
 	}
 };

@@ -6,6 +6,8 @@ import { logActivity } from '$lib/server/activity';
 import { db } from '$lib/server/db';
 import { sendMail } from '$lib/server/mail';
 import { invitationMessage } from '$lib/server/messages';
+import { linkTo } from '$lib/server/origin';
+import { redirectTarget } from '$lib/server/redirect-target';
 import { createInvitation, membersOf, pendingInvitations, removeMember, revokeInvitation, setRole } from '$lib/server/workshops';
 import type { Actions, PageServerLoad } from './$types';
 
@@ -51,7 +53,7 @@ export const actions: Actions = {
 				workshop: access.workshop.name,
 				inviter: access.user.name,
 				role: parsed.data.role,
-				url: `${event.url.origin}/invite/${token}`
+				url: linkTo(`/invite/${token}`)
 			})
 		);
 		if (fromBuild) await logActivity(db(), { buildId: fromBuild.buildId, actorId: access.user.id, kind: 'invitation', summary: `${parsed.data.email} invited into ${access.workshop.name} as ${parsed.data.role}` });
@@ -91,7 +93,6 @@ export const actions: Actions = {
 		const parsed = parseForm(workshopId, form);
 		if (!parsed.ok) return fail(400, { action: 'switch', errors: parsed.errors });
 		await chooseWorkshop(event, parsed.data.workshopId);
-		const back = String(form.get('redirectTo') ?? '/builds');
-		redirect(303, back.startsWith('/') && !back.startsWith('//') ? back : '/builds');
+		redirect(303, redirectTarget(form.get('redirectTo')));
 	}
 };

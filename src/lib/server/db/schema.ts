@@ -20,8 +20,31 @@ export const user = pgTable('user', {
 	image: text('image'),
 	/** argon2id hash; null for accounts that only ever signed in by e-mail link. */
 	passwordHash: text('password_hash'),
+	/**
+	 * When someone who holds the address stood behind the password (a reset link, a change by a
+	 * confirmed account, the sign-up browser opening its confirmation link). Null: a password nobody
+	 * verified, which confirming the address by link clears (address-proof.ts).
+	 */
+	passwordConfirmedAt: timestamp('password_confirmed_at', { withTimezone: true }),
 	createdAt: createdAt()
 });
+
+/**
+ * One row per signed-in browser. The session cookie (a JWT) names its row; a request whose row is
+ * gone is signed out, so sign-out, a password change or reset and "sign out everywhere" end
+ * sessions at once, however long the cookie would still be valid (sessions.ts).
+ */
+export const userSession = pgTable(
+	'user_session',
+	{
+		id: uuid('id').primaryKey().defaultRandom(),
+		userId: uuid('user_id')
+			.notNull()
+			.references(() => user.id, { onDelete: 'cascade' }),
+		createdAt: createdAt()
+	},
+	(t) => [index('user_session_user').on(t.userId)]
+);
 
 export const account = pgTable(
 	'account',
