@@ -103,7 +103,7 @@ describe('TDC from two piston-stop readings', () => {
 	});
 
 	it('readings across 0 on a 0–360 scale (350 and 20: TDC at 5 ATDC, spread 30)', () => {
-		for (const [a, b] of [['350', '20'], ['20', '350']]) {
+		for (const [a, b] of [['350', '20'], ['20', '350']] as const) {
 			const r = found(a, b, 'full');
 			const o = bisector(350, 20);
 			closeAngle(r.tdcDeg, o.tdc);
