@@ -20,8 +20,8 @@ describe('saving tool results into a build (Chromium)', () => {
 	it('keeps a TDC record from the TDC finder, with the TDC half-way between the marks', async () => {
 		const page = await (await contextFor(browser, client.cookies)).newPage();
 		await page.goto(`${baseUrl}/tdc?build=${buildId}`);
-		await page.getByLabel('First mark (°)').fill('-14');
-		await page.getByLabel('Second mark (°)').fill('15');
+		await page.getByLabel('First mark').fill('-14');
+		await page.getByLabel('Second mark').fill('15');
 		await page.getByLabel('Label (optional)').fill('hot, after the run');
 		// The address keeps the build while the readings go into it.
 		await expect.poll(() => new URL(page.url()).searchParams.get('b')).toBe('15');
@@ -29,8 +29,8 @@ describe('saving tool results into a build (Chromium)', () => {
 		await page.getByRole('button', { name: 'Save TDC record to the build' }).click();
 		await page.getByText('Saved in the build.').waitFor();
 		const { body } = await client.json<Overview>(`/api/v1/builds/${buildId}`);
-		// Marks 29° apart: TDC 14.5° from each, at 0.5° (common practice).
-		expect(body.tdcRecords).toMatchObject([{ label: 'hot, after the run', tdcDeg: '0.5', params: { a: '-14', b: '15' } }]);
+		// Marks 29° apart: TDC 14.5° from each, at 0.5° (common practice); −14 on the signed scale is 14 BTDC.
+		expect(body.tdcRecords).toMatchObject([{ label: 'hot, after the run', tdcDeg: '0.5', params: { a: '14 BTDC', b: '15 ATDC', scale: 'signed', rotation: 'cw' } }]);
 	});
 
 	it('keeps the degree tape printed for the hub', async () => {
