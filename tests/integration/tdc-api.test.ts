@@ -45,7 +45,7 @@ describe('GET /api/v1/tdc with readings and their sides', () => {
 	});
 
 	it('the same marks typed every way people type them, on each scale', async () => {
-		for (const params of [
+		for (const params of <Record<string, string>[]>[
 			{ a: '-10', b: '19' },
 			{ a: '\u221210', b: '19' },
 			{ a: '10B', b: '19 A' },
@@ -76,7 +76,7 @@ describe('GET /api/v1/tdc with readings and their sides', () => {
 
 	it('says which way and how far to re-mark on this hub, against a model of the tape passing the pointer', async () => {
 		for (const rotation of ['cw', 'ccw'] as const) {
-			for (const [a, b] of [['10 BTDC', '19 ATDC'], ['19 BTDC', '10 ATDC']]) {
+			for (const [a, b] of [['10 BTDC', '19 ATDC'], ['19 BTDC', '10 ATDC']] as const) {
 				const { body } = await get({ a, b, rotation, diameter: '76.2' });
 				const tdc = bisector(a.startsWith('10') ? -10 : -19, b.startsWith('19') ? 19 : 10);
 				// At true TDC the pointer stands over the graduation the new 0 goes on.

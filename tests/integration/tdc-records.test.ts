@@ -59,7 +59,7 @@ describe('the migration of records saved as plain numbers', () => {
 		const [shop] = await database.insert(workshop).values({ slug: `tdc-mig-${Date.now()}`, name: 'Migration bench' }).returning();
 		const [b] = await database.insert(build).values({ workshopId: shop!.id, name: 'Old records' }).returning();
 		// Rows as the old code saved them: readings as typed, tdc_deg on the scale (0–360 on a full wheel).
-		const old = [
+		const old: { label: string; params: Record<string, string>; tdcDeg: string }[] = [
 			{ label: 'signed', params: { a: '-14', b: '15' }, tdcDeg: '0.5' },
 			{ label: 'full inferred', params: { a: '350', b: '20' }, tdcDeg: '5' },
 			{ label: 'full named', params: { a: '10', b: '340', scale: 'full' }, tdcDeg: '355' },
