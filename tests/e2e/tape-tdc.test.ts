@@ -31,10 +31,10 @@ describe('TDC finder and degree tape in Chromium (signed out)', () => {
 		await expect.poll(() => page.getByTestId('tdc-result').innerText()).toBe('4.5° ATDC');
 		expect(await page.getByTestId('tdc-half').innerText()).toBe('14.5°');
 		await page.getByLabel('Rim diameter under the scale (mm), optional').fill('76.2');
-		// s = π·D·θ/360 = π·76.2·4.5/360 = 2.99 mm (by hand). Clockwise crank: the tape moves toward its
+		// s = π·D·θ/360 = π·76.2·4.5/360 = 2.992 mm (by hand). Clockwise crank: the tape moves toward its
 		// right past the pointer (3D rim model, src/lib/trade/hub.test.ts), so the 4.5 ATDC graduation,
 		// under the pointer at true TDC, trails 0 on its left.
-		await expect.poll(() => page.getByTestId('tdc-remark').innerText()).toMatch(/3\.0 mm along the rim.*to the left of it on a tape/);
+		await expect.poll(() => page.getByTestId('tdc-remark').innerText()).toMatch(/2\.99 mm along the rim.*to the left of it on a tape/);
 		expect(await page.getByTestId('tdc-pointer').innerText()).toMatch(/the way the crank turns, over the old 0 \(clockwise seen from the wheel side\)/);
 		// The drawing, seen from the wheel side (clockwise crank: BTDC clockwise of 0, ahead of it): with
 		// TDC under the pointer at 12 o'clock, the 10 BTDC stop lies right of the top and 19 ATDC left.

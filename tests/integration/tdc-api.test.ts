@@ -83,12 +83,12 @@ describe('GET /api/v1/tdc with readings and their sides', () => {
 				const at = underPointerMm(tdc, rotation, 76.2);
 				const side = at > 0 ? 'right' : 'left';
 				expect(body.rimDistance).toBeCloseTo(Math.abs(at), 6);
-				expect(body.remark).toContain(`${Math.abs(at).toFixed(1)} mm along the rim`);
+				expect(body.remark).toContain(`${Math.abs(at).toFixed(2)} mm along the rim`);
 				expect(body.remark).toContain(`to the ${side} of it on a tape read upright from the wheel side`);
 			}
 		}
-		// 4.5° on a 76.2 mm hub: 76.2·π·4.5/360 = 2.99 mm (by hand).
-		expect((await get({ a: '10 BTDC', b: '19 ATDC', rotation: 'cw', diameter: '76.2' })).body.remark).toMatch(/3\.0 mm along the rim.*to the left of it/);
+		// 4.5° on a 76.2 mm hub: 76.2·π·4.5/360 = 2.992 mm (by hand).
+		expect((await get({ a: '10 BTDC', b: '19 ATDC', rotation: 'cw', diameter: '76.2' })).body.remark).toMatch(/2\.99 mm along the rim.*to the left of it/);
 	});
 
 	it('refuses a 0–90–0 wheel’s readings typed as plain numbers (they used to give 14.5°, spread 9°)', async () => {
