@@ -172,7 +172,7 @@ export function tdcAdvice(tdcDeg: number, scale: Scale, options: { rotation?: Ro
 	const mm = diameterMm ? rimMm(x, diameterMm) : null;
 	if (Math.abs(x) < 0.005) return { finding: "True TDC is at the scale's 0.", remark: '', pointer: '', rimMm: mm };
 	const side = x < 0 ? 'BTDC' : 'ATDC';
-	const by = `${fmt(Math.abs(x))}°${mm === null ? '' : ` (${length(mm)} along the rim${diameterMm ? ` of ${length(diameterMm)} diameter` : ''})`}`;
+	const by = `${fmt(Math.abs(x))}°${mm === null ? '' : ` (${length(mm)} along the rim)`}`;
 	const reading = scale === 'signed' || scale === 'full' ? ` (the ${scaleText(x, scale)} graduation)` : '';
 	let remark = `Re-mark TDC: put a new 0 at ${sideText(x, scale)} on the old scale${reading}, ${by} on the ${side} side of the old 0`;
 	let pointer = `Or move the pointer ${by} ${x > 0 ? 'the way the crank turns' : 'against the way the crank turns'}, over the old 0`;
