@@ -18,7 +18,7 @@ export const demoBuilds = [
 			{ params: { units: 'mm', teeth: '36', missing: '1', od: '110', depth: '5', bore: '22', thickness: '3', material: 'steel', rpm: '7000' }, message: 'First cut, from the points-cam diameter' },
 			{ params: { units: 'mm', teeth: '36', missing: '1', od: '110', depth: '5', bore: '22', keyway: 'din6885', shaft: '22', thickness: '3', material: 'steel', rpm: '7000', tipRadius: '0.5' }, message: 'Keyway for the 22 mm stub, tip radius for the laser' }
 		],
-		tdc: { label: 'Piston stop, cold', params: { a: '-16', b: '13' }, tdcDeg: '-1.5' }
+		tdc: { label: 'Piston stop, cold', params: { a: '16 BTDC', b: '13 ATDC', scale: 'signed' }, tdcDeg: '-1.5' }
 	},
 	{
 		name: 'Roadster twin 650, 360° crank',

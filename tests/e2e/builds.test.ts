@@ -118,21 +118,22 @@ describe('a build’s page in Chromium', () => {
 		expect(await page.getByRole('link', { name: 'Set up the engine profile' }).getAttribute('href')).toBe(`/phasing?build=${buildId}`);
 
 		// A reading out of range is refused beside its field (the API names it params.a).
-		await page.getByLabel('First mark (°)').fill('400');
-		await page.getByLabel('Second mark (°)').fill('15');
+		await page.getByLabel('First mark').fill('400');
+		await page.getByLabel('Second mark').fill('15');
 		await page.getByRole('button', { name: 'Save TDC record' }).click();
-		await expect.poll(() => page.locator('#tdc-a-error').textContent()).toMatch(/-360 to 360/);
+		await expect.poll(() => page.locator('#tdc-a-error').textContent()).toMatch(/−180 to 180 \(negative = BTDC\)/);
 
-		// Marks −14° and 15°: TDC half-way between, at 0.5° (common practice: piston-stop TDC = a + (b − a) / 2).
+		// Marks −14° and 15° on the signed scale (negative = BTDC): TDC half-way between, at 0.5° ATDC
+		// (common practice: piston-stop TDC = a + (b − a) / 2); the record shows the sides.
 		await page.getByLabel('Label', { exact: true }).fill('Cylinder 1, plug-hole stop');
-		await page.getByLabel('First mark (°)').fill('-14');
+		await page.getByLabel('First mark').fill('-14');
 		await page.getByRole('button', { name: 'Save TDC record' }).click();
 		await expect.poll(() => page.getByTestId('tdc-records').innerText()).toContain('Cylinder 1, plug-hole stop');
 		const record = await page.getByTestId('tdc-records').innerText();
-		expect(record).toMatch(/TDC 0\.5°/);
-		expect(record).toMatch(/−14°/);
+		expect(record).toMatch(/TDC 0\.5° ATDC of the scale’s 0/);
+		expect(record).toMatch(/from marks 14° BTDC and 15° ATDC, signed scale/);
 		expect(await page.locator('#tdc-a-error').count()).toBe(0);
-		expect(await page.getByTestId('tdc-records').getByRole('link', { name: 'Open in tool' }).getAttribute('href')).toBe('/tdc?a=-14&b=15');
+		expect(await page.getByTestId('tdc-records').getByRole('link', { name: 'Open in tool' }).getAttribute('href')).toBe('/tdc?a=14+BTDC&b=15+ATDC&scale=signed');
 
 		// A wheel design saved through the API shows after a reload, with its head revision's files.
 		const design = await owner.send<{ id: string; revision: number }>('POST', `/api/v1/builds/${buildId}/designs`, {
@@ -179,7 +180,7 @@ describe('a build’s page in Chromium', () => {
 		await expect.poll(() => page.getByTestId('cutting-packages').innerText()).toContain(fabricator);
 		const log = page.getByTestId('activity-log').getByRole('listitem');
 		expect(await log.first().innerText()).toContain(`Cutting package for “Crank wheel 36-1” revision 1 (2 off) sent to ${fabricator}`);
-		expect(await page.getByTestId('activity-log').innerText()).toContain('TDC at 0.5°');
+		expect(await page.getByTestId('activity-log').innerText()).toContain('TDC 0.5° ATDC');
 
 		// An owner invites from the build's page: into the build's workshop, and the build's log says so.
 		const newcomer = freshEmail('e2e-newcomer');

@@ -1,8 +1,9 @@
 // A tool opened from a build keeps its result in the build: the TDC finder and the degree tape.
+import { join } from 'node:path';
 import type { Browser } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { Client, freshEmail, signUp } from '../support/client';
-import { baseUrl, contextFor, launch } from './browser';
+import { baseUrl, contextFor, launch, screenshots } from './browser';
 
 let browser: Browser;
 let client: Client;
@@ -20,8 +21,8 @@ describe('saving tool results into a build (Chromium)', () => {
 	it('keeps a TDC record from the TDC finder, with the TDC half-way between the marks', async () => {
 		const page = await (await contextFor(browser, client.cookies)).newPage();
 		await page.goto(`${baseUrl}/tdc?build=${buildId}`);
-		await page.getByLabel('First mark (°)').fill('-14');
-		await page.getByLabel('Second mark (°)').fill('15');
+		await page.getByLabel('First mark').fill('-14');
+		await page.getByLabel('Second mark').fill('15');
 		await page.getByLabel('Label (optional)').fill('hot, after the run');
 		// The address keeps the build while the readings go into it.
 		await expect.poll(() => new URL(page.url()).searchParams.get('b')).toBe('15');
@@ -29,8 +30,13 @@ describe('saving tool results into a build (Chromium)', () => {
 		await page.getByRole('button', { name: 'Save TDC record to the build' }).click();
 		await page.getByText('Saved in the build.').waitFor();
 		const { body } = await client.json<Overview>(`/api/v1/builds/${buildId}`);
-		// Marks 29° apart: TDC 14.5° from each, at 0.5° (common practice).
-		expect(body.tdcRecords).toMatchObject([{ label: 'hot, after the run', tdcDeg: '0.5', params: { a: '-14', b: '15' } }]);
+		// Marks 29° apart: TDC 14.5° from each, at 0.5° (common practice); −14 on the signed scale is 14 BTDC.
+		expect(body.tdcRecords).toMatchObject([{ label: 'hot, after the run', tdcDeg: '0.5', params: { a: '14 BTDC', b: '15 ATDC', scale: 'signed', rotation: 'cw' } }]);
+		// The build page lists it with its sides.
+		await page.setViewportSize({ width: 390, height: 844 });
+		await page.goto(`${baseUrl}/builds/${buildId}`);
+		await expect.poll(() => page.getByTestId('tdc-records').innerText()).toMatch(/TDC 0\.5° ATDC of the scale’s 0\s+from marks 14° BTDC and 15° ATDC, signed scale/);
+		await page.getByTestId('tdc-records').screenshot({ path: join(screenshots, 'build-tdc-records.png') });
 	});
 
 	it('keeps the degree tape printed for the hub', async () => {

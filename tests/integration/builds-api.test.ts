@@ -183,7 +183,8 @@ describe('engine profile and records on a build', () => {
 		expect(ok.status).toBe(201);
 		const bad = await me.client.send<{ errors: Record<string, string> }>('POST', `/api/v1/builds/${buildId}/tdc-records`, { params: { a: '400', b: '15' } });
 		expect(bad.status).toBe(400);
-		expect(bad.body.errors['params.a']).toMatch(/^a: a number from -360 to 360/);
+		// A plain number past 180 can only be on a 0–360 wheel, and 400 is past its end.
+		expect(bad.body.errors['params.a']).toMatch(/^a: a reading from 0 to 360 \(10 = 10 ATDC, 350 = 10 BTDC\)/);
 		const tape = await me.client.send('POST', `/api/v1/builds/${buildId}/tapes`, { label: 'pulley', params: { units: 'mm', diameter: '120' } });
 		expect(tape.status).toBe(201);
 		const { body } = await me.client.json<{ tdcRecords: { tdcDeg: string; label: string }[]; tapes: unknown[]; activity: { kind: string; summary: string }[] }>(`/api/v1/builds/${buildId}`);

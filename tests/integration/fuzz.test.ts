@@ -27,7 +27,7 @@ afterAll(() => console.log(`fuzz: ${total} requests, seed ${seed}`));
 
 const wheelNames = wheelParamNames;
 const tapeNames = ['units', 'diameter', 'circumference', 'paperThickness', 'rotation', 'paper', 'window', 'tick', 'mid', 'label', 'timing', 'tdc2'];
-const tdcNames = ['a', 'b', 'scale', 'arc', 'distance', 'diameter', 'units'];
+const tdcNames = ['a', 'b', 'scale', 'arc', 'rotation', 'distance', 'diameter', 'units'];
 const cardNames = ['units', 'diameter', 'circumference', 'paperThickness', 'rotation', 'paper', 'curve'];
 const phasingNames = ['teeth', 'missing', 'duty', 'mount', 'layout', 'vAngle', 'stroke', 'intervals', 'cylinders', 'input', 'toothAtTdc', 'sensorAngle', 'keywayAngle', 'keyAngle', 'edge', 'rpm', 'cranking', 'sensor', 'sensorMaxHz', 'windowFrom', 'windowTo', 'resolution', 'target', 'keyFromSensor'];
 const sheetNames = [...new Set([...wheelNames, ...phasingNames, ...buildSheetKeys])];

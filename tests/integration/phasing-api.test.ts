@@ -147,7 +147,8 @@ describe('GET /api/v1/build-sheet.pdf', () => {
 		expect(text).toMatch(/First-tooth offset\s+90° BTDC/);
 		expect(text).toMatch(/36-1, 35 teeth, pitch 10°/);
 		// Seed document: marks 29° apart, TDC 14.5° from each.
-		expect(text).toMatch(/-10° and 19°: true TDC at 4\.5°, spread 29° \(14\.5° each side\)/);
+		// −10 on a signed scale is 10° BTDC (negative = BTDC); the record is printed with its sides.
+		expect(text).toMatch(/10° BTDC and 19° ATDC: true TDC 4\.5° ATDC of the scale's 0, spread 29°\s+\(14\.5° each side\)/);
 		expect(text).toContain('crank-only wheel on a four-stroke');
 	});
 

@@ -3,10 +3,10 @@ import { cycleDeg, layoutChoices, layouts, legacyVTwin, vAngleRange, vTwin, type
 import { patternRefusals } from '$lib/trade/pattern';
 import { keyFromSensorFrom, toothAtTdcFrom, type MeasuredAngles, type PhasingInput } from '$lib/trade/phasing';
 import { summarize, type WheelSummary } from '$lib/trade/summary';
-import { tdcFromMarks, type TdcResult } from '$lib/trade/tdc';
+import type { TdcResult } from '$lib/trade/tdc';
 import { formatLength, parseLength, toMm } from '$lib/trade/units';
 import type { FieldErrors } from './form';
-import { parseTdc } from './tape';
+import { findTdc } from './tdc';
 import { gapsField, parseWheel, patternKinds, patternOf, type ParsedWheel } from './wheel';
 
 // The phasing check's public parameters (query or form), flat strings. Refusals name the field.
@@ -205,20 +205,16 @@ export function parseBuildSheet(params: Record<string, string | undefined>): { o
 	let tdc: ParsedBuildSheet['tdc'] = null;
 	const { tdcA, tdcB, tapeDiameter } = given;
 	if (tdcA !== undefined || tdcB !== undefined) {
-		const marks = parseTdc({ a: tdcA, b: tdcB });
-		// parseTdc and tdcFromMarks name their fields a and b: here they are tdcA and tdcB.
+		const marks = findTdc({ a: tdcA, b: tdcB });
+		// findTdc names its fields a and b: here they are tdcA and tdcB.
 		const rename = (field: string, message: string) => {
 			const named = `tdc${field.toUpperCase()}`;
 			const text = message.startsWith(`${field}:`) ? `${named}${message.slice(field.length)}` : `${named}: ${message}`;
 			errors[named] ??= text.replace(/^tdcB: must differ from a\b/, 'tdcB: must differ from tdcA');
 		};
-		if (!marks.ok) for (const [k, m] of Object.entries(marks.errors)) rename(k, m);
-		else if (marks.value.kind !== 'marks') errors.tdcA ??= 'tdcA: a piston-stop reading in degrees';
-		else {
-			const answer = tdcFromMarks(marks.value.a, marks.value.b, marks.value.scale, marks.value.arc);
-			if (!answer.ok) rename(answer.field, answer.message);
-			else tdc = { a: marks.value.a, b: marks.value.b, result: answer.result };
-		}
+		if (marks.ok === false) for (const [k, m] of Object.entries(marks.errors)) rename(k, m);
+		else if (marks.ok === 'rim') errors.tdcA ??= 'tdcA: a piston-stop reading in degrees';
+		else tdc = { a: marks.value.marks.a.atdcDeg, b: marks.value.marks.b.atdcDeg, result: marks.value.result };
 	}
 	let tapeHubMm: number | null = null;
 	if (tapeDiameter !== undefined) {

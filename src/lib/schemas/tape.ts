@@ -4,15 +4,15 @@ import type { AdvancePoint } from '$lib/trade/timing';
 import { formatLength, parseLength, toMm, type Units } from '$lib/trade/units';
 import type { FieldErrors } from './form';
 
-// Public parameters of the degree tape, the TDC finder and the timing-light card, as flat strings
+// Public parameters of the degree tape and the timing-light card, as flat strings
 // (query, form). Lengths in `units`, fractions allowed; refusals name the field and its range.
 
-const oneOf = <T extends readonly [string, ...string[]]>(field: string, values: T) => z.enum(values, { error: `${field}: one of ${values.join(', ')}` });
+export const oneOf = <T extends readonly [string, ...string[]]>(field: string, values: T) => z.enum(values, { error: `${field}: one of ${values.join(', ')}` });
 const number = (field: string, min: number, max: number, unit = '') => {
 	const range = `${field}: a number from ${min} to ${max}${unit}`;
 	return z.coerce.number({ error: range }).min(min, { error: range }).max(max, { error: range });
 };
-function length(field: string, units: Units, minMm: number, maxMm: number) {
+export function length(field: string, units: Units, minMm: number, maxMm: number) {
 	const range = `${field}: ${formatLength(minMm, units)} to ${formatLength(maxMm, units)}`;
 	return z.string().transform((text, ctx) => {
 		const mm = toMm(parseLength(text), units);
@@ -48,11 +48,11 @@ function labelled(field: string, example: string, min: number, max: number) {
 		});
 }
 
-const unitsOf = (params: Record<string, string | undefined>): Units | null => (params.units === undefined || params.units === '' || params.units === 'mm' ? 'mm' : params.units === 'in' ? 'in' : null);
+export const unitsOf = (params: Record<string, string | undefined>): Units | null => (params.units === undefined || params.units === '' || params.units === 'mm' ? 'mm' : params.units === 'in' ? 'in' : null);
 
-const given = (params: Record<string, string | undefined>) => Object.fromEntries(Object.entries(params).filter(([, v]) => v !== undefined && v !== ''));
+export const given = (params: Record<string, string | undefined>) => Object.fromEntries(Object.entries(params).filter(([, v]) => v !== undefined && v !== ''));
 
-function collect(error: z.ZodError): FieldErrors {
+export function collect(error: z.ZodError): FieldErrors {
 	const errors: FieldErrors = {};
 	for (const issue of error.issues) errors[String(issue.path[0] ?? 'form')] ??= issue.message;
 	return errors;
@@ -120,39 +120,6 @@ export function parseTape(params: Record<string, string | undefined>): { ok: tru
 			}
 		}
 	};
-}
-
-export type ParsedTdc =
-	| { kind: 'marks'; a: number; b: number; scale: 'signed' | 'full'; arc: 'shorter' | 'longer' }
-	| { kind: 'rim'; units: Units; distanceMm: number; diameterMm: number };
-
-export function parseTdc(params: Record<string, string | undefined>): { ok: true; value: ParsedTdc } | { ok: false; errors: FieldErrors } {
-	const p = given(params);
-	if (p.distance !== undefined || p.diameter !== undefined) {
-		const units = unitsOf(params);
-		if (!units) return { ok: false, errors: { units: 'units: one of mm, in' } };
-		const parsed = z
-			.object({ distance: length('distance', units, 0.1, 3000), diameter: length('diameter', units, 10, 2000) })
-			.safeParse({ distance: p.distance ?? '', diameter: p.diameter ?? '' });
-		if (!parsed.success) return { ok: false, errors: collect(parsed.error) };
-		if (parsed.data.distance >= Math.PI * parsed.data.diameter) {
-			return { ok: false, errors: { distance: `distance: less than the rim's circumference (${formatLength(Math.PI * parsed.data.diameter, units)})` } };
-		}
-		return { ok: true, value: { kind: 'rim', units, distanceMm: parsed.data.distance, diameterMm: parsed.data.diameter } };
-	}
-	const parsed = z
-		.object({
-			a: number('a', -360, 360, '°'),
-			b: number('b', -360, 360, '°'),
-			scale: oneOf('scale', ['signed', 'full'] as const).optional(),
-			arc: oneOf('arc', ['shorter', 'longer'] as const).default('shorter')
-		})
-		.safeParse({ a: p.a ?? 'missing', b: p.b ?? 'missing', scale: p.scale, arc: p.arc });
-	if (!parsed.success) return { ok: false, errors: collect(parsed.error) };
-	const { a, b, arc } = parsed.data;
-	// Negative readings mean a signed scale; otherwise a 0–360 wheel unless told.
-	const scale = parsed.data.scale ?? (a < 0 || b < 0 ? 'signed' : a > 180 || b > 180 ? 'full' : 'signed');
-	return { ok: true, value: { kind: 'marks', a, b, scale, arc } };
 }
 
 export interface ParsedCard {

@@ -1,7 +1,8 @@
 import { and, desc, eq } from 'drizzle-orm';
-import { parseTape, parseTdc } from '$lib/schemas/tape';
+import { parseTape } from '$lib/schemas/tape';
+import { findTdc, tdcRecordParams } from '$lib/schemas/tdc';
 import type { FieldErrors } from '$lib/schemas/form';
-import { spreadFromRim, tdcFromMarks } from '$lib/trade/tdc';
+import { sideText, spreadFromRim } from '$lib/trade/tdc';
 import type { Database, Queryable } from './db';
 import { degreeTape, tdcRecord, user, type FlatParams } from './db/schema';
 import { logActivity } from './activity';
@@ -15,19 +16,20 @@ const keep = (params: FlatParams) => Object.fromEntries(Object.entries(params).f
 export type RecordWrite = { ok: true; id: string } | { ok: false; errors: FieldErrors };
 
 export async function saveTdcRecord(database: Database, buildId: string, input: { label: string; params: FlatParams }, authorId: string): Promise<RecordWrite> {
-	const parsed = parseTdc(input.params);
-	if (!parsed.ok) return { ok: false, errors: parsed.errors };
-	const v = parsed.value;
-	if (v.kind !== 'marks') {
-		const spread = spreadFromRim(v.distanceMm, v.diameterMm);
+	const found = findTdc(input.params);
+	if (found.ok === false) return { ok: false, errors: found.errors };
+	if (found.ok === 'rim') {
+		const spread = spreadFromRim(found.value.distanceMm, found.value.diameterMm);
 		return { ok: false, errors: { a: `a: a TDC record needs the two piston-stop readings in degrees (the rim distance gives a spread of ${spread.spreadDeg.toFixed(2)}°)` } };
 	}
-	const answer = tdcFromMarks(v.a, v.b, v.scale, v.arc);
-	if (!answer.ok) return { ok: false, errors: { [answer.field]: answer.message } };
-	const tdcDeg = String(Math.round(answer.result.tdcDeg * 1000) / 1000);
+	const { marks, result } = found.value;
+	// Kept with their sides and scale, so the record never depends on how the readings were typed.
+	const params = tdcRecordParams(marks, input.params);
+	// tdc_deg: degrees ATDC of the scale's 0, BTDC negative, on every scale.
+	const tdcDeg = String(Math.round(result.tdcDeg * 1000) / 1000);
 	return database.transaction(async (tx) => {
-		const [row] = await tx.insert(tdcRecord).values({ buildId, label: input.label, params: keep(input.params), tdcDeg, authorId }).returning({ id: tdcRecord.id });
-		await logActivity(tx, { buildId, actorId: authorId, kind: 'tdc', summary: `TDC record${input.label ? ` “${input.label}”` : ''}: marks ${v.a}° and ${v.b}°, TDC at ${tdcDeg}°` });
+		const [row] = await tx.insert(tdcRecord).values({ buildId, label: input.label, params, tdcDeg, authorId }).returning({ id: tdcRecord.id });
+		await logActivity(tx, { buildId, actorId: authorId, kind: 'tdc', summary: `TDC record${input.label ? ` “${input.label}”` : ''}: marks ${sideText(marks.a.atdcDeg, marks.scale)} and ${sideText(marks.b.atdcDeg, marks.scale)}, TDC ${sideText(result.tdcDeg, marks.scale)} of the scale's 0` });
 		await touchBuild(tx, buildId);
 		return { ok: true as const, id: row!.id };
 	});

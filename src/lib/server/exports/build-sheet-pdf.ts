@@ -6,7 +6,7 @@ import { gapsOf } from '$lib/trade/pattern';
 import { clockingFor, type PhasingResult } from '$lib/trade/phasing';
 import type { WheelSummary } from '$lib/trade/summary';
 import { mmPerDegree } from '$lib/trade/tape';
-import type { TdcResult } from '$lib/trade/tdc';
+import { sideText, type TdcResult } from '$lib/trade/tdc';
 import { formatLength } from '$lib/trade/units';
 import { finish, mm, newDocument, papers } from './pdf-kit';
 import { specRows } from './wheel-pdf';
@@ -83,7 +83,7 @@ export async function buildSheetPdf(s: BuildSheet): Promise<Buffer> {
 	);
 
 	section('TDC record and tape');
-	row('Piston-stop marks', s.tdc ? `${s.tdc.a}° and ${s.tdc.b}°: true TDC at ${s.tdc.result.tdcDeg}°, spread ${s.tdc.result.spreadDeg}° (${s.tdc.result.halfSpreadDeg}° each side)` : 'not recorded');
+	row('Piston-stop marks', s.tdc ? `${sideText(s.tdc.a)} and ${sideText(s.tdc.b)}: true TDC ${sideText(s.tdc.result.tdcDeg)} of the scale's 0, spread ${s.tdc.result.spreadDeg}° (${s.tdc.result.halfSpreadDeg}° each side)` : 'not recorded');
 	row('Degree tape', s.tapeHubMm ? `hub ${formatLength(s.tapeHubMm, s.wheel.units)}, ${formatLength(mmPerDegree({ hubDiameterMm: s.tapeHubMm, paperThicknessMm: 0.1 }), s.wheel.units)} per degree` : 'not recorded');
 
 	section('Warnings outstanding');

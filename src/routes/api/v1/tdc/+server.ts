@@ -1,18 +1,35 @@
 import { json } from '@sveltejs/kit';
-import { parseTdc } from '$lib/schemas/tape';
+import { findTdc } from '$lib/schemas/tdc';
 import { refuse } from '$lib/server/api';
-import { spreadFromRim, tdcFromMarks } from '$lib/trade/tdc';
-import { fromMm } from '$lib/trade/units';
+import { onScale, readingParam, scaleText, sideText, spreadFromRim, tdcAdvice } from '$lib/trade/tdc';
+import { formatLength, fromMm } from '$lib/trade/units';
+
+const r6 = (x: number) => Math.round(x * 1e6) / 1e6;
 
 export function GET({ url }) {
-	const parsed = parseTdc(Object.fromEntries(url.searchParams));
-	if (!parsed.ok) return refuse(parsed.errors);
-	const v = parsed.value;
-	if (v.kind === 'rim') {
+	const found = findTdc(Object.fromEntries(url.searchParams));
+	if (found.ok === false) return refuse(found.errors);
+	if (found.ok === 'rim') {
+		const v = found.value;
 		const r = spreadFromRim(v.distanceMm, v.diameterMm);
-		return json({ units: v.units, spreadDeg: r.spreadDeg, halfSpreadDeg: r.halfSpreadDeg, fromEitherMark: Math.round(fromMm(r.fromEitherMarkMm, v.units) * 1e6) / 1e6 });
+		return json({ units: v.units, spreadDeg: r.spreadDeg, halfSpreadDeg: r.halfSpreadDeg, fromEitherMark: r6(fromMm(r.fromEitherMarkMm, v.units)) });
 	}
-	const answer = tdcFromMarks(v.a, v.b, v.scale, v.arc);
-	if (!answer.ok) return refuse({ [answer.field]: answer.message });
-	return json({ scale: v.scale, arc: v.arc, ...answer.result });
+	const { marks, result } = found.value;
+	const advice = tdcAdvice(result.tdcDeg, marks.scale, { rotation: marks.rotation ?? undefined, diameterMm: marks.diameterMm ?? undefined, lengthText: (mm) => formatLength(mm, marks.units) });
+	const reading = (atdcDeg: number) => ({ atdcDeg: r6(atdcDeg), written: readingParam(atdcDeg, marks.scale), onScale: scaleText(atdcDeg, marks.scale) });
+	return json({
+		scale: marks.scale,
+		arc: marks.arc,
+		// The reading of true TDC on a numeric scale, as before; on a quadrant wheel, degrees ATDC (BTDC negative).
+		tdcDeg: marks.scale === 'quadrant' ? result.tdcDeg : r6(onScale(result.tdcDeg, marks.scale)),
+		spreadDeg: result.spreadDeg,
+		halfSpreadDeg: result.halfSpreadDeg,
+		a: reading(marks.a.atdcDeg),
+		b: reading(marks.b.atdcDeg),
+		tdc: { ...reading(result.tdcDeg), side: sideText(result.tdcDeg, marks.scale) },
+		finding: advice.finding,
+		remark: advice.remark,
+		pointer: advice.pointer,
+		...(advice.rimMm === null ? {} : { units: marks.units, rimDistance: r6(fromMm(advice.rimMm, marks.units)) })
+	});
 }
