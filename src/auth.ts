@@ -8,6 +8,7 @@ import { config } from '$lib/server/config';
 import { db } from '$lib/server/db';
 import { account, user, verificationToken } from '$lib/server/db/schema';
 import { sendMail } from '$lib/server/mail';
+import { linkThrottledTarget } from '$lib/server/mail-throttle';
 import { signInLinkMessage } from '$lib/server/messages';
 
 /** Too many failed attempts: the sign-in page says so and when to try again. */
@@ -62,6 +63,12 @@ export const { handle: authHandle, signIn, signOut } = SvelteKitAuth(async (even
 			}
 		},
 		callbacks: {
+			// Every sign-in link, asked through our form or Auth.js's own route, is counted before it is
+			// made; past the limit Auth.js sends nothing and goes to the address returned (mail-throttle.ts).
+			async signIn({ user: who, email }) {
+				if (!email?.verificationRequest || !who.email) return true;
+				return (await linkThrottledTarget(db(), who.email, event.getClientAddress())) ?? true;
+			},
 			session({ session, token }) {
 				if (token.sub) session.user.id = token.sub;
 				return session;

@@ -1,7 +1,9 @@
 import type { Handle, HandleServerError } from '@sveltejs/kit';
 import { sequence } from '@sveltejs/kit/hooks';
 import { parseTheme, themeCookie } from '$lib/theme';
+import { bodyLimitHandle } from '$lib/server/body-limit';
 import { drainBodyHandle } from '$lib/server/drain-body';
+import { formActionHandle } from '$lib/server/form-actions';
 import { securityHeadersHandle } from '$lib/server/security-headers';
 import { unavailableError, unavailableHandle } from '$lib/server/unavailable';
 import { authHandle } from './auth';
@@ -22,7 +24,9 @@ export const themeHandle: Handle = async ({ event, resolve }) => {
 // unavailableHandle outermost: it turns a lost database connection anywhere inside into a 503.
 // drainBodyHandle around even that: it reads what a refusal left unread, so the connection serves
 // the next request (drain-body.ts).
-export const handle: Handle = sequence(drainBodyHandle, unavailableHandle, securityHeadersHandle, authHandle, themeHandle);
+// formActionHandle answers 404 for an action the page does not define, and bodyLimitHandle 413 for a
+// body over the route's cap, both before Auth.js or a route reads anything.
+export const handle: Handle = sequence(drainBodyHandle, unavailableHandle, securityHeadersHandle, formActionHandle, bodyLimitHandle, authHandle, themeHandle);
 
 /** A lost database connection answers 503 (see unavailable.ts); anything else is logged as a fault. */
 export const handleError: HandleServerError = ({ error, event, status, message }) => {

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { singleLine } from './text';
 
 export const passwordLimits = { min: 10, max: 200 } as const;
 
@@ -21,7 +22,8 @@ export const redirectTo = z
 	.transform((v) => (v && v.startsWith('/') && !v.startsWith('//') && !v.startsWith('/\\') ? v : '/'));
 
 export const signUp = z.object({
-	name: z.string().trim().min(1, { error: 'name: 1 to 80 characters' }).max(80, { error: 'name: 1 to 80 characters' }),
+	// One line: the name is quoted in invitation e-mails and names the personal workshop.
+	name: singleLine('name', 80, 1),
 	email,
 	password,
 	redirectTo

@@ -5,6 +5,7 @@ import { summarize, type WheelSummary } from '$lib/trade/summary';
 import { tdcFromMarks, type TdcResult } from '$lib/trade/tdc';
 import { formatLength, parseLength, toMm } from '$lib/trade/units';
 import type { FieldErrors } from './form';
+import { singleLine } from './text';
 import { parseTdc } from './tape';
 import { parseWheel, type ParsedWheel } from './wheel';
 
@@ -169,9 +170,9 @@ export function parsePhasing(params: Record<string, string | undefined>): { ok: 
 export const buildSheetKeys = ['buildName', 'build', 'revision', 'tdcA', 'tdcB', 'tapeDiameter'] as const;
 
 const sheetExtra = z.object({
-	buildName: z.string().trim().max(80, { error: 'buildName: at most 80 characters' }).default(''),
-	build: z.string().trim().max(80, { error: 'build: at most 80 characters' }).default(''),
-	revision: z.string().trim().max(20, { error: 'revision: at most 20 characters' }).default(''),
+	buildName: singleLine('buildName', 80).default(''),
+	build: singleLine('build', 80).default(''),
+	revision: singleLine('revision', 20).default(''),
 	tdcA: z.string().optional(),
 	tdcB: z.string().optional(),
 	tapeDiameter: z.string().optional()

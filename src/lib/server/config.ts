@@ -17,6 +17,8 @@ const Env = z.object({
 	S3_FORCE_PATH_STYLE: z.enum(['true', 'false']).optional(),
 	/** Signs the session cookies (JWT). At least 32 random characters: `openssl rand -base64 33`. */
 	AUTH_SECRET: z.string().min(32, { error: 'AUTH_SECRET: at least 32 characters' }),
+	/** E-mail-sending requests one client address may make per 15 minutes (mail-throttle.ts); the local test profile raises it, since every test comes from 127.0.0.1. */
+	MAIL_LIMIT_PER_CLIENT: z.coerce.number().int().min(1).default(20),
 	/** HTTP address of the local SMTP fake's message list; set by the local scripts only. */
 	MAILBOX_URL: z.url().optional()
 });
@@ -46,7 +48,8 @@ export function parseConfig(env: Record<string, string | undefined>) {
 			forcePathStyle: e.S3_FORCE_PATH_STYLE ? e.S3_FORCE_PATH_STYLE === 'true' : !!e.S3_ENDPOINT
 		},
 		authSecret: e.AUTH_SECRET,
-		mailboxUrl: e.MAILBOX_URL
+		mailboxUrl: e.MAILBOX_URL,
+		mailLimitPerClient: e.MAIL_LIMIT_PER_CLIENT
 	};
 }
 
