@@ -6,6 +6,7 @@
 // Input Validation cheat sheets (common practice); RFC 9110 (413, 429, 404); Unicode UAX #9 and
 // CVE-2021-42574 (bidirectional overrides); the Unicode Character Database (category Cc).
 import { spawn, type ChildProcess } from 'node:child_process';
+import { randomBytes } from 'node:crypto';
 import { once } from 'node:events';
 import { createServer } from 'node:net';
 import { join } from 'node:path';
@@ -129,17 +130,14 @@ describe('e-mail throttle', () => {
 	it('Auth.js’s own sign-in route is counted the same way: past the limit it sends nothing', async () => {
 		const victim = freshEmail('flood-authjs');
 		const from = clientAddress();
-		// Auth.js's endpoint wants its CSRF token, from its cookie and the form.
-		const csrf = await fetch(`${proxied.url}/auth/csrf`, { headers: { 'x-forwarded-for': from } });
-		const cookie = csrf.headers.getSetCookie().map((c) => c.split(';')[0]).join('; ');
-		const { csrfToken } = (await csrf.json()) as { csrfToken: string };
+		// @auth/sveltekit leaves cross-site checks to SvelteKit's origin check: a same-origin post needs no token.
 		const locations: string[] = [];
 		for (let i = 0; i < perAddress + 3; i++) {
 			const res = await fetch(`${proxied.url}/auth/signin/nodemailer`, {
 				method: 'POST',
 				redirect: 'manual',
-				headers: { cookie, origin: proxied.url, 'content-type': 'application/x-www-form-urlencoded', 'x-forwarded-for': from },
-				body: new URLSearchParams({ email: victim, csrfToken })
+				headers: { origin: proxied.url, 'content-type': 'application/x-www-form-urlencoded', 'x-forwarded-for': from },
+				body: new URLSearchParams({ email: victim })
 			});
 			locations.push(res.headers.get('location') ?? String(res.status));
 		}
@@ -168,8 +166,9 @@ describe('e-mail throttle', () => {
 		const taken = freshEmail('flood-taken');
 		await signUp('Taken', taken, password);
 		const signUps = await Promise.all(Array.from({ length: 12 }, () => actionVia(proxied, '/signup', { name: 'Flooder', email: taken, password }, clientAddress())));
-		expect(tally(signUps.map((a) => a.status))).toEqual({ 200: perAddress, 429: 12 - perAddress });
-		expect((await messagesTo(taken)).filter((m) => /already have/.test(m.subject))).toHaveLength(perAddress);
+		// The sign-up that made the account counted too: four more get through.
+		expect(tally(signUps.map((a) => a.status))).toEqual({ 200: perAddress - 1, 429: 12 - perAddress + 1 });
+		expect((await messagesTo(taken)).filter((m) => /already have/.test(m.subject))).toHaveLength(perAddress - 1);
 
 		const resets = await Promise.all(Array.from({ length: 12 }, () => actionVia(proxied, '/reset', { email: taken }, clientAddress())));
 		expect(tally(resets.map((a) => a.status))).toEqual({ 200: perAddress, 429: 12 - perAddress });
@@ -305,9 +304,8 @@ describe('request body limits', () => {
 	it('keeps the large limit for the photo upload: a photo of several hundred KB is taken', async () => {
 		const me = await owner('body-photo');
 		const buildId = (await me.client.send<{ id: string }>('POST', '/api/v1/builds', { name: 'Big photo' })).body.id;
-		// Noise does not compress: 400 x 400 x 3 bytes of it make a PNG of about 480 KB.
-		const noise = Buffer.alloc(400 * 400 * 3);
-		for (let i = 0; i < noise.length; i++) noise[i] = (i * 2654435761) >>> 24;
+		// Random bytes do not compress: 400 x 400 x 3 of them make a PNG of about 480 KB.
+		const noise = randomBytes(400 * 400 * 3);
 		const png = await sharp(noise, { raw: { width: 400, height: 400, channels: 3 } }).png().toBuffer();
 		expect(png.length).toBeGreaterThan(256 * 1024);
 		const form = new FormData();
@@ -371,9 +369,9 @@ describe('names with control characters', () => {
 			const cases: [('POST' | 'PATCH'), string, Record<string, unknown>, string][] = [
 				['POST', '/api/v1/builds', { name: `Build${c}2` }, 'name'],
 				['PATCH', `/api/v1/builds/${buildId}`, { name: `Build${c}3` }, 'name'],
-				['POST', `/api/v1/builds/${buildId}/designs`, { name: `Wheel${c}`, params: wheel }, 'name'],
-				['POST', `/api/v1/builds/${buildId}/tdc-records`, { label: `No.1${c}`, params: { a: '-10', b: '10' } }, 'label'],
-				['POST', `/api/v1/designs/${designId}/revisions`, { baseRevision: 1, params: wheel, message: `fix${c}` }, 'message']
+				['POST', `/api/v1/builds/${buildId}/designs`, { name: `Wheel${c}r2`, params: wheel }, 'name'],
+				['POST', `/api/v1/builds/${buildId}/tdc-records`, { label: `No.1${c}left`, params: { a: '-10', b: '10' } }, 'label'],
+				['POST', `/api/v1/designs/${designId}/revisions`, { baseRevision: 1, params: wheel, message: `fix${c}bore` }, 'message']
 			];
 			for (const [method, path, body, field] of cases) {
 				const res = await me.client.send<{ errors: Record<string, string> }>(method, path, body);
