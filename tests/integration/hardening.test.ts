@@ -5,8 +5,10 @@
 // action names every object inherits. Sources: OWASP's Forgot Password, Denial of Service and
 // Input Validation cheat sheets (common practice); RFC 9110 (413, 429, 404); Unicode UAX #9 and
 // CVE-2021-42574 (bidirectional overrides); the Unicode Character Database (category Cc).
-import { spawn, type ChildProcess } from 'node:child_process';
+import { execFileSync, spawn, type ChildProcess } from 'node:child_process';
 import { randomBytes } from 'node:crypto';
+import { mkdtempSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
 import { once } from 'node:events';
 import { createServer } from 'node:net';
 import { join } from 'node:path';
@@ -392,6 +394,32 @@ describe('names with control characters', () => {
 		expect(label.body.errors.label).toMatch(/^label: one line of text/);
 		// Letters of other scripts and emoji are names like any other.
 		expect((await me.client.send('POST', '/api/v1/builds', { name: 'Käfer 日本 🏁' })).status).toBe(201);
+	}, 60_000);
+});
+
+describe('names the PDF font cannot print', () => {
+	/** The code points a font covers, read by fontconfig (`fc-query`), not by the code under test. */
+	function coverage(file: string): (cp: number) => boolean {
+		const charset = execFileSync('fc-query', ['--format=%{charset}', join(import.meta.dirname, '..', '..', 'static', 'fonts', file)], { encoding: 'utf8' });
+		const ranges = charset.trim().split(/\s+/).map((r) => r.split('-').map((h) => parseInt(h, 16)));
+		return (cp) => ranges.some(([from, to]) => cp >= from! && cp <= (to ?? from!));
+	}
+
+	it('shows each character the font lacks as "?" and names them by code point on the build sheet, instead of dropping them', async () => {
+		const name = 'Käfer 日本 🏁';
+		const inBold = coverage('Inter-SemiBold.otf');
+		const lacking = [...name].filter((c) => !inBold(c.codePointAt(0)!));
+		// From the font's own character map: the CJK and the emoji are missing, the umlaut is not.
+		expect(lacking).toEqual(['日', '本', '🏁']);
+		const res = await fetch(`${appUrl}/api/v1/build-sheet.pdf?${new URLSearchParams({ ...wheel, toothAtTdc: '9', buildName: name })}`);
+		expect(res.status).toBe(200);
+		const file = join(mkdtempSync(join(tmpdir(), 'pw-glyphs-')), 'sheet.pdf');
+		writeFileSync(file, Buffer.from(await res.arrayBuffer()));
+		const text = execFileSync('pdftotext', ['-layout', file, '-'], { encoding: 'utf8' });
+		const expected = [...name].map((c) => (lacking.includes(c) ? '?' : c)).join('');
+		expect(text).toContain(`Build sheet: ${expected}`);
+		const codes = lacking.map((c) => `U+${c.codePointAt(0)!.toString(16).toUpperCase().padStart(4, '0')}`);
+		expect(text.replace(/\s+/g, ' ')).toContain(`cannot print are shown as “?”: ${codes.join(', ')}.`);
 	}, 60_000);
 });
 
