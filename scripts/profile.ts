@@ -79,6 +79,10 @@ export function appEnv(p: Profile): Record<string, string> {
 		// adapter-node refuses bodies over 512 KB unless told; a phone photo is a few MB (one photo per request, 20 MB cap).
 		BODY_SIZE_LIMIT: process.env.BODY_SIZE_LIMIT ?? '21M'
 	};
+	// Every test reaches the app from 127.0.0.1, so the per-client e-mail limit (mail-throttle.ts) would
+	// count the whole run as one client. Its default is checked by tests/integration/hardening.test.ts
+	// on an instance of its own, with a client address per test.
+	if (p.name === 'test') local.MAIL_LIMIT_PER_CLIENT = '100000';
 	return local;
 }
 

@@ -9,6 +9,7 @@ import { db } from '$lib/server/db';
 import { account, user, verificationToken } from '$lib/server/db/schema';
 import { sendMail } from '$lib/server/mail';
 import { confirmAddressMessage, signInLinkMessage } from '$lib/server/messages';
+import { linkThrottledTarget } from '$lib/server/mail-throttle';
 import { confirmAddress, isUnconfirmed, proofCookie } from '$lib/server/address-proof';
 import { linkTo, onOrigin } from '$lib/server/origin';
 import { redirectTarget } from '$lib/server/redirect-target';
@@ -80,6 +81,12 @@ export const { handle: authHandle, signIn, signOut } = SvelteKitAuth(async (even
 			}
 		},
 		callbacks: {
+			// Every sign-in link, asked through our form or Auth.js's own route, is counted before it is
+			// made; past the limit Auth.js sends nothing and goes to the address returned (mail-throttle.ts).
+			async signIn({ user: who, email }) {
+				if (!email?.verificationRequest || !who.email) return true;
+				return (await linkThrottledTarget(db(), who.email, event.getClientAddress())) ?? true;
+			},
 			async jwt({ token, user: signedIn, account: via }) {
 				if (signedIn?.id) {
 					// Opening a mailed link proves the address (and may clear a password nobody verified).

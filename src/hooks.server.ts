@@ -1,8 +1,10 @@
 import type { Handle, HandleServerError } from '@sveltejs/kit';
 import { sequence } from '@sveltejs/kit/hooks';
 import { parseTheme, themeCookie } from '$lib/theme';
+import { bodyLimitHandle } from '$lib/server/body-limit';
 import { drainBodyHandle } from '$lib/server/drain-body';
 import { hostHandle } from '$lib/server/origin';
+import { formActionHandle } from '$lib/server/form-actions';
 import { securityHeadersHandle } from '$lib/server/security-headers';
 import { unavailableError, unavailableHandle } from '$lib/server/unavailable';
 import { authHandle } from './auth';
@@ -23,8 +25,10 @@ export const themeHandle: Handle = async ({ event, resolve }) => {
 // unavailableHandle outermost: it turns a lost database connection anywhere inside into a 503.
 // drainBodyHandle around even that: it reads what a refusal left unread, so the connection serves
 // the next request (drain-body.ts). hostHandle next: a request for another host name is refused
-// before anything reads it (origin.ts).
-export const handle: Handle = sequence(drainBodyHandle, hostHandle, unavailableHandle, securityHeadersHandle, authHandle, themeHandle);
+// before anything reads it (origin.ts). formActionHandle answers 404 for an action the page does
+// not define, and bodyLimitHandle 413 for a body over the route's cap, both before Auth.js or a
+// route reads anything.
+export const handle: Handle = sequence(drainBodyHandle, hostHandle, unavailableHandle, securityHeadersHandle, formActionHandle, bodyLimitHandle, authHandle, themeHandle);
 
 /** A lost database connection answers 503 (see unavailable.ts); anything else is logged as a fault. */
 export const handleError: HandleServerError = ({ error, event, status, message }) => {

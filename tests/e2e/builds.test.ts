@@ -169,7 +169,8 @@ describe('a build’s page in Chromium', () => {
 				return mail.length;
 			})
 			.toBe(1);
-		expect(mail[0]!.subject).toContain('Crank wheel 36-1 revision 1 (2 off');
+		// Names are quoted data in our messages (messages.ts).
+		expect(mail[0]!.subject).toContain('“Crank wheel 36-1” revision 1 (2 off');
 		expect(mail[0]!.text).toContain('Thorne T740 roadster');
 		const files = mail[0]!.attachments.map((a) => a.filename).sort();
 		expect(files).toEqual(['cutting-spec-36-1-100mm-r1.pdf', 'wheel-36-1-100mm-r1.dxf']);

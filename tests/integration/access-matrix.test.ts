@@ -497,3 +497,28 @@ describe('the table itself', () => {
 		expect(declared.filter((r) => !inTable.has(r) && !(r in notInTable))).toEqual([]);
 	});
 });
+
+describe('form actions a page does not define', () => {
+	// SvelteKit looks an action up as actions[name]: names every object inherits reached Object's
+	// own methods (500s, and ?/toString "succeeded"). Each page with actions, every caller: 404, nothing changed.
+	const inherited = ['constructor', '__proto__', 'toString', 'valueOf', 'hasOwnProperty', 'default'];
+	const pages = () => [...new Set(table.filter((r) => /^POST \/(?!api\/)/.test(r.route)).map((r) => r.route.slice(5).split('?')[0]!))];
+
+	it('answers 404 for inherited and reserved names on every page with actions, for every caller, and changes nothing', async () => {
+		const concrete = (route: string) => route.replace('[token]', route.startsWith('/invite') ? a.ids.token : randomUUID());
+		expect(pages()).toEqual(expect.arrayContaining(['/builds', '/workshop', '/signin', '/signup', '/reset', '/invite/[token]']));
+		const problems: string[] = [];
+		for (const route of pages()) {
+			for (const role of roles) {
+				for (const name of inherited) {
+					const [beforeA, beforeB] = await both();
+					const answer = await act(role === 'anonymous' ? new Client() : cloneOf(clients[role]), concrete(route), name, { name: 'x', email: 'x@example.test' });
+					const [afterA, afterB] = await both();
+					if (answer.status !== 404) problems.push(`${role} ${route}?/${name}: ${answer.status} ${answer.body.slice(0, 120)}`);
+					if (afterA !== beforeA || afterB !== beforeB) problems.push(`${role} ${route}?/${name}: something changed`);
+				}
+			}
+		}
+		expect(problems).toEqual([]);
+	}, 180_000);
+});

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { singleLine } from './text';
 
 export const passwordLimits = { min: 10, max: 200 } as const;
 
@@ -18,7 +19,8 @@ export const password = z
 export const redirectTo = z.string().optional();
 
 export const signUp = z.object({
-	name: z.string().trim().min(1, { error: 'name: 1 to 80 characters' }).max(80, { error: 'name: 1 to 80 characters' }),
+	// One line: the name is quoted in invitation e-mails and names the personal workshop.
+	name: singleLine('name', 80, 1),
 	email,
 	password,
 	redirectTo

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { singleLine } from './text';
 
 // Builds, their wheel designs, revisions, records and cutting packages: what forms and the JSON API
 // accept. The parameters of a wheel, a tape or a phasing check stay flat strings, checked by their
@@ -22,7 +23,8 @@ const text = (field: string, max: number, min = 0) => {
 		.refine((s) => !unstorable.test(s), { error: `${field}: text without NUL or unpaired surrogate characters` });
 };
 
-export const buildName = text('name', buildLimits.name, 1);
+/** Names are one line (singleLine); engine and notes are free text of several lines. */
+export const buildName = singleLine('name', buildLimits.name, 1);
 
 export const createBuild = z.object({
 	name: buildName,
@@ -43,7 +45,7 @@ export const buildSorts = ['name', 'updated', 'created'] as const;
 /** The builds list: search in name and engine, sort, paging. */
 export const buildQuery = z.object({
 	workshop: z.uuid({ error: 'workshop: a workshop id' }).optional(),
-	q: text('q', 100).optional().default(''),
+	q: singleLine('q', 100).optional().default(''),
 	sort: z.enum(buildSorts, { error: `sort: one of ${buildSorts.join(', ')}` }).default('updated'),
 	dir: z.enum(['asc', 'desc'], { error: 'dir: asc or desc' }).optional(),
 	page: z.coerce.number({ error: 'page: a whole number from 1' }).int({ error: 'page: a whole number from 1' }).min(1, { error: 'page: a whole number from 1' }).max(100_000, { error: 'page: at most 100000' }).default(1),
@@ -64,9 +66,9 @@ export const flatParams = (field: string) =>
 		.refine((r) => Object.entries(r).every(([k, v]) => !unstorable.test(k) && !unstorable.test(v)), { error: `${field}: names and values without NUL or unpaired surrogate characters` });
 
 export const createDesign = z.object({
-	name: text('name', buildLimits.label, 1),
+	name: singleLine('name', buildLimits.label, 1),
 	params: flatParams('params'),
-	message: text('message', buildLimits.message).optional().default('')
+	message: singleLine('message', buildLimits.message).optional().default('')
 });
 
 /** A save names the revision it started from; a stale base is refused with 409. */
@@ -77,7 +79,7 @@ export const saveRevision = z.object({
 		.min(1, { error: 'baseRevision: a whole number from 1' })
 		.max(maxRevision, { error: `baseRevision: a whole number from 1 to ${maxRevision}` }),
 	params: flatParams('params'),
-	message: text('message', buildLimits.message).optional().default('')
+	message: singleLine('message', buildLimits.message).optional().default('')
 });
 
 export const restoreRevision = z.object({
@@ -87,7 +89,7 @@ export const restoreRevision = z.object({
 		.min(1, { error: 'revision: a whole number from 1' })
 		.max(maxRevision, { error: `revision: a whole number from 1 to ${maxRevision}` }),
 	baseRevision: saveRevision.shape.baseRevision,
-	message: text('message', buildLimits.message).optional()
+	message: singleLine('message', buildLimits.message).optional()
 });
 
 /** A revision number from a path or query, named by its field (`revision`, or compare's `a` and `b`). */
@@ -102,7 +104,7 @@ export const revisionNumber = revisionNumberOf('revision');
 
 export const compareQuery = z.object({ a: revisionNumberOf('a'), b: revisionNumberOf('b') });
 
-export const saveRecord = z.object({ label: text('label', buildLimits.label).optional().default(''), params: flatParams('params') });
+export const saveRecord = z.object({ label: singleLine('label', buildLimits.label).optional().default(''), params: flatParams('params') });
 
 export const engineProfile = z.object({ params: flatParams('params') });
 

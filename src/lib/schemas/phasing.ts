@@ -7,6 +7,7 @@ import type { TdcResult } from '$lib/trade/tdc';
 import { formatLength, parseLength, toMm } from '$lib/trade/units';
 import type { FieldErrors } from './form';
 import { findTdc } from './tdc';
+import { singleLine } from './text';
 import { gapsField, parseWheel, patternKinds, patternOf, type ParsedWheel } from './wheel';
 
 // The phasing check's public parameters (query or form), flat strings. Refusals name the field.
@@ -175,9 +176,9 @@ export function parsePhasing(params: Record<string, string | undefined>): { ok: 
 export const buildSheetKeys = ['buildName', 'build', 'revision', 'tdcA', 'tdcB', 'tapeDiameter'] as const;
 
 const sheetExtra = z.object({
-	buildName: z.string().trim().max(80, { error: 'buildName: at most 80 characters' }).default(''),
-	build: z.string().trim().max(80, { error: 'build: at most 80 characters' }).default(''),
-	revision: z.string().trim().max(20, { error: 'revision: at most 20 characters' }).default(''),
+	buildName: singleLine('buildName', 80).default(''),
+	build: singleLine('build', 80).default(''),
+	revision: singleLine('revision', 20).default(''),
 	tdcA: z.string().optional(),
 	tdcB: z.string().optional(),
 	tapeDiameter: z.string().optional()

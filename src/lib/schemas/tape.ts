@@ -3,6 +3,7 @@ import { diameterFromCircumference, type TapeSpec } from '$lib/trade/tape';
 import type { AdvancePoint } from '$lib/trade/timing';
 import { formatLength, parseLength, toMm, type Units } from '$lib/trade/units';
 import type { FieldErrors } from './form';
+import { unprintable } from './text';
 
 // Public parameters of the degree tape and the timing-light card, as flat strings
 // (query, form). Lengths in `units`, fractions allowed; refusals name the field and its range.
@@ -34,7 +35,7 @@ function labelled(field: string, example: string, min: number, max: number) {
 			for (const item of items) {
 				const m = /^(?:([^:]{1,20}):)?\s*(-?\d+(?:\.\d+)?)$/.exec(item);
 				const value = m ? Number(m[2]) : NaN;
-				if (!m || value < min || value > max) {
+				if (!m || value < min || value > max || unprintable.test(item)) {
 					ctx.addIssue({ code: 'custom', message: `${field}: numbers from ${min} to ${max} separated by commas, optionally named, like ${example}` });
 					return z.NEVER;
 				}

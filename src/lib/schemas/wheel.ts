@@ -5,6 +5,7 @@ import type { Pattern } from '$lib/trade/pattern';
 import { formatLength, fromMm, parseLength, toMm, type Units } from '$lib/trade/units';
 import type { WheelSpec } from '$lib/trade/wheel';
 import type { FieldErrors } from './form';
+import { unprintable } from './text';
 
 // The wheel's public parameters, as flat strings (URL query, form fields, JSON): one schema for
 // the designer page, the API and the exports. Lengths are in `units` and may be written as
@@ -162,7 +163,7 @@ function buildSchema(units: Units) {
 			.string()
 			.trim()
 			.max(40, { error: 'label: at most 40 characters' })
-			.regex(/^[^\p{Cc}]*$/u, { error: 'label: one line of text, at most 40 characters (no line breaks or control characters)' })
+			.refine((v) => !unprintable.test(v), { error: 'label: one line of text, at most 40 characters (no line breaks, control or direction-override characters)' })
 			.default(''),
 		rotation: oneOf('rotation', ['cw', 'ccw'] as const).default('cw'),
 		material: oneOf('material', materialKinds).default('steel'),

@@ -1,8 +1,8 @@
-import { desc, eq } from 'drizzle-orm';
+import { and, desc, eq } from 'drizzle-orm';
 import type { Queryable } from './db';
-import { cuttingPackage, user } from './db/schema';
+import { build as buildTable, cuttingPackage, user } from './db/schema';
 import { listActivity } from './activity';
-import { deleteBuild, getBuild, type BuildWrite } from './builds';
+import { getBuild, type BuildWrite } from './builds';
 import { designsOf } from './designs';
 import { photoKeysOf, photosOf } from './photos/store';
 import { deleteObject } from './storage';
@@ -33,10 +33,19 @@ export async function buildOverview(database: Queryable, buildId: string) {
 }
 export type BuildOverview = NonNullable<Awaited<ReturnType<typeof buildOverview>>>;
 
-/** Removes the build with everything in it, its photos' files in the object store too. */
+/**
+ * Removes the build with everything in it, its photos' files in the object store too: the one way
+ * a build is deleted, from the Builds page and from `DELETE /api/v1/builds/:id` alike (the page
+ * once deleted the row alone and left the photos' files in the bucket). The rows go first, in
+ * cascade; a file that then fails to go is an orphan in the bucket, never a row without its file.
+ */
 export async function removeBuild(database: Queryable, workshopId: string, buildId: string): Promise<BuildWrite> {
 	const keys = await photoKeysOf(database, buildId);
-	const result = await deleteBuild(database, workshopId, buildId);
-	if (result.ok) await Promise.allSettled(keys.map((key) => deleteObject(key)));
-	return result;
+	const rows = await database
+		.delete(buildTable)
+		.where(and(eq(buildTable.id, buildId), eq(buildTable.workshopId, workshopId)))
+		.returning({ id: buildTable.id });
+	if (!rows[0]) return { ok: false, reason: 'not-found' };
+	await Promise.allSettled(keys.map((key) => deleteObject(key)));
+	return { ok: true, id: rows[0].id };
 }

@@ -89,10 +89,4 @@ export async function touchBuild(database: Queryable, buildId: string) {
 	await database.update(build).set({ updatedAt: sql`now()` }).where(eq(build.id, buildId));
 }
 
-export async function deleteBuild(database: Queryable, workshopId: string, buildId: string): Promise<BuildWrite> {
-	const rows = await database
-		.delete(build)
-		.where(and(eq(build.id, buildId), eq(build.workshopId, workshopId)))
-		.returning({ id: build.id });
-	return rows[0] ? { ok: true, id: rows[0].id } : { ok: false, reason: 'not-found' };
-}
+// Deleting a build is removeBuild() in build-overview.ts: the one path that also removes its photos' files.

@@ -22,6 +22,8 @@ const Env = z.object({
 	 * from it, never from the request's Host or X-Forwarded-* headers.
 	 */
 	ORIGIN: z.url({ protocol: /^https?$/, error: 'ORIGIN: the public address, like https://phasewright.example' }),
+	/** E-mail-sending requests one client address may make per 15 minutes (mail-throttle.ts); the local test profile raises it, since every test comes from 127.0.0.1. */
+	MAIL_LIMIT_PER_CLIENT: z.coerce.number().int().min(1).default(20),
 	/** HTTP address of the local SMTP fake's message list; set by the local scripts only. */
 	MAILBOX_URL: z.url().optional(),
 	/** "1" where the local scripts run the SMTP fake (never with a real SMTP_URL): opens /dev/mail to loopback. */
@@ -56,7 +58,8 @@ export function parseConfig(env: Record<string, string | undefined>) {
 		/** scheme://host[:port] only, no path or trailing slash. */
 		origin: new URL(e.ORIGIN).origin,
 		mailboxUrl: e.MAILBOX_URL,
-		mailFake: e.PW_MAIL_FAKE === '1'
+		mailFake: e.PW_MAIL_FAKE === '1',
+		mailLimitPerClient: e.MAIL_LIMIT_PER_CLIENT
 	};
 }
 

@@ -1,7 +1,31 @@
+import { unprintable } from '$lib/schemas/text';
 import type { Message } from './mail';
 
 // The wording of every e-mail the app sends, in one place. Plain text first: workshop inboxes
 // are often read on a phone, and a cutting shop's mail filter trusts plain text.
+
+// Names come from users (a person, a workshop, a build, a design): in a message they are data, never
+// our wording. Each is shown on one line, between quotation marks, cut to a length, with anything
+// that could start a line or reorder the text replaced (rows written before names were checked,
+// too); the schemas refuse those characters on the way in (src/lib/schemas/text.ts).
+const nameLength = 80;
+const unprintableAll = new RegExp(unprintable.source, 'gu');
+
+/** A user-given name as quoted data: “name”, one line, at most 80 characters. */
+export function quoted(name: string): string {
+	const line = name.replace(unprintableAll, ' ').replace(/\s+/g, ' ').trim();
+	const cut = [...line].length > nameLength ? `${[...line].slice(0, nameLength - 1).join('')}…` : line;
+	return `“${cut}”`;
+}
+
+/** User-given free text (a package's notes) as a quoted block: every line starts with "> ", so none can pass for ours. */
+export function quotedBlock(text: string): string {
+	return text
+		.replace(/\r\n?/g, '\n')
+		.split('\n')
+		.map((line) => `> ${line.replace(unprintableAll, ' ')}`.trimEnd())
+		.join('\n');
+}
 
 const footer = '\n\n-- \nPhasewright: trigger wheels, degree tapes and timing for ECU conversions.\nIf you did not ask for this, ignore this message; nothing changes.';
 
@@ -30,11 +54,11 @@ export function accountExistsMessage(to: string, signInUrl: string): Message {
 }
 
 export function invitationMessage(input: { to: string; workshop: string; inviter: string | null; role: string; url: string }): Message {
-	const who = input.inviter ? `${input.inviter} invites you` : 'You are invited';
+	const who = input.inviter ? `A Phasewright user named ${quoted(input.inviter)} invites you` : 'You are invited';
 	return {
 		to: input.to,
-		subject: `Invitation to ${input.workshop} on Phasewright`,
-		text: `${who} to join the workshop "${input.workshop}" on Phasewright as ${input.role}.\n\nAccept here (sign in or create an account with this address, ${input.to}):\n\n${input.url}\n\nThe link works once, for 7 days.${footer}`
+		subject: `Invitation to the workshop ${quoted(input.workshop)} on Phasewright`,
+		text: `${who} to join the workshop ${quoted(input.workshop)} on Phasewright as ${input.role}.\n\nAccept here (sign in or create an account with this address, ${input.to}):\n\n${input.url}\n\nThe link works once, for 7 days.${footer}`
 	};
 }
 
@@ -42,8 +66,8 @@ export function cuttingPackageMessage(input: { to: string; from: string | null; 
 	return {
 		to: input.to,
 		replyTo: input.from ?? undefined,
-		subject: `Cutting order: ${input.designName} revision ${input.revision} (${input.quantity} off, ${input.material} ${input.thickness})`,
-		text: `Hello,\n\nplease quote for / cut the trigger wheel attached${input.from ? ` (sent by ${input.from})` : ''}:\n\n  Build: ${input.buildName}\n  Part: ${input.designName}, revision ${input.revision}\n  Quantity: ${input.quantity}\n  Material: ${input.material}, ${input.thickness}\n${input.notes ? `\nNotes:\n${input.notes}\n` : ''}\nAttached: the DXF (CUT and ETCH layers, units in the file) and the one-page spec.\n\n-- \nSent from Phasewright (trigger wheels, degree tapes and timing for ECU conversions).`,
+		subject: `Cutting order: ${quoted(input.designName)} revision ${input.revision} (${input.quantity} off, ${input.material} ${input.thickness})`,
+		text: `Hello,\n\nplease quote for / cut the trigger wheel attached${input.from ? ` (sent by ${input.from})` : ''}:\n\n  Build: ${quoted(input.buildName)}\n  Part: ${quoted(input.designName)}, revision ${input.revision}\n  Quantity: ${input.quantity}\n  Material: ${input.material}, ${input.thickness}\n${input.notes ? `\nNotes from the sender:\n${quotedBlock(input.notes)}\n` : ''}\nAttached: the DXF (CUT and ETCH layers, units in the file) and the one-page spec.\n\n-- \nSent from Phasewright (trigger wheels, degree tapes and timing for ECU conversions).`,
 		attachments: input.attachments
 	};
 }

@@ -2,6 +2,7 @@ import { isRedirect, type RequestEvent } from '@sveltejs/kit';
 import { CredentialsSignin } from '@auth/sveltekit';
 import { signIn, signOut } from '../../auth';
 import { originHeaders } from './origin';
+import { throttledFrom } from './mail-throttle';
 
 /**
  * Runs one of Auth.js's SvelteKit actions with the fields we give it (our own forms parse and
@@ -37,9 +38,11 @@ export async function passwordSignIn(event: RequestEvent, email: string, passwor
 	}
 }
 
-/** Sends a sign-in link by e-mail (Auth.js makes and stores the token). */
-export async function sendSignInLink(event: RequestEvent, email: string, redirectTo: string): Promise<void> {
-	await runAuthAction(signIn, event, { providerId: 'nodemailer', email, redirectTo });
+/** Sends a sign-in link by e-mail (Auth.js makes and stores the token), unless the e-mail throttle refuses it. */
+export async function sendSignInLink(event: RequestEvent, email: string, redirectTo: string): Promise<{ ok: true } | { ok: false; message: string }> {
+	const target = await runAuthAction(signIn, event, { providerId: 'nodemailer', email, redirectTo });
+	const refused = throttledFrom(target);
+	return refused ? { ok: false, message: refused } : { ok: true };
 }
 
 /** Signs this browser out; its session row goes with it (auth.ts, events.signOut). */

@@ -32,23 +32,33 @@ export function delayFor(failures: number): number {
  * not to be a failure gives its count back with releaseAttempt().
  */
 export async function reserveAttempt(database: Queryable, keys: string[]): Promise<Map<string, { failures: number; windowStart: Date }>> {
-	const windowStart = new Date(Date.now() - throttlePolicy.windowMs);
 	const counts = new Map<string, { failures: number; windowStart: Date }>();
 	for (const key of keys) {
-		const [row] = await database
-			.insert(signInFailure)
-			.values({ key, failures: 1 })
-			.onConflictDoUpdate({
-				target: signInFailure.key,
-				set: {
-					failures: sql`case when ${signInFailure.windowStart} < ${windowStart} then 1 else ${signInFailure.failures} + 1 end`,
-					windowStart: sql`case when ${signInFailure.windowStart} < ${windowStart} then now() else ${signInFailure.windowStart} end`
-				}
-			})
-			.returning({ failures: signInFailure.failures, windowStart: signInFailure.windowStart });
-		counts.set(key, row!);
+		const row = await countInWindow(database, key, throttlePolicy.windowMs);
+		counts.set(key, { failures: row.count, windowStart: row.windowStart });
 	}
 	return counts;
+}
+
+/**
+ * Counts one event against a key in a fixed window of its own, in one atomic upsert, and returns
+ * the count with this event in it and when the window began. The sign-in throttle above and the
+ * e-mail throttle (mail-throttle.ts) both count here, under keys of their own.
+ */
+export async function countInWindow(database: Queryable, key: string, windowMs: number): Promise<{ count: number; windowStart: Date }> {
+	const windowStart = new Date(Date.now() - windowMs);
+	const [row] = await database
+		.insert(signInFailure)
+		.values({ key, failures: 1 })
+		.onConflictDoUpdate({
+			target: signInFailure.key,
+			set: {
+				failures: sql`case when ${signInFailure.windowStart} < ${windowStart} then 1 else ${signInFailure.failures} + 1 end`,
+				windowStart: sql`case when ${signInFailure.windowStart} < ${windowStart} then now() else ${signInFailure.windowStart} end`
+			}
+		})
+		.returning({ count: signInFailure.failures, windowStart: signInFailure.windowStart });
+	return row!;
 }
 
 /** Gives back an attempt counted by reserveAttempt() that was not a failure (refused unchecked, or a success). */

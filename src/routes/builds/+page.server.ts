@@ -2,7 +2,8 @@ import { fail } from '@sveltejs/kit';
 import { buildId, buildQuery, createBuild as createSchema, renameBuild as renameSchema } from '$lib/schemas/build';
 import { parseForm } from '$lib/schemas/form';
 import { workshopAccess } from '$lib/server/access';
-import { createBuild, deleteBuild, listBuilds, renameBuild } from '$lib/server/builds';
+import { removeBuild } from '$lib/server/build-overview';
+import { createBuild, listBuilds, renameBuild } from '$lib/server/builds';
 import { db } from '$lib/server/db';
 import type { Actions, PageServerLoad } from './$types';
 
@@ -50,7 +51,7 @@ export const actions: Actions = {
 		const access = await workshopAccess(event, 'edit');
 		const parsed = parseForm(buildId, await event.request.formData());
 		if (!parsed.ok) return fail(400, { action: 'delete', errors: parsed.errors });
-		const result = await deleteBuild(db(), access.workshop.id, parsed.data.buildId);
+		const result = await removeBuild(db(), access.workshop.id, parsed.data.buildId);
 		if (!result.ok) return fail(404, { action: 'delete', message: refusals['not-found'] });
 		return { action: 'delete' };
 	}

@@ -4,6 +4,8 @@ import { parseForm } from '$lib/schemas/form';
 import { createPasswordReset } from '$lib/server/accounts';
 import { db } from '$lib/server/db';
 import { sendMail } from '$lib/server/mail';
+import { queueMail } from '$lib/server/mail-queue';
+import { mailRefusal, reserveMail } from '$lib/server/mail-throttle';
 import { passwordResetMessage } from '$lib/server/messages';
 import { linkTo } from '$lib/server/origin';
 import type { Actions } from './$types';
@@ -13,9 +15,14 @@ export const actions: Actions = {
 		const form = await event.request.formData();
 		const parsed = parseForm(resetRequest, form);
 		if (!parsed.ok) return fail(400, { email: String(form.get('email') ?? ''), errors: parsed.errors });
-		const reset = await createPasswordReset(db(), parsed.data.email);
-		if (reset) await sendMail(passwordResetMessage(reset.user.email, linkTo(`/reset/${reset.token}`)));
-		// The same answer whether or not the address has an account.
-		return { sent: true, email: parsed.data.email };
+		const { email } = parsed.data;
+		const allowed = await reserveMail(db(), 'reset', { address: email, client: event.getClientAddress() });
+		if (!allowed.ok) return fail(429, { email, message: mailRefusal(allowed) });
+		// The same answer, after the same work, whether or not the address has an account (mail-queue.ts).
+		queueMail(async () => {
+			const reset = await createPasswordReset(db(), email);
+			if (reset) await sendMail(passwordResetMessage(reset.user.email, linkTo(`/reset/${reset.token}`)));
+		});
+		return { sent: true, email };
 	}
 };

@@ -3,6 +3,7 @@ import { signIn as signInSchema, signInLink } from '$lib/schemas/account';
 import { parseForm } from '$lib/schemas/form';
 import { signedInUser } from '$lib/server/access';
 import { redirectTarget } from '$lib/server/redirect-target';
+import { throttledFrom } from '$lib/server/mail-throttle';
 import { passwordSignIn, sendSignInLink, signInMessages } from '$lib/server/sign-in';
 import type { Actions, PageServerLoad } from './$types';
 
@@ -14,7 +15,7 @@ export const load: PageServerLoad = async (event) => {
 	return {
 		redirectTo,
 		passwordReset: event.url.searchParams.has('reset'),
-		message: authError ? (authError === 'Verification' ? signInMessages.Verification : signInMessages.default) : null
+		message: authError ? (authError === 'Verification' ? signInMessages.Verification : (throttledFrom(event.url) ?? signInMessages.default)) : null
 	};
 };
 
@@ -35,7 +36,8 @@ export const actions: Actions = {
 		const form = await event.request.formData();
 		const parsed = parseForm(signInLink, form);
 		if (!parsed.ok) return fail(400, { form: 'link', email: String(form.get('email') ?? ''), errors: parsed.errors });
-		await sendSignInLink(event, parsed.data.email, redirectTarget(parsed.data.redirectTo));
+		const sent = await sendSignInLink(event, parsed.data.email, redirectTarget(parsed.data.redirectTo));
+		if (!sent.ok) return fail(429, { form: 'link', email: parsed.data.email, message: sent.message });
 		redirect(303, '/signin/check-email');
 	}
 };

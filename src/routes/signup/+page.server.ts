@@ -6,6 +6,8 @@ import { rememberSignUp } from '$lib/server/address-proof';
 import { createAccount } from '$lib/server/accounts';
 import { db } from '$lib/server/db';
 import { sendMail } from '$lib/server/mail';
+import { queueMail } from '$lib/server/mail-queue';
+import { mailRefusal, reserveMail } from '$lib/server/mail-throttle';
 import { accountExistsMessage } from '$lib/server/messages';
 import { linkTo } from '$lib/server/origin';
 import { redirectTarget } from '$lib/server/redirect-target';
@@ -24,11 +26,15 @@ export const actions: Actions = {
 		const parsed = parseForm(signUp, form);
 		const echo = { name: String(form.get('name') ?? ''), email: String(form.get('email') ?? '') };
 		if (!parsed.ok) return fail(400, { ...echo, errors: parsed.errors });
+		// Counted for every sign-up, new address or not: a sign-up may send an e-mail, and a refusal must not say which.
+		const allowed = await reserveMail(db(), 'sign-up', { address: parsed.data.email, client: event.getClientAddress() });
+		if (!allowed.ok) return fail(429, { ...echo, message: mailRefusal(allowed) });
 
 		const created = await createAccount(db(), parsed.data);
 		if (!created.ok) {
 			// Say nothing here about whether the address has an account; its owner hears by e-mail.
-			await sendMail(accountExistsMessage(parsed.data.email, linkTo('/signin')));
+			const message = accountExistsMessage(parsed.data.email, linkTo('/signin'));
+			queueMail(() => sendMail(message));
 			return { checkEmail: true };
 		}
 		const next = redirectTarget(parsed.data.redirectTo);

@@ -5,6 +5,7 @@ import { chooseWorkshop, objectAccess, workshopAccess } from '$lib/server/access
 import { logActivity } from '$lib/server/activity';
 import { db } from '$lib/server/db';
 import { sendMail } from '$lib/server/mail';
+import { mailRefusal, reserveMail } from '$lib/server/mail-throttle';
 import { invitationMessage } from '$lib/server/messages';
 import { linkTo } from '$lib/server/origin';
 import { redirectTarget } from '$lib/server/redirect-target';
@@ -41,6 +42,8 @@ export const actions: Actions = {
 		const fromBuild = parsed.data.buildId ? await objectAccess(event, 'manage', 'build', parsed.data.buildId) : null;
 		if (fromBuild && parsed.data.workshopId && fromBuild.workshop.id !== parsed.data.workshopId) return fail(400, { action: 'invite', errors: { buildId: 'buildId: a build of the workshop invited into' } });
 		const access = fromBuild ?? (await workshopAccess(event, 'manage', parsed.data.workshopId));
+		const allowed = await reserveMail(db(), 'invitation', { address: parsed.data.email, client: event.getClientAddress() });
+		if (!allowed.ok) return fail(429, { action: 'invite', email: parsed.data.email, message: mailRefusal(allowed) });
 		const { token } = await createInvitation(db(), {
 			workshopId: access.workshop.id,
 			email: parsed.data.email,

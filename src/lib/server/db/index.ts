@@ -23,6 +23,10 @@ export function connect(url: string): Database {
 	// An idle client losing its server (a restart, a failover) must not take the process down;
 	// the pool drops that client and the next query opens a fresh one.
 	pool.on('error', (err) => console.warn(`database: idle connection lost (${err.message})`));
+	// A client checked out between two statements (inside a transaction) has no listener from the
+	// pool: its server going away then raised an unhandled 'error' and ended the process (seen when
+	// faults.test.ts stops PostgreSQL mid-run). Its next statement fails instead, and answers 503.
+	pool.on('connect', (client) => client.on('error', (err) => console.warn(`database: connection lost while in use (${err.message})`)));
 	return drizzle(pool, { schema });
 }
 

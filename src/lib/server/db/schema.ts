@@ -87,7 +87,10 @@ export const passwordReset = pgTable('password_reset', {
 	createdAt: createdAt()
 });
 
-/** Failed sign-ins per key (an e-mail address or a client address), for slowing down guessing. */
+/**
+ * Counts per key in a fixed window (throttle.ts): failed sign-ins per e-mail or client address, for
+ * slowing down guessing, and e-mails asked for per address, client and workshop (mail-throttle.ts).
+ */
 export const signInFailure = pgTable('sign_in_failure', {
 	key: text('key').primaryKey(),
 	failures: integer('failures').notNull().default(0),

@@ -8,7 +8,7 @@ import type { WheelSummary } from '$lib/trade/summary';
 import { mmPerDegree } from '$lib/trade/tape';
 import { sideText, type TdcResult } from '$lib/trade/tdc';
 import { formatLength } from '$lib/trade/units';
-import { finish, mm, newDocument, papers } from './pdf-kit';
+import { finish, missingNote, mm, newDocument, papers, printable } from './pdf-kit';
 import { specRows } from './wheel-pdf';
 
 export interface BuildSheet {
@@ -42,10 +42,18 @@ export async function buildSheetPdf(s: BuildSheet): Promise<Buffer> {
 		y += Math.max(4.4, h / mm(1) + 1);
 	};
 
-	doc.font('bold').fontSize(15).text(`Build sheet: ${s.buildName}`, mm(margin), mm(y));
+	const name = printable(s.buildName, 'bold');
+	const revision = printable(s.revision);
+	const missing = [...new Set([...name.missing, ...revision.missing])];
+	doc.font('bold').fontSize(15).text(`Build sheet: ${name.text}`, mm(margin), mm(y));
 	y += 8;
-	doc.font('text').fontSize(8.5).text(`Wheel revision ${s.revision} · ${s.date} · for the tuner and the fabricator`, mm(margin), mm(y), { width });
+	doc.font('text').fontSize(8.5).text(`Wheel revision ${revision.text} · ${s.date} · for the tuner and the fabricator`, mm(margin), mm(y), { width });
 	y += 5;
+	if (missing.length) {
+		doc.font('text').fontSize(8).fillColor('#8a5200').text(missingNote(missing), mm(margin), mm(y), { width });
+		doc.fillColor('black');
+		y += 4.5;
+	}
 
 	const { spec } = s.wheel;
 	const p = s.phasing.input;

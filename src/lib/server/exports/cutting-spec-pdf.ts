@@ -2,7 +2,7 @@
 import type { WheelSummary } from '$lib/trade/summary';
 import { formatLength, type Units } from '$lib/trade/units';
 import type { WheelSpec } from '$lib/trade/wheel';
-import { finish, mm, newDocument, papers } from './pdf-kit';
+import { finish, missingNote, mm, newDocument, papers, printable } from './pdf-kit';
 import { specRows } from './wheel-pdf';
 
 export interface CuttingSpec {
@@ -25,11 +25,17 @@ export async function cuttingSpecPdf(s: CuttingSpec): Promise<Buffer> {
 	const size = papers[s.paper];
 	const width = size.widthMm - 2 * margin;
 	const doc = newDocument(`Cutting spec: ${s.designName} revision ${s.revision}`, size);
+	const design = printable(s.designName, 'bold');
+	const build = printable(s.buildName);
+	const notes = printable(s.notes);
+	const missing = [...new Set([...design.missing, ...build.missing, ...notes.missing])];
 	let y = margin;
-	doc.font('bold').fontSize(15).text(`Cutting spec: ${s.designName}, revision ${s.revision}`, mm(margin), mm(y), { width: mm(width) });
+	doc.font('bold').fontSize(15).text(`Cutting spec: ${design.text}, revision ${s.revision}`, mm(margin), mm(y), { width: mm(width) });
 	y += 9;
-	doc.font('text').fontSize(9).fillColor('#444').text(`${s.buildName} · ${s.date} · drawing: ${s.dxfName}`, mm(margin), mm(y), { width: mm(width) });
-	y += 10;
+	doc.font('text').fontSize(9).fillColor('#444').text(`${build.text} · ${s.date} · drawing: ${s.dxfName}`, mm(margin), mm(y), { width: mm(width) });
+	y += 5;
+	if (missing.length) doc.font('text').fontSize(8).fillColor('#8a5200').text(missingNote(missing), mm(margin), mm(y), { width: mm(width) });
+	y += 5;
 	const order: [string, string][] = [
 		['Quantity', String(s.quantity)],
 		['Material', s.spec.materialLabel],
@@ -56,8 +62,8 @@ export async function cuttingSpecPdf(s: CuttingSpec): Promise<Buffer> {
 		y += 4;
 		doc.font('bold').fontSize(11).fillColor('black').text('Notes', mm(margin), mm(y));
 		y += 7;
-		doc.font('text').fontSize(9.5).text(s.notes, mm(margin), mm(y), { width: mm(width) });
-		y += doc.heightOfString(s.notes, { width: mm(width) }) / mm(1) + 4;
+		doc.font('text').fontSize(9.5).text(notes.text, mm(margin), mm(y), { width: mm(width) });
+		y += doc.heightOfString(notes.text, { width: mm(width) }) / mm(1) + 4;
 	}
 	doc.font('text').fontSize(8).fillColor('#444').text('Deburr all edges: cut parts are sharp. Keep the outline to the drawing; the gap and tooth edges set the engine’s timing.', mm(margin), mm(size.heightMm - margin - 8), { width: mm(width) });
 	return finish(doc);

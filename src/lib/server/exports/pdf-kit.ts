@@ -49,6 +49,32 @@ function parsedFont(file: string): Fontkit.Font {
 	return font;
 }
 
+/**
+ * A user-given name as this PDF can print it. The shipped fonts cover Latin, Greek and Cyrillic;
+ * a character they have no glyph for (CJK, emoji, many symbols) would print as nothing, so a name
+ * could vanish without a trace. Each such character is shown as "?" instead, and listed by code
+ * point for missingNote(). (A fallback font was weighed: one covering CJK is 10–20 MB per weight, and
+ * pdfkit cannot draw colour emoji at all.)
+ */
+export function printable(text: string, font: keyof typeof pdfFonts = 'text'): { text: string; missing: string[] } {
+	const face = parsedFont(pdfFonts[font]);
+	const missing = new Set<string>();
+	let out = '';
+	for (const ch of text) {
+		const cp = ch.codePointAt(0)!;
+		if (cp < 0x20 || face.hasGlyphForCodePoint(cp)) out += ch;
+		else {
+			out += '?';
+			missing.add(`U+${cp.toString(16).toUpperCase().padStart(4, '0')}`);
+		}
+	}
+	return { text: out, missing: [...missing] };
+}
+
+/** The line a PDF carries when a name lost characters to "?": which ones, so the reader knows the name is not whole. */
+export const missingNote = (missing: string[]) =>
+	`Characters the PDF font cannot print are shown as “?”: ${missing.slice(0, 12).join(', ')}${missing.length > 12 ? ` and ${missing.length - 12} more` : ''}.`;
+
 /** A document with the shipped fonts; its first page `size`, or none yet when size is null (add it with addPageMm). */
 export function newDocument(title: string, size: { widthMm: number; heightMm: number } | null) {
 	const doc = new PDFDocument({ size: size ? [mm(size.widthMm), mm(size.heightMm)] : 'A4', margin: 0, info: { Title: title, Creator: 'Phasewright' }, autoFirstPage: size !== null });

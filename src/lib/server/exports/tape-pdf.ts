@@ -3,7 +3,7 @@
 import { btdcSide, tapeTravel, travelWords, type Rotation } from '$lib/trade/hub';
 import { fittingWords, mmPerDegree, tapePage, tapeStrips, tapeWarnings, tapeX, ticks, type Strip, type TapeSpec } from '$lib/trade/tape';
 import { formatLength, type Units } from '$lib/trade/units';
-import { calibrationBars, finish, mm, newDocument, papers, printNote } from './pdf-kit';
+import { calibrationBars, finish, mm, newDocument, papers, printable, printNote } from './pdf-kit';
 import { keyOf, Recent } from './recent';
 
 const { marginMm: margin, headerMm: header, footerMm: footer, stripHeightMm: stripHeight, rowGapMm: rowGap } = tapePage;
@@ -87,7 +87,8 @@ async function drawTape(spec: TapeSpec, units: Units, paper: keyof typeof papers
 				const at = tapeX(spec, m.at);
 				if (at < strip.fromMm || at > strip.toMm) continue;
 				doc.save().lineWidth(0.6).strokeColor(m.color).moveTo(x(at), mm(top + 16.5)).lineTo(x(at), mm(top + stripHeight)).stroke().restore();
-				doc.font('text').fontSize(5.5).fillColor(m.color).text(m.label, x(at) + mm(0.8), mm(top + 18), { lineBreak: false });
+				// A mark's own name: a character the font lacks shows as "?" rather than vanishing (pdf-kit.ts).
+				doc.font('text').fontSize(5.5).fillColor(m.color).text(printable(m.label).text, x(at) + mm(0.8), mm(top + 18), { lineBreak: false });
 				doc.fillColor('black');
 			}
 		});

@@ -7,6 +7,7 @@ import { getBuild } from '$lib/server/builds';
 import { sendCuttingPackage } from '$lib/server/cutting-package';
 import { db } from '$lib/server/db';
 import { getDesign, revisionOf } from '$lib/server/designs';
+import { mailRefusal, reserveMail } from '$lib/server/mail-throttle';
 import { checkWheel } from '$lib/server/wheel-request';
 
 export async function GET(event) {
@@ -26,6 +27,8 @@ export async function POST(event) {
 	const wheel = checkWheel(revision.params);
 	if (!wheel.ok) error(422, { message: `Revision ${revision.number} no longer passes the wheel checks: ${Object.values(wheel.errors).join('; ')}`, code: 'invalid' });
 	const build = (await getBuild(db(), access.buildId))!;
+	const allowed = await reserveMail(db(), 'cutting-package', { address: body.data.to, client: event.getClientAddress(), workshopId: access.workshop.id });
+	if (!allowed.ok) return json({ message: mailRefusal(allowed), code: 'throttled' }, { status: 429, headers: { 'retry-after': String(allowed.retryAfterS) } });
 	try {
 		const sent = await sendCuttingPackage(db(), { build, design, revision: revision.number, wheel, to: body.data.to, quantity: body.data.quantity, notes: body.data.notes, sender: access.user });
 		return json({ ...sent, revision: revision.number, to: body.data.to }, { status: 201 });
