@@ -360,6 +360,13 @@ const refused = (status: number) => status >= 400;
 const rowName = (row: Row) => `${row.route}${row.note ? ` (${row.note})` : ''}`;
 const found = (body: string, secrets: string[]) => secrets.filter((s) => body.includes(s));
 
+/** A second client on the same session cookie, so a refused request cannot disturb the caller's own. */
+function cloneOf(client: Client) {
+	const copy = new Client();
+	for (const [k, v] of client.cookies) copy.cookies.set(k, v);
+	return copy;
+}
+
 describe('the access matrix', () => {
 	for (const row of table) {
 		it(rowName(row), async () => {
