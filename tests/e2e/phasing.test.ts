@@ -74,8 +74,9 @@ describe('phasing check in Chromium (signed out)', () => {
 		expect(text).toMatch(/V-twin, 52° V, one crankpin; firing intervals 412 \/ 308°/);
 		expect(text).toMatch(/Tooth at the sensor at TDC\s+10 \(tooth 0 = first after the gap, worked out from the angles\)/);
 		expect(text).toContain('Aluminium alloy, 4.00 mm');
-		// Seed document: marks at −10° and 19° put TDC at 4.5°.
-		expect(text).toMatch(/-10° and 19°: true TDC at 4\.5°/);
+		// Marks at −10° and 19° (signed scale, negative = BTDC) put TDC half-way, (−10 + 19) / 2 =
+		// 4.5° after the scale's 0 (piston-stop rule, common practice); the sheet prints them with sides.
+		expect(text).toMatch(/10° BTDC and 19° ATDC: true TDC 4\.5° ATDC/);
 
 		// Opening the shared address gives the same check.
 		await page.goto(page.url());
