@@ -6,6 +6,9 @@ export default {
 	preprocess: vitePreprocess(),
 	kit: {
 		adapter: adapter({ out: 'build' }),
+		// Test fixtures (example specs, synthetic photos, the makerjs model the DXF is checked
+		// against) live outside src, so no production import can reach them.
+		alias: { $support: 'tests/support' },
 		// The pages' Content-Security-Policy. `auto`: SvelteKit puts a fresh nonce on the inline
 		// script it writes into each rendered page (hashes if a page were prerendered), so scripts
 		// need no 'unsafe-inline'. Styles keep it: the markup carries style attributes (the theme

@@ -2,7 +2,7 @@
 // included (the target is under 2 s). The photo is drawn once, outside the timed function.
 import { bench, describe } from 'vitest';
 import { readPhoto } from '../src/lib/server/photos/reading';
-import { syntheticWheelPhoto } from '../src/lib/server/photos/synthetic';
+import { syntheticWheelPhoto } from '$support/synthetic-photos';
 
 const photo = await syntheticWheelPhoto({ teeth: 60, missing: 2, width: 4000, height: 3000, rotationDeg: 33, noise: 8, blur: 2, light: 0.3, jitterPx: 4 });
 

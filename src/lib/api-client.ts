@@ -1,8 +1,9 @@
 // The pages' calls to the JSON API (README: "Builds, wheel designs …"): one answer shape whatever
 // happened, so each caller only decides what to show.
 import { withoutField } from './params';
+import type { Refusal } from './schemas/refusal';
 
-export type ApiBody = { message?: string; code?: string; errors?: Record<string, string>; [key: string]: unknown };
+export type ApiBody = { message?: string; code?: string; errors?: Record<string, string>; refusals?: Refusal[]; [key: string]: unknown };
 export interface ApiAnswer {
 	ok: boolean;
 	/** 0 when the server could not be reached. */
@@ -39,12 +40,13 @@ export async function callApi(method: 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE
 export function splitRefusal(answer: ApiAnswer, shown: readonly string[], fallback = 'Not saved'): { errors: Record<string, string>; alerts: string[] } {
 	const errors: Record<string, string> = {};
 	const alerts: string[] = [];
-	for (const [key, message] of Object.entries(answer.body.errors ?? {})) {
+	const refusals = answer.body.refusals ?? Object.entries(answer.body.errors ?? {}).map(([field, message]) => ({ field, message: withoutField(field, message) ?? message }));
+	for (const { field: key, message } of refusals) {
 		const field = key.replace(/^params\./, '');
-		if (shown.includes(field)) errors[field] = withoutField(field, message) ?? message;
-		else alerts.push(message);
+		if (shown.includes(field)) errors[field] ??= message;
+		else alerts.push(`${key}: ${message}`);
 	}
-	if (!answer.body.errors) {
+	if (!refusals.length) {
 		const message = answer.body.message ?? `${fallback} (error ${answer.status}).`;
 		const named = shown.find((f) => message.startsWith(`${f}: `));
 		if (named) errors[named] = withoutField(named, message)!;

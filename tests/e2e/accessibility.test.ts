@@ -5,7 +5,7 @@ import { readFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { syntheticWheelPhoto } from '../../src/lib/server/photos/synthetic';
+import { syntheticWheelPhoto } from '$support/synthetic-photos';
 import { unavailablePage, unavailablePagePolicy } from '../../src/lib/server/unavailable';
 import { palette } from '../../tailwind.config';
 import { Client, freshEmail, signUp } from '../support/client';

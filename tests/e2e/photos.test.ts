@@ -6,7 +6,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import type { Browser, BrowserContext, Locator, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { syntheticWheelPhoto, type SyntheticWheelPhoto } from '../../src/lib/server/photos/synthetic';
+import { syntheticWheelPhoto, type SyntheticWheelPhoto } from '$support/synthetic-photos';
 import { Client, freshEmail, signUp } from '../support/client';
 import { baseUrl, launch, screenshots } from './browser';
 

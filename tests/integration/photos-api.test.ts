@@ -4,7 +4,7 @@ import sharp from 'sharp';
 import { sql } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { connect } from '../../src/lib/server/db';
-import { syntheticWheelPhoto } from '../../src/lib/server/photos/synthetic';
+import { syntheticWheelPhoto } from '$support/synthetic-photos';
 import { listKeys } from '../../src/lib/server/storage';
 import { Client, freshEmail, signUp } from '../support/client';
 

@@ -1,12 +1,19 @@
 import { json } from '@sveltejs/kit';
 import type { z } from 'zod';
 import { parseForm } from '$lib/schemas/form';
+import { namedErrors, refusalsFromMap, type Refusal } from '$lib/schemas/refusal';
 
 // Answers shared by the public API's routes.
 
-/** 400 with one message per bad field, each naming the field and what it allows. */
-export function refuse(errors: Record<string, string>): Response {
-	return json({ message: 'Some parameters are out of range; see errors for each field.', code: 'invalid', errors }, { status: 400 });
+/**
+ * The API's one 400 for bad parameters: `refusals` as the tool's check gave them ({ field, message },
+ * first reason per field, the message without the field's name), and `errors`, the same as a map of
+ * field to a message that starts with the field's name (what the API has always answered).
+ * A field → message map (messages written the older way, `field: …`) is taken too.
+ */
+export function refuse(refusals: readonly Refusal[] | Record<string, string>, status = 400): Response {
+	const list = Array.isArray(refusals) ? (refusals as readonly Refusal[]) : refusalsFromMap(refusals as Record<string, string>);
+	return json({ message: 'Some parameters are out of range; see errors for each field.', code: 'invalid', errors: namedErrors(list), refusals: list }, { status });
 }
 
 /**

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { balanceHoles, massProperties, permissibleUnbalanceGmm, unbalanceForceN } from './balance';
-import { exampleSpec } from './testing';
+import { exampleSpec } from '$support/example-spec';
 
 describe('balance', () => {
 	// ISO 21940-11: U_per = 9549·G·m/n. G 6.3, 1 kg at 3000 rpm -> 20.05 g·mm.

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { massProperties } from './balance';
 import { refusals, warnings } from './checks';
-import { exampleSpec } from './testing';
+import { exampleSpec } from '$support/example-spec';
 
 const running = { rpm: 8000, gradeMmS: 6.3 };
 const codes = (spec = exampleSpec()) => warnings(spec, 'mm', running, massProperties(spec)).map((w) => w.code);

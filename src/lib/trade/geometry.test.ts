@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { arc, contourMoments, line, polar, type Contour } from './geometry';
-import { exampleSpec } from './testing';
+import { exampleSpec } from '$support/example-spec';
 import { outerProfile, toothSpans } from './wheel';
 import { closureError } from './geometry';
 

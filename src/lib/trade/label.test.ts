@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { refusals } from './checks';
 import { labelShape, missingCharacters } from './label';
-import { exampleSpec } from './testing';
+import { exampleSpec } from '$support/example-spec';
 import { drawWheel, placeLabel } from './wheel';
 
 const range = (lo: number, hi: number) => Array.from({ length: hi - lo + 1 }, (_, i) => String.fromCodePoint(lo + i)).join('');

@@ -1,7 +1,7 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { contourPath, pathNumber } from './svg';
-import { exampleSpec } from './testing';
+import { exampleSpec } from '$support/example-spec';
 import { cutContours, drawWheel } from './wheel';
 
 describe('numbers in path data', () => {

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { summarize } from './summary';
-import { exampleSpec } from './testing';
+import { exampleSpec } from '$support/example-spec';
 import { valueKey } from './value-key';
 
 describe('keys for recent results', () => {

@@ -10,7 +10,7 @@ import { acceptedSpec, wheelParams } from '../../../tests/support/wheel-params';
 import { parseWheel } from '$lib/schemas/wheel';
 import { refusals } from './checks';
 import { arc, contourMoments, line, polar, type Contour } from './geometry';
-import { exampleSpec } from './testing';
+import { exampleSpec } from '$support/example-spec';
 import { cutContours, drawWheel } from './wheel';
 
 describe('the outline checker', () => {

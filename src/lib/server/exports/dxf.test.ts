@@ -2,9 +2,10 @@ import fc from 'fast-check';
 import makerjs from 'makerjs';
 import { describe, expect, it } from 'vitest';
 import { summarize } from '$lib/trade/summary';
-import { exampleSpec } from '$lib/trade/testing';
+import { exampleSpec } from '$support/example-spec';
 import type { WheelSpec } from '$lib/trade/wheel';
-import { dxfOptions, wheelDxf, wheelModel } from './dxf';
+import { dxfOptions, wheelModel } from '$support/wheel-model';
+import { wheelDxf } from './dxf';
 
 // The reference is makerjs's own DXF writer (makerjs.exporter.toDXF) given the wheel's model: the
 // file written straight from the drawing must be the same text, character for character, past two

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { exampleSpec } from '$lib/trade/testing';
+import { exampleSpec } from '$support/example-spec';
 import { exportName } from './names';
 
 describe('export file names', () => {

@@ -5,7 +5,7 @@ import sharp from 'sharp';
 import { describe, expect, it } from 'vitest';
 import { gapsOf } from '$lib/trade/pattern';
 import { readPhoto } from './reading';
-import { syntheticWheelPhoto, type SyntheticWheelOptions } from './synthetic';
+import { syntheticWheelPhoto, type SyntheticWheelOptions } from '$support/synthetic-photos';
 
 type Case = SyntheticWheelOptions & { name: string; centreOffPx?: number };
 

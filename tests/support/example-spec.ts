@@ -1,5 +1,5 @@
 // A plain wheel spec for tests and examples: 36-1, 100 mm, 5 mm teeth, 3 mm mild steel.
-import type { WheelSpec } from './wheel';
+import type { WheelSpec } from '$lib/trade/wheel';
 
 export function exampleSpec(over: Partial<WheelSpec> = {}): WheelSpec {
 	return {

@@ -8,10 +8,10 @@
 //   const reading = await readPhoto(photo.image, photo.taps); // compare with photo.truth
 import sharp from 'sharp';
 import { wheelSvg } from '$lib/server/exports/svg';
-import { exampleSpec } from '$lib/trade/testing';
+import { exampleSpec } from './example-spec';
 import { gapsOf } from '$lib/trade/pattern';
 import { drawWheel, gapOpenings } from '$lib/trade/wheel';
-import type { PhotoTaps } from './reading';
+import type { PhotoTaps } from '$lib/server/photos/reading';
 
 export interface SyntheticWheelOptions {
 	teeth: number;

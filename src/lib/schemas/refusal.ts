@@ -1,0 +1,46 @@
+import type { z } from 'zod';
+
+// What every tool's check answers when it will not go on: one reason per field, the first one
+// found, worded to stand beside that field (the field's name is not in the message). The page shows
+// them beside its fields; the API (server/api.ts `refuse`) sends the same list, so the designer
+// and the 400 always give the same reason.
+
+export interface Refusal {
+	/** The public parameter's name (`od`, `b`, `params.teeth` …), or `form` for the whole request. */
+	field: string;
+	message: string;
+}
+
+export type Checked<T> = { ok: true; value: T } | { ok: false; refusals: Refusal[] };
+
+/** A refusal, with a leading `field: ` taken off a message written the older way. */
+export const refusal = (field: string, message: string): Refusal => ({
+	field,
+	message: message.startsWith(`${field}: `) ? message.slice(field.length + 2) : message
+});
+
+/** The first refusal for each field, in the order found. */
+export function firstPerField(refusals: readonly Refusal[]): Refusal[] {
+	const seen = new Set<string>();
+	return refusals.filter((r) => !seen.has(r.field) && (seen.add(r.field), true));
+}
+
+/** Zod's issues as refusals, named by the first key of each issue's path (`form` when none). */
+export function refusalsOf(issues: readonly z.core.$ZodIssue[], prefix = ''): Refusal[] {
+	return firstPerField(issues.map((issue) => refusal(prefix + String(issue.path[0] ?? 'form'), issue.message)));
+}
+
+/** Field → message, for a page that looks a field's reason up by name. */
+export function byField(refusals: readonly Refusal[]): Record<string, string> {
+	return Object.fromEntries(firstPerField(refusals).map((r) => [r.field, r.message]));
+}
+
+/**
+ * The map the API has always answered under `errors`: each message starting with its field's name,
+ * so a refusal read on its own still says what it is about.
+ */
+export const namedErrors = (refusals: readonly Refusal[]): Record<string, string> =>
+	Object.fromEntries(firstPerField(refusals).map((r) => [r.field, `${r.field}: ${r.message}`]));
+
+/** A field → message map (messages may start with their field's name) as refusals. */
+export const refusalsFromMap = (errors: Record<string, string>): Refusal[] => Object.entries(errors).map(([field, message]) => refusal(field, message));
