@@ -2,7 +2,8 @@
 // take them (flat strings, lengths in mm or inches, fractions now and then), for the wheel
 // property test and the API fuzz.
 import fc from 'fast-check';
-import { lengthRanges, parseWheel, type WheelParams } from '../../src/lib/schemas/wheel';
+import { parseWheel, type WheelParams } from '../../src/lib/schemas/wheel';
+import { wheelParams } from '../../src/lib/schemas/wheel-params';
 import { refusals } from '../../src/lib/trade/checks';
 import { clearanceMm, type WheelSpec } from '../../src/lib/trade/wheel';
 
@@ -13,8 +14,17 @@ const num = (x: number, places: number) => String(Number(x.toFixed(places)));
  * A length as someone types it, kept inside the field's range: mm to 0.001; inches to 0.0001 or,
  * now and then, as a fraction in 64ths (when the rounding keeps it in range).
  */
-function typed(mm: number, field: keyof typeof lengthRanges, units: 'mm' | 'in', asFraction: boolean): string {
-	const [lo, hi] = lengthRanges[field];
+type LengthField = 'od' | 'depth' | 'tipRadius' | 'rootRadius' | 'bore' | 'keyWidth' | 'keyDepth' | 'shaft' | 'pcd' | 'boltHole' | 'balancePcd' | 'balanceHole' | 'thickness';
+
+/** A length parameter's range in mm, as the wheel's registry gives it. */
+function rangeOf(field: LengthField): [number, number] {
+	const def = wheelParams.get(field);
+	if (def?.kind !== 'length') throw new Error(`${field} is not a length`);
+	return [def.minMm, def.maxMm];
+}
+
+function typed(mm: number, field: LengthField, units: 'mm' | 'in', asFraction: boolean): string {
+	const [lo, hi] = rangeOf(field);
 	const v = Math.min(hi, Math.max(lo, mm));
 	if (units === 'mm') return num(Math.min(hi, Math.max(lo, Number(v.toFixed(3)))), 3);
 	const inches = v / MM_PER_IN;
@@ -60,7 +70,7 @@ export const wheelParams = fc
 	})
 	.map((g): WheelParams => {
 		const u = g.units as 'mm' | 'in';
-		const L = (mm: number, field: keyof typeof lengthRanges) => typed(mm, field, u, g.fractions);
+		const L = (mm: number, field: LengthField) => typed(mm, field, u, g.fractions);
 		const R = g.od / 2;
 		const toothMm = (g.duty * Math.PI * g.od) / g.teeth;
 		const gapMm = ((1 - g.duty) * Math.PI * g.od) / g.teeth;

@@ -1,24 +1,30 @@
 import { refuse } from './api';
-import { parseWheel, wheelParamNames, type ParsedWheel } from '$lib/schemas/wheel';
-import { summarize, type WheelSummary } from '$lib/trade/summary';
+import { checkWheel as check, type ParsedWheel } from '$lib/schemas/wheel';
+import { namedErrors, type Refusal } from '$lib/schemas/refusal';
+import type { WheelSummary } from '$lib/trade/summary';
 import type { FieldErrors } from '$lib/schemas/form';
 
-export type CheckedWheel = { ok: true; wheel: ParsedWheel; summary: WheelSummary; params: Record<string, string> } | { ok: false; errors: FieldErrors };
+export type CheckedWheel =
+	| { ok: true; wheel: ParsedWheel; summary: WheelSummary; params: Record<string, string> }
+	| { ok: false; errors: FieldErrors; refusals: Refusal[] };
 
-/** A wheel from flat parameters: the design, its summary and the given parameters it knows, or an error per bad field. */
+/**
+ * The wheel's one check (`checkWheel` in $lib/schemas/wheel, which the designer page runs too), in
+ * the shape the build and design routes read: the refusals also as a field → `field: message` map.
+ */
 export function checkWheel(params: Record<string, string | undefined>): CheckedWheel {
-	const parsed = parseWheel(params);
-	if (!parsed.ok) return { ok: false, errors: parsed.errors };
-	const result = summarize(parsed.value.spec, parsed.value.units, parsed.value.running);
-	if (!result.ok) return { ok: false, errors: Object.fromEntries(result.refusals.map((r) => [r.field, r.message])) };
-	const known = Object.entries(params).filter((e): e is [string, string] => wheelParamNames.includes(e[0]) && e[1] !== undefined && e[1] !== '');
-	return { ok: true, wheel: parsed.value, summary: result.summary, params: Object.fromEntries(known) };
+	const checked = check(params);
+	if (!checked.ok) return { ok: false, errors: namedErrors(checked.refusals), refusals: checked.refusals };
+	const { summary, params: known, ...wheel } = checked.value;
+	return { ok: true, wheel, summary, params: known };
 }
 
 export type WheelRequest = { ok: true; wheel: ParsedWheel; summary: WheelSummary } | { ok: false; response: Response };
 
 /** Reads a wheel from query parameters: the design and its summary, or the 400 that names each bad field. */
 export function wheelFromQuery(url: URL): WheelRequest {
-	const checked = checkWheel(Object.fromEntries(url.searchParams));
-	return checked.ok ? checked : { ok: false, response: refuse(checked.errors) };
+	const checked = check(Object.fromEntries(url.searchParams));
+	if (!checked.ok) return { ok: false, response: refuse(checked.refusals) };
+	const { summary, ...wheel } = checked.value;
+	return { ok: true, wheel, summary };
 }
