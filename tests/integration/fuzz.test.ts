@@ -12,7 +12,7 @@ import fc from 'fast-check';
 import sharp from 'sharp';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { buildSheetKeys } from '../../src/lib/schemas/phasing';
-import { wheelParams } from '../../src/lib/schemas/wheel-params';
+import { wheelParams as wheelRegistry } from '../../src/lib/schemas/wheel-params';
 import { cutContours, drawWheel } from '../../src/lib/trade/wheel';
 import { outlineDefects } from '../support/outline-check';
 import { acceptedSpec, wheelParams } from '../support/wheel-params';
@@ -25,7 +25,7 @@ afterAll(() => console.log(`fuzz: ${total} requests, seed ${seed}`));
 
 // ---- Parameter names, as the schemas and the README name them ----
 
-const wheelNames = wheelParams.names;
+const wheelNames = wheelRegistry.names;
 const tapeNames = ['units', 'diameter', 'circumference', 'paperThickness', 'rotation', 'paper', 'window', 'tick', 'mid', 'label', 'timing', 'tdc2'];
 const tdcNames = ['a', 'b', 'scale', 'arc', 'rotation', 'distance', 'diameter', 'units'];
 const cardNames = ['units', 'diameter', 'circumference', 'paperThickness', 'rotation', 'paper', 'curve'];

@@ -3,7 +3,7 @@
 // property test and the API fuzz.
 import fc from 'fast-check';
 import { parseWheel, type WheelParams } from '../../src/lib/schemas/wheel';
-import { wheelParams } from '../../src/lib/schemas/wheel-params';
+import { wheelParams as wheelRegistry } from '../../src/lib/schemas/wheel-params';
 import { refusals } from '../../src/lib/trade/checks';
 import { clearanceMm, type WheelSpec } from '../../src/lib/trade/wheel';
 
@@ -18,7 +18,7 @@ type LengthField = 'od' | 'depth' | 'tipRadius' | 'rootRadius' | 'bore' | 'keyWi
 
 /** A length parameter's range in mm, as the wheel's registry gives it. */
 function rangeOf(field: LengthField): [number, number] {
-	const def = wheelParams.get(field);
+	const def = wheelRegistry.get(field);
 	if (def?.kind !== 'length') throw new Error(`${field} is not a length`);
 	return [def.minMm, def.maxMm];
 }

@@ -1,13 +1,8 @@
-import { wheelDefaults } from '$lib/schemas/wheel';
+import { newWheel, wheelParams } from '$lib/schemas/wheel-params';
 import type { PageLoad } from './$types';
 
 /** The wheel's public parameters (the same names as /api/v1/wheel), the only ones read from the query. */
-const known = [
-	'pattern', 'teeth', 'missing', 'gaps', 'extraAfter', 'duty', 'od', 'depth', 'tipRadius', 'rootRadius',
-	'bore', 'keyway', 'keyWidth', 'keyDepth', 'shaft', 'woodruff', 'keywayAngle', 'bolts', 'pcd', 'boltHole',
-	'boltAngle', 'balanceCount', 'balancePcd', 'balanceHole', 'balanceAngle', 'balanceSpacing', 'mark', 'label',
-	'rotation', 'material', 'density', 'thickness', 'units', 'rpm', 'grade'
-] as const;
+const known = wheelParams.names;
 
 /** Where the page was opened from: a saved wheel design at one revision, or a build to start one in. */
 export type Opened =
@@ -28,10 +23,7 @@ interface ApiRevision {
 	params: Record<string, string>;
 }
 
-const defaultsFor = (units: string | null | undefined) => {
-	const u = units === 'in' ? 'in' : 'mm';
-	return { pattern: 'missing', units: u, ...wheelDefaults[u] } as Record<string, string>;
-};
+const defaultsFor = (units: string | null | undefined) => newWheel(units === 'in' ? 'in' : 'mm');
 
 /** What a refused look-up says to the person at the designer, who can carry on without it. */
 function refusal(status: number, what: 'wheel design' | 'build', body: { message?: string } | null): string {
