@@ -3,6 +3,7 @@ import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
+import { checkWheel } from '../../src/lib/schemas/wheel';
 
 const app = process.env.APP_URL!;
 const dir = mkdtempSync(join(tmpdir(), 'phasewright-wheel-'));
@@ -108,6 +109,35 @@ describe('GET /api/v1/wheel (JSON)', () => {
 		const res = await get('/api/v1/wheel', { teeth: '36', missing: '1', od: '3 1/2', depth: '3/16', bore: '5/8', thickness: '1/8', units: 'in' });
 		expect(res.status).toBe(200);
 		expect((await res.json()).rootDiameterMm).toBeCloseTo((3.5 - 2 * 0.1875) * 25.4, 3);
+	});
+});
+
+describe('the designer page and the API refuse alike', () => {
+	// The page runs checkWheel in the browser; the API runs it on the server. The expected first
+	// reason is typed here from the README's ranges (1 in = 25.4 mm) and the trade's rules.
+	const base = { teeth: '36', missing: '1', od: '100', depth: '5' };
+	it.each<[string, Record<string, string>, string, string]>([
+		['an outside diameter over 2000 mm', { ...base, od: '2500', units: 'mm' }, 'od', '10 mm to 2000 mm'],
+		// 10 mm = 0.3937 in, 2000 mm = 78.740 in.
+		['an outside diameter under 10 mm, in inches', { ...base, od: '1/4', depth: '1/16', units: 'in' }, 'od', '0.394 in to 78.74 in'],
+		['a depth that is no length', { ...base, depth: 'deep', units: 'mm' }, 'depth', '0.2 mm to 200 mm'],
+		['bolt holes without their circle', { ...base, bore: '20', bolts: '3', boltHole: '6' }, 'pcd', 'needed with bolt holes'],
+		['a keyway without a bore', { ...base, bore: '0', keyway: 'custom', keyWidth: '5', keyDepth: '2' }, 'bore', 'needed for a keyway (more than 0)'],
+		// 36 positions with 36 missing leave no tooth: at most N − 1 = 35.
+		['every tooth missing', { ...base, missing: '36' }, 'missing', 'at most 35']
+	])('%s', async (_, params, field, expected) => {
+		const page = checkWheel(params);
+		expect(page.ok).toBe(false);
+		if (page.ok) return;
+		const res = await get('/api/v1/wheel', params);
+		expect(res.status).toBe(400);
+		const body = (await res.json()) as { errors: Record<string, string>; refusals: { field: string; message: string }[] };
+		const first = page.refusals.find((r) => r.field === field);
+		expect(first?.message).toContain(expected);
+		// The same reasons, in the same order, first per field; the old map still names the field.
+		expect(body.refusals).toEqual(page.refusals);
+		expect(body.errors[field]).toBe(`${field}: ${first!.message}`);
+		expect(new Set(body.refusals.map((r) => r.field)).size).toBe(body.refusals.length);
 	});
 });
 

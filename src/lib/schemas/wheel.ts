@@ -9,7 +9,7 @@ import type { FieldErrors } from './form';
 import { common } from './common-params';
 import { allows, type Params } from './registry';
 import { firstPerField, namedErrors, refusal, type Checked, type Refusal } from './refusal';
-import { applying, wheelParams } from './wheel-params';
+import { wheelParams } from './wheel-params';
 
 // The wheel's one check, the same on the designer page (live, in the browser) and in every wheel
 // route: the flat parameters (URL query, form fields, JSON) read by the registry (wheel-params.ts),
@@ -219,4 +219,3 @@ export function parseWheel(params: WheelParams): { ok: true; value: ParsedWheel 
 	return read.ok ? read : { ok: false, errors: namedErrors(read.refusals) };
 }
 
-export { applying };
