@@ -33,7 +33,13 @@ const defs = [
 		label: 'Keyway',
 		kind: 'choice',
 		values: ['none', 'custom', 'din6885', 'b17.1', 'woodruff'],
-		labels: { none: 'None', custom: 'Custom size', din6885: 'DIN 6885-1 parallel key', 'b17.1': 'ANSI B17.1 square key', woodruff: 'Woodruff key (ANSI B17.2)' },
+		labels: {
+			none: 'None',
+			custom: 'Custom size',
+			din6885: 'DIN 6885-1 parallel key',
+			'b17.1': 'ANSI B17.1 square key',
+			woodruff: 'Woodruff key (ANSI B17.2)'
+		},
 		default: 'none'
 	},
 	{ name: 'keyWidth', label: 'Key slot width', ...length(0.5, 100), appliesWhen: (p) => p.keyway === 'custom' },
@@ -108,5 +114,6 @@ export const filledWheel = (p: Params): Params => ({ ...newWheel(p.units === 'in
  */
 export function applying(p: Partial<Record<string, string>>): Params {
 	const given = Object.fromEntries(Object.entries(p).filter((e): e is [string, string] => e[1] !== undefined && e[1].trim() !== ''));
-	return Object.fromEntries(wheelParams.params.filter((d) => d.name in given && (d.appliesWhen?.(given) ?? true)).map((d) => [d.name, given[d.name]!]));
+	const applies = wheelParams.params.filter((d) => d.name in given && (d.appliesWhen?.(given) ?? true));
+	return Object.fromEntries(applies.map((d) => [d.name, given[d.name]!]));
 }

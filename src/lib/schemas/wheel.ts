@@ -99,7 +99,8 @@ interface Read {
 	paper: 'a4' | 'letter';
 }
 
-const unitsOf = (params: WheelParams): Units | null => (params.units === undefined || params.units === '' ? 'mm' : params.units === 'mm' || params.units === 'in' ? params.units : null);
+const unitsOf = (params: WheelParams): Units | null =>
+	params.units === undefined || params.units === '' ? 'mm' : params.units === 'mm' || params.units === 'in' ? params.units : null;
 
 /**
  * The flat parameters read into a wheel spec (mm), without the trade library's cross-checks: the
@@ -137,7 +138,10 @@ export function readWheel(params: WheelParams): Checked<ParsedWheel> {
 		case 'din6885':
 			keyway = v.shaft === undefined ? null : (dinSlot(v.shaft) ?? null);
 			if (v.shaft === undefined) no('shaft', 'the shaft diameter, to look up the DIN 6885-1 key');
-			else if (!keyway) no('shaft', `over ${formatLength(dinShaftRange.min, units)} to ${formatLength(dinShaftRange.max, units)} for DIN 6885-1 keys (the standard's table ends there); outside it, use keyway=custom`);
+			else if (!keyway) {
+				const [lo, hi] = [formatLength(dinShaftRange.min, units), formatLength(dinShaftRange.max, units)];
+				no('shaft', `over ${lo} to ${hi} for DIN 6885-1 keys (the standard's table ends there); outside it, use keyway=custom`);
+			}
 			break;
 		case 'b17.1': {
 			keyway = v.shaft === undefined ? null : (ansiSlot(fromMm(v.shaft, 'in')) ?? null);
@@ -155,7 +159,12 @@ export function readWheel(params: WheelParams): Checked<ParsedWheel> {
 
 	const bolts =
 		v.bolts > 0
-			? { count: v.bolts, pcdMm: need('pcd', v.pcd, 'needed with bolt holes'), holeMm: need('boltHole', v.boltHole, 'needed with bolt holes'), clockDeg: v.boltAngle }
+			? {
+					count: v.bolts,
+					pcdMm: need('pcd', v.pcd, 'needed with bolt holes'),
+					holeMm: need('boltHole', v.boltHole, 'needed with bolt holes'),
+					clockDeg: v.boltAngle
+				}
 			: null;
 	const balanceHoles =
 		v.balanceCount > 0
@@ -167,7 +176,8 @@ export function readWheel(params: WheelParams): Checked<ParsedWheel> {
 					spacingDeg: v.balanceSpacing
 				}
 			: null;
-	const densityGcm3 = v.material === 'custom' ? need('density', v.density, 'needed for a custom material, 0.5 to 25 g/cm³') : materials[v.material].densityGcm3;
+	const densityGcm3 =
+		v.material === 'custom' ? need('density', v.density, 'needed for a custom material, 0.5 to 25 g/cm³') : materials[v.material].densityGcm3;
 	if (out.length || !gaps.success) return { ok: false, refusals: firstPerField(out) };
 
 	return {
@@ -209,7 +219,9 @@ export function checkWheel(params: WheelParams): Checked<ValidWheel> {
 	const { spec, units, running } = parsed.value;
 	const result = summarize(spec, units, running);
 	if (!result.ok) return { ok: false, refusals: firstPerField(result.refusals.map((r) => refusal(r.field, r.message))) };
-	const known = Object.fromEntries(Object.entries(params).filter((e): e is [string, string] => wheelParams.get(e[0]) !== undefined && e[1] !== undefined && e[1] !== ''));
+	const known = Object.fromEntries(
+		Object.entries(params).filter((e): e is [string, string] => wheelParams.get(e[0]) !== undefined && e[1] !== undefined && e[1] !== '')
+	);
 	return { ok: true, value: { ...parsed.value, summary: result.summary, params: known } };
 }
 

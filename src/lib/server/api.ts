@@ -13,7 +13,9 @@ import { namedErrors, refusalsFromMap, type Refusal } from '$lib/schemas/refusal
  */
 export function refuse(refusals: readonly Refusal[] | Record<string, string>, status = 400): Response {
 	const list = Array.isArray(refusals) ? (refusals as readonly Refusal[]) : refusalsFromMap(refusals as Record<string, string>);
-	return json({ message: 'Some parameters are out of range; see errors for each field.', code: 'invalid', errors: namedErrors(list), refusals: list }, { status });
+	// A map is answered as given: a nested field's message (`params.teeth` → `teeth: …`) keeps the wording it always had.
+	const errors = Array.isArray(refusals) ? namedErrors(list) : (refusals as Record<string, string>);
+	return json({ message: 'Some parameters are out of range; see errors for each field.', code: 'invalid', errors, refusals: list }, { status });
 }
 
 /**
