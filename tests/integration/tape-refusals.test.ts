@@ -25,7 +25,10 @@ describe('the tape page and the API give the same first reason', () => {
 		[{ diameter: '150', tick: '0.1', mid: '0.2' }, { field: 'tick', message: 'a number from 0.25 to 10°' }],
 		[{ diameter: '150', window: '200' }, { field: 'window', message: 'full, or a number from 5 to 180° each side of TDC' }],
 		[{ diameter: '150', tick: '2', mid: '5' }, { field: 'mid', message: 'a multiple of the tick spacing (2°)' }],
-		[{ diameter: '150', tdc2: 'cyl 2:400' }, { field: 'tdc2', message: 'numbers from 1 to 359 separated by commas, optionally named, like cyl 2:270 (degrees after TDC of cylinder 1)' }],
+		[
+			{ diameter: '150', tdc2: 'cyl 2:400' },
+			{ field: 'tdc2', message: 'numbers from 1 to 359 separated by commas, optionally named, like cyl 2:270 (degrees after TDC of cylinder 1)' }
+		],
 		[{ diameter: '150', rotation: 'left' }, { field: 'rotation', message: 'one of cw, ccw' }],
 		[{ units: 'furlong', diameter: '150' }, { field: 'units', message: 'one of mm, in' }]
 	];

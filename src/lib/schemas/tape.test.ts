@@ -28,7 +28,9 @@ describe('checkTape', () => {
 
 	it('asks for a hub size, once', () => {
 		expect(refusalsOf(checkTape({}))).toEqual([{ field: 'diameter', message: 'required (or give circumference instead)' }]);
-		expect(refusalsOf(checkTape({ diameter: '76', circumference: '240' }))).toEqual([{ field: 'circumference', message: 'give either diameter or circumference, not both' }]);
+		expect(refusalsOf(checkTape({ diameter: '76', circumference: '240' }))).toEqual([
+			{ field: 'circumference', message: 'give either diameter or circumference, not both' }
+		]);
 	});
 
 	it('refuses unknown units before reading any length', () => {

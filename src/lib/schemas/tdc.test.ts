@@ -14,7 +14,10 @@ describe('checkTdc', () => {
 	it('refuses each reading by field, without the field’s name', () => {
 		expect(checkTdc({ a: '10', b: '19', scale: 'quadrant' })).toEqual({
 			ok: false,
-			refusals: ['a', 'b'].map((field) => ({ field, message: 'on a 0–90–0 wheel, a number from 0 to 90 and its quadrant, like 10 BTDC, 19 ATDC, 30 BBDC or 30 ABDC' }))
+			refusals: ['a', 'b'].map((field) => ({
+				field,
+				message: 'on a 0–90–0 wheel, a number from 0 to 90 and its quadrant, like 10 BTDC, 19 ATDC, 30 BBDC or 30 ABDC'
+			}))
 		});
 	});
 	it('keeps findTdc’s older answer for its callers: a map of `field: message`', () => {

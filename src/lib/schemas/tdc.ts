@@ -19,11 +19,19 @@ export const tdcRegistry = defineRegistry([
 		kind: 'free',
 		allows: 'a reading as the scale shows it, or a number and its side, like 10 BTDC'
 	},
-	{ name: 'b', label: 'Second mark', help: 'The reading at the other piston stop.', kind: 'free', allows: 'a reading as the scale shows it, or a number and its side, like 19 ATDC' },
+	{
+		name: 'b',
+		label: 'Second mark',
+		help: 'The reading at the other piston stop.',
+		kind: 'free',
+		allows: 'a reading as the scale shows it, or a number and its side, like 19 ATDC'
+	},
 	{
 		name: 'scale',
 		label: 'Scale',
-		help: 'signed: −180 to 180, negative BTDC; full: 0 to 360 the way the crank turns; quadrant: 0–90–0–90–0 with its quarter. Without it a plain number past 180 means a 0–360 wheel.',
+		help:
+			'signed: −180 to 180, negative BTDC; full: 0 to 360 the way the crank turns; quadrant: 0–90–0–90–0 with its quarter. ' +
+			'Without it a plain number past 180 means a 0–360 wheel.',
 		kind: 'choice',
 		values: ['signed', 'full', 'quadrant'],
 		labels: { signed: 'Signed, −180 to 180°', full: '0 to 360°', quadrant: 'Quarters, 0–90–0–90–0' }
@@ -83,7 +91,9 @@ export function checkTdc(params: Partial<Record<string, string>>): Checked<TdcFo
 	if (isRim(p)) {
 		const read = tdcRegistry.read({ distance: p.distance, diameter: p.diameter }, units.value);
 		// Both are needed here, though each is optional beside two readings.
-		const missing = (['distance', 'diameter'] as const).filter((f) => p[f] === undefined).map((f) => refusal(f, `required, ${allows(tdcRegistry.get(f)!, units.value)}`));
+		const missing = (['distance', 'diameter'] as const)
+			.filter((f) => p[f] === undefined)
+			.map((f) => refusal(f, `required, ${allows(tdcRegistry.get(f)!, units.value)}`));
 		if (missing.length || !read.ok) return { ok: false, refusals: firstPerField([...missing, ...(read.ok ? [] : read.refusals)].sort(byName)) };
 		const distanceMm = read.value.distance as number;
 		const diameterMm = read.value.diameter as number;
@@ -106,7 +116,16 @@ export function checkTdc(params: Partial<Record<string, string>>): Checked<TdcFo
 	const a = reading('a');
 	const b = reading('b');
 	if (!a || !b) return { ok: false, refusals };
-	const marks: TdcMarks = { kind: 'marks', a, b, scale, arc: v.arc as Arc, rotation: (v.rotation as Rotation | undefined) ?? null, units: units.value, diameterMm: (v.diameter as number | undefined) ?? null };
+	const marks: TdcMarks = {
+		kind: 'marks',
+		a,
+		b,
+		scale,
+		arc: v.arc as Arc,
+		rotation: (v.rotation as Rotation | undefined) ?? null,
+		units: units.value,
+		diameterMm: (v.diameter as number | undefined) ?? null
+	};
 	const answer = tdcFromReadings(a, b, marks.arc);
 	if (!answer.ok) return { ok: false, refusals: [refusal(answer.field, answer.message)] };
 	return { ok: true, value: { kind: 'marks', marks, result: answer.result } };

@@ -20,7 +20,8 @@ const everything = Object.fromEntries([...tape, ...card, ...tdc, 'build', 'desig
 /** The parameter names a component's source uses: its text fields, the params it sets and the refusals it shows. */
 function namesIn(file: string): string[] {
 	const source = readFileSync(new URL(file, import.meta.url), 'utf8');
-	const names = [/text\('(\w+)'/g, /(?:page|this)\.params\.(\w+)/g, /errors\.(\w+)/g, /err\('(\w+)'\)/g].flatMap((re) => [...source.matchAll(re)].map((m) => m[1]!));
+	const patterns = [/text\('(\w+)'/g, /(?:page|this)\.params\.(\w+)/g, /errors\.(\w+)/g, /err\('(\w+)'\)/g];
+	const names = patterns.flatMap((re) => [...source.matchAll(re)].map((m) => m[1]!));
 	return [...new Set(names)];
 }
 

@@ -21,7 +21,8 @@ export async function saveTdcRecord(database: Database, buildId: string, input: 
 	if (!found.ok) return found;
 	if (found.value.kind === 'rim') {
 		const spread = spreadFromRim(found.value.distanceMm, found.value.diameterMm);
-		return { ok: false, refusals: [refusal('a', `a TDC record needs the two piston-stop readings in degrees (the rim distance gives a spread of ${spread.spreadDeg.toFixed(2)}°)`)] };
+		const why = `a TDC record needs the two piston-stop readings in degrees (the rim distance gives a spread of ${spread.spreadDeg.toFixed(2)}°)`;
+		return { ok: false, refusals: [refusal('a', why)] };
 	}
 	const { marks, result } = found.value;
 	// Kept with their sides and scale, so the record never depends on how the readings were typed.

@@ -43,7 +43,10 @@ export const tapeLengthMm = (spec: TapeSpec) => 2 * spec.windowDeg * mmPerDegree
 export interface TapeMark {
 	kind: 'timing' | 'tdc';
 	label: string;
-	/** Degrees ATDC of cylinder 1 in (−180, 180], BTDC negative: a spec timing's BTDC is −, another cylinder's TDC past half a turn comes round before TDC 1. */
+	/**
+	 * Degrees ATDC of cylinder 1 in (−180, 180], BTDC negative: a spec timing lies before TDC, and
+	 * another cylinder's TDC more than half a turn after cylinder 1's comes round before it.
+	 */
 	atdcDeg: number;
 	/** Within the tape's window, so printed. */
 	onTape: boolean;

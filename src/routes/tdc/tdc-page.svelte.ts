@@ -52,11 +52,14 @@ export class TdcPage {
 			diameterMm: marks.diameterMm ?? undefined,
 			lengthText: (mm) => formatLength(mm, this.units)
 		});
-		return { ok: true, kind: 'marks', a: marks.a.atdcDeg, b: marks.b.atdcDeg, scale: marks.scale, delta: result.deltaDeg, tdcDeg: result.tdcDeg, spreadDeg: result.spreadDeg, halfSpreadDeg: result.halfSpreadDeg, advice };
+		const { tdcDeg, spreadDeg, halfSpreadDeg, deltaDeg: delta } = result;
+		return { ok: true, kind: 'marks', a: marks.a.atdcDeg, b: marks.b.atdcDeg, scale: marks.scale, delta, tdcDeg, spreadDeg, halfSpreadDeg, advice };
 	});
 
 	/** Nothing typed yet is not an error to shout about. */
-	untouched = $derived(this.mode === 'marks' ? !this.params.a?.trim() && !this.params.b?.trim() : !this.params.distance?.trim() && !this.params.diameter?.trim());
+	untouched = $derived(
+		this.mode === 'marks' ? !this.params.a?.trim() && !this.params.b?.trim() : !this.params.distance?.trim() && !this.params.diameter?.trim()
+	);
 
 	/** A field's refusal as it stands beside the field, which the page calls by its label. */
 	err(field: string): string | undefined {
