@@ -160,3 +160,7 @@ export function readUnits(params: Partial<Record<string, string>>): Checked<Unit
 	const units = unitsOf(params);
 	return units ? { ok: true, value: units } : { ok: false, refusals: [refusal('units', 'one of mm, in')] };
 }
+
+/** A choice parameter's values with their labels, for a form's toggle or select. */
+export const choiceOptions = (def: ParamDef | undefined): { value: string; label: string }[] =>
+	def?.kind === 'choice' ? def.values.map((value) => ({ value, label: def.labels?.[value] ?? value })) : [];

@@ -110,7 +110,7 @@ export function checkTape(params: Partial<Record<string, string>>): Checked<Chec
 
 	const windowText = text('window') || 'full';
 	const windowDeg = windowText === 'full' ? 180 : Number(windowText);
-	if (windowText !== 'full' && !(/^\d+(\.\d+)?$/.test(windowText) && windowDeg >= 5 && windowDeg <= 180)) {
+	if (windowText !== 'full' && !(windowDeg >= 5 && windowDeg <= 180)) {
 		refusals.push(refusal('window', allows(tapeRegistry.get('window')!, units.value)));
 	}
 	const list = (name: 'timing' | 'tdc2') => {

@@ -34,7 +34,7 @@ export const tdcRegistry = defineRegistry([
 			'Without it a plain number past 180 means a 0–360 wheel.',
 		kind: 'choice',
 		values: ['signed', 'full', 'quadrant'],
-		labels: { signed: 'Signed, −180 to 180°', full: '0 to 360°', quadrant: 'Quarters, 0–90–0–90–0' }
+		labels: { signed: 'Signed, −180 to 180° (negative = BTDC)', full: '0 to 360° (350 = 10° BTDC)', quadrant: 'Quarters, 0–90–0–90–0' }
 	},
 	{
 		name: 'arc',
@@ -42,6 +42,7 @@ export const tdcRegistry = defineRegistry([
 		help: 'The shorter arc between the marks, unless the stop is deep and they lie more than half a turn apart through TDC.',
 		kind: 'choice',
 		values: ['shorter', 'longer'],
+		labels: { shorter: 'Shorter arc', longer: 'Longer arc' },
 		default: 'shorter'
 	},
 	// Not assumed: without it the answer cannot say left or right, clockwise or anticlockwise.
