@@ -61,5 +61,13 @@ export const common = {
 	},
 	keywayAngle: { name: 'keywayAngle', label: 'Keyway angle', help: 'Where the keyway sits, in degrees from the gap’s reference.', kind: 'angle', min: -360, max: 360, default: '0' },
 	rpm: { name: 'rpm', label: 'Rev limit', help: 'The highest crank speed the wheel will turn at, rpm.', kind: 'whole', min: 100, max: 30000, default: '8000' },
-	paper: { name: 'paper', label: 'Paper', kind: 'choice', values: ['a4', 'letter'], labels: { a4: 'A4', letter: 'Letter' }, default: 'a4' }
+	paper: { name: 'paper', label: 'Paper', kind: 'choice', values: ['a4', 'letter'], labels: { a4: 'A4', letter: 'Letter' }, default: 'a4' },
+	diameter: {
+		name: 'diameter',
+		label: 'Hub diameter',
+		help: 'The timing hub’s rim, where the degree tape or scale sits. Decimals or fractions.',
+		kind: 'length',
+		minMm: 10,
+		maxMm: 2000
+	}
 } as const satisfies Record<string, ParamDef>;

@@ -13,11 +13,17 @@ export interface Refusal {
 
 export type Checked<T> = { ok: true; value: T } | { ok: false; refusals: Refusal[] };
 
-/** A refusal, with a leading `field: ` taken off a message written the older way. */
-export const refusal = (field: string, message: string): Refusal => ({
-	field,
-	message: message.startsWith(`${field}: `) ? message.slice(field.length + 2) : message
-});
+/**
+ * The name a message starts with in the `errors` map: the field's own, or for a field inside an
+ * object (`params.b`, a tool's parameter in a saved record) the name the tool knows it by (`b`).
+ */
+const shownName = (field: string) => field.slice(field.lastIndexOf('.') + 1);
+
+/** A refusal, with a leading `field: ` (or the tool's `b: ` of `params.b`) taken off a message written the older way. */
+export function refusal(field: string, message: string): Refusal {
+	const prefix = [`${field}: `, `${shownName(field)}: `].find((p) => message.startsWith(p));
+	return { field, message: prefix ? message.slice(prefix.length) : message };
+}
 
 /** The first refusal for each field, in the order found. */
 export function firstPerField(refusals: readonly Refusal[]): Refusal[] {
@@ -37,10 +43,10 @@ export function byField(refusals: readonly Refusal[]): Record<string, string> {
 
 /**
  * The map the API has always answered under `errors`: each message starting with its field's name,
- * so a refusal read on its own still says what it is about.
+ * so a refusal read on its own still says what it is about (`params.b` → `b: …`, as the tool says it).
  */
 export const namedErrors = (refusals: readonly Refusal[]): Record<string, string> =>
-	Object.fromEntries(firstPerField(refusals).map((r) => [r.field, `${r.field}: ${r.message}`]));
+	Object.fromEntries(firstPerField(refusals).map((r) => [r.field, `${shownName(r.field)}: ${r.message}`]));
 
 /** A field → message map (messages may start with their field's name) as refusals. */
 export const refusalsFromMap = (errors: Record<string, string>): Refusal[] => Object.entries(errors).map(([field, message]) => refusal(field, message));

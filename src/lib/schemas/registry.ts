@@ -147,3 +147,20 @@ export function defineRegistry<const D extends readonly ParamDef[]>(params: D): 
 		}
 	};
 }
+
+/** The unit system a request's lengths are in: mm unless `units=in`; null for anything else. */
+export const unitsOf = (params: Partial<Record<string, string>>): Units | null =>
+	params.units === undefined || params.units === '' || params.units === 'mm' ? 'mm' : params.units === 'in' ? 'in' : null;
+
+/**
+ * The unit system, read before anything else: every length is read in it, so a request in
+ * unknown units is refused on `units` alone.
+ */
+export function readUnits(params: Partial<Record<string, string>>): Checked<Units> {
+	const units = unitsOf(params);
+	return units ? { ok: true, value: units } : { ok: false, refusals: [refusal('units', 'one of mm, in')] };
+}
+
+/** A choice parameter's values with their labels, for a form's toggle or select. */
+export const choiceOptions = (def: ParamDef | undefined): { value: string; label: string }[] =>
+	def?.kind === 'choice' ? def.values.map((value) => ({ value, label: def.labels?.[value] ?? value })) : [];

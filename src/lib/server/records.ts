@@ -1,7 +1,7 @@
 import { and, desc, eq } from 'drizzle-orm';
-import { parseTape } from '$lib/schemas/tape';
-import { findTdc, tdcRecordParams } from '$lib/schemas/tdc';
-import type { FieldErrors } from '$lib/schemas/form';
+import { refusal, type Refusal } from '$lib/schemas/refusal';
+import { checkTape } from '$lib/schemas/tape';
+import { checkTdc, tdcRecordParams } from '$lib/schemas/tdc';
 import { sideText, spreadFromRim } from '$lib/trade/tdc';
 import type { Database, Queryable } from './db';
 import { degreeTape, tdcRecord, user, type FlatParams } from './db/schema';
@@ -13,14 +13,16 @@ import { touchBuild } from './builds';
 
 const keep = (params: FlatParams) => Object.fromEntries(Object.entries(params).filter(([, v]) => v.trim() !== ''));
 
-export type RecordWrite = { ok: true; id: string } | { ok: false; errors: FieldErrors };
+/** The saved record's id, or the tool's refusals, named by the tool's own parameters. */
+export type RecordWrite = { ok: true; id: string } | { ok: false; refusals: Refusal[] };
 
 export async function saveTdcRecord(database: Database, buildId: string, input: { label: string; params: FlatParams }, authorId: string): Promise<RecordWrite> {
-	const found = findTdc(input.params);
-	if (found.ok === false) return { ok: false, errors: found.errors };
-	if (found.ok === 'rim') {
+	const found = checkTdc(input.params);
+	if (!found.ok) return found;
+	if (found.value.kind === 'rim') {
 		const spread = spreadFromRim(found.value.distanceMm, found.value.diameterMm);
-		return { ok: false, errors: { a: `a: a TDC record needs the two piston-stop readings in degrees (the rim distance gives a spread of ${spread.spreadDeg.toFixed(2)}°)` } };
+		const why = `a TDC record needs the two piston-stop readings in degrees (the rim distance gives a spread of ${spread.spreadDeg.toFixed(2)}°)`;
+		return { ok: false, refusals: [refusal('a', why)] };
 	}
 	const { marks, result } = found.value;
 	// Kept with their sides and scale, so the record never depends on how the readings were typed.
@@ -36,8 +38,8 @@ export async function saveTdcRecord(database: Database, buildId: string, input: 
 }
 
 export async function saveTape(database: Database, buildId: string, input: { label: string; params: FlatParams }, authorId: string): Promise<RecordWrite> {
-	const parsed = parseTape(input.params);
-	if (!parsed.ok) return { ok: false, errors: parsed.errors };
+	const parsed = checkTape(input.params);
+	if (!parsed.ok) return parsed;
 	const hub = parsed.value.spec.hubDiameterMm;
 	return database.transaction(async (tx) => {
 		const [row] = await tx.insert(degreeTape).values({ buildId, label: input.label, params: keep(input.params), authorId }).returning({ id: degreeTape.id });

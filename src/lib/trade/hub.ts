@@ -41,3 +41,12 @@ export function travelWords(rotation: Rotation): string {
 	const toward = btdcSide(rotation);
 	return `Crank turning ${rotation === 'cw' ? 'clockwise' : 'counter-clockwise'} seen from the wheel side: the tape moves ${toward === 'right' ? 'left to right' : 'right to left'} past the pointer, so BTDC numbers sit to the ${toward} of 0 and reach the pointer first.`;
 }
+
+export type TdcSide = 'BTDC' | 'ATDC';
+
+/** Which side of TDC a crank angle lies on (degrees ATDC, BTDC negative); null at TDC itself. */
+export const tdcSideOf = (atdcDeg: number): TdcSide | null => (Math.abs(atdcDeg) < 1e-9 ? null : atdcDeg < 0 ? 'BTDC' : 'ATDC');
+
+/** What each end of a printed tape, read upright, carries: the words the preview, the PDF and its diagram print. */
+export const tapeEnds = (rotation: Rotation): { left: TdcSide; right: TdcSide } =>
+	btdcSide(rotation) === 'left' ? { left: 'BTDC', right: 'ATDC' } : { left: 'ATDC', right: 'BTDC' };

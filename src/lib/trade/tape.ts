@@ -40,6 +40,27 @@ export const fittingWords =
 
 export const tapeLengthMm = (spec: TapeSpec) => 2 * spec.windowDeg * mmPerDegree(spec);
 
+export interface TapeMark {
+	kind: 'timing' | 'tdc';
+	label: string;
+	/**
+	 * Degrees ATDC of cylinder 1 in (−180, 180], BTDC negative: a spec timing lies before TDC, and
+	 * another cylinder's TDC more than half a turn after cylinder 1's comes round before it.
+	 */
+	atdcDeg: number;
+	/** Within the tape's window, so printed. */
+	onTape: boolean;
+}
+
+/** The extra marks of a tape, spec timings first, each where the crank stands when it reaches the pointer. */
+export function tapeMarks(spec: TapeSpec): TapeMark[] {
+	const marks = [
+		...spec.timingMarks.map((m) => ({ kind: 'timing' as const, label: m.label, atdcDeg: -m.btdcDeg })),
+		...spec.otherTdc.map((m) => ({ kind: 'tdc' as const, label: m.label, atdcDeg: m.atdcDeg > 180 ? m.atdcDeg - 360 : m.atdcDeg }))
+	];
+	return marks.map((m) => ({ ...m, onTape: Math.abs(m.atdcDeg) <= spec.windowDeg }));
+}
+
 export interface Tick {
 	atdcDeg: number;
 	xMm: number;

@@ -10,6 +10,13 @@ export interface AdvancePoint {
 }
 
 /**
+ * What a timing-light card takes: engine speeds from a slow idle to past any rev limit, advance
+ * from a little after TDC (some idles are set there) to more than any spark-ignition engine runs,
+ * and a table short enough to print on one card (from memory, generous on purpose).
+ */
+export const curveLimits = { rpmMin: 100, rpmMax: 30000, advanceMinDeg: -10, advanceMaxDeg: 60, maxPoints: 20 } as const;
+
+/**
  * A starting table to edit, not a recommendation: every engine, fuel and compression wants its
  * own curve. Shaped like a mild air-cooled single's (from memory).
  */

@@ -1,31 +1,20 @@
+import { tapeRegistry } from '$lib/schemas/tape';
+import { timingCardRegistry } from '$lib/schemas/timing-card';
 import type { PageLoad } from './$types';
 
-/** The tape's public parameters (the same names as /api/v1/tape), plus the timing-light card's curve. */
-const known = ['units', 'diameter', 'circumference', 'paperThickness', 'rotation', 'window', 'tick', 'mid', 'label', 'timing', 'tdc2', 'paper', 'curve'] as const;
+/** The names the page reads from its address: the tape's public parameters and the timing-light card's. */
+const known = [...new Set([...tapeRegistry.names, ...timingCardRegistry.names])];
 
-const defaults = {
-	mm: { diameter: '150', paperThickness: '0.1' },
-	in: { diameter: '6', paperThickness: '0.004' }
-} as const;
+/** A hub to start from, so a bare page shows a tape (the API has no default: a tape is for one hub). */
+const startHub = { mm: '150', in: '6' } as const;
 
 /**
- * A shared link carries the tape in its query; anything it leaves out starts from the defaults of
- * its unit system, so `?units=in&diameter=5 1/2` is a whole tape.
+ * A shared link carries the tape in its query; anything it leaves out starts from the registry's
+ * defaults for its unit system, so `?units=in&diameter=5 1/2` is a whole tape.
  */
 export const load: PageLoad = ({ url }) => {
 	const units = url.searchParams.get('units') === 'in' ? 'in' : 'mm';
-	const params: Record<string, string> = {
-		units,
-		...defaults[units],
-		rotation: 'cw',
-		window: 'full',
-		tick: '1',
-		mid: '5',
-		label: '10',
-		timing: '',
-		tdc2: '',
-		paper: 'a4'
-	};
+	const params: Record<string, string> = { ...tapeRegistry.defaults(units), units, diameter: startHub[units] };
 	for (const key of known) {
 		const value = url.searchParams.get(key);
 		if (value !== null) params[key] = value;

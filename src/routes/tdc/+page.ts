@@ -1,11 +1,15 @@
+import { tdcRegistry } from '$lib/schemas/tdc';
 import type { PageLoad } from './$types';
 
-/** The TDC finder's public parameters (the same names as /api/v1/tdc), the only ones read from the query. */
-const known = ['a', 'b', 'scale', 'arc', 'rotation', 'distance', 'diameter', 'units'] as const;
+/**
+ * The form's fields, each empty or at the registry's default, plus where a new form starts: a
+ * signed scale and a clockwise crank (the API assumes neither).
+ */
+const blank = { ...Object.fromEntries(tdcRegistry.names.map((n) => [n, ''])), ...tdcRegistry.defaults('mm'), scale: 'signed', rotation: 'cw' };
 
 export const load: PageLoad = ({ url }) => {
-	const params: Record<string, string> = { a: '', b: '', scale: 'signed', arc: 'shorter', rotation: 'cw', distance: '', diameter: '', units: 'mm' };
-	for (const key of known) {
+	const params: Record<string, string> = { ...blank };
+	for (const key of tdcRegistry.names) {
 		const value = url.searchParams.get(key);
 		if (value !== null) params[key] = value;
 	}

@@ -1,7 +1,7 @@
 // The degree tape as a PDF to print at actual size: strips stacked on the page, tiled over pages
 // with overlap and join marks when the hub is large, calibration bars on every page.
-import { btdcSide, tapeTravel, travelWords, type Rotation } from '$lib/trade/hub';
-import { fittingWords, mmPerDegree, tapePage, tapeStrips, tapeWarnings, tapeX, ticks, type Strip, type TapeSpec } from '$lib/trade/tape';
+import { tapeEnds, tapeTravel, tdcSideOf, travelWords, type Rotation } from '$lib/trade/hub';
+import { fittingWords, mmPerDegree, tapeMarks, tapePage, tapeStrips, tapeWarnings, tapeX, ticks, type Strip, type TapeSpec } from '$lib/trade/tape';
 import { formatLength, type Units } from '$lib/trade/units';
 import { calibrationBars, finish, mm, newDocument, papers, printable, printNote } from './pdf-kit';
 import { keyOf, Recent } from './recent';
@@ -31,7 +31,7 @@ async function drawTape(spec: TapeSpec, units: Units, paper: keyof typeof papers
 	const pages = strips.at(-1)!.page;
 	const all = ticks(spec);
 	const doc = newDocument(`Degree tape, ${formatLength(spec.hubDiameterMm, units)} hub`, size);
-	const side = (atdc: number) => (Math.abs(atdc) < 1e-9 ? 'TDC' : atdc < 0 ? 'BTDC' : 'ATDC');
+	const side = (atdc: number) => tdcSideOf(atdc) ?? 'TDC';
 	const textWidth = size.widthMm - 2 * margin - fitting.widthMm - 4;
 
 	for (let page = 1; page <= pages; page++) {
@@ -78,17 +78,14 @@ async function drawTape(spec: TapeSpec, units: Units, paper: keyof typeof papers
 					doc.font('mono').fontSize(7);
 				}
 			}
-			const marks = [
-				...spec.timingMarks.map((m) => ({ at: -m.btdcDeg, label: m.label, color: '#8a5200' })),
-				...spec.otherTdc.map((m) => ({ at: m.atdcDeg > 180 ? m.atdcDeg - 360 : m.atdcDeg, label: m.label, color: '#1d47b0' }))
-			];
-			for (const m of marks) {
-				if (Math.abs(m.at) > spec.windowDeg) continue;
-				const at = tapeX(spec, m.at);
+			for (const m of tapeMarks(spec)) {
+				if (!m.onTape) continue;
+				const at = tapeX(spec, m.atdcDeg);
+				const color = m.kind === 'timing' ? '#8a5200' : '#1d47b0';
 				if (at < strip.fromMm || at > strip.toMm) continue;
-				doc.save().lineWidth(0.6).strokeColor(m.color).moveTo(x(at), mm(top + 16.5)).lineTo(x(at), mm(top + stripHeight)).stroke().restore();
+				doc.save().lineWidth(0.6).strokeColor(color).moveTo(x(at), mm(top + 16.5)).lineTo(x(at), mm(top + stripHeight)).stroke().restore();
 				// A mark's own name: a character the font lacks shows as "?" rather than vanishing (pdf-kit.ts).
-				doc.font('text').fontSize(5.5).fillColor(m.color).text(printable(m.label).text, x(at) + mm(0.8), mm(top + 18), { lineBreak: false });
+				doc.font('text').fontSize(5.5).fillColor(color).text(printable(m.label).text, x(at) + mm(0.8), mm(top + 18), { lineBreak: false });
 				doc.fillColor('black');
 			}
 		});
@@ -110,7 +107,7 @@ const fitting = { widthMm: 72, heightMm: 38 } as const;
 function fittingDiagram(doc: PDFKit.PDFDocument, rotation: Rotation, left: number, top: number) {
 	const P = (v: number) => mm(v);
 	const travel = tapeTravel(rotation);
-	const btdc = btdcSide(rotation);
+	const ends = tapeEnds(rotation);
 	doc.save().lineWidth(0.3).strokeColor('#888').rect(P(left), P(top), P(fitting.widthMm), P(fitting.heightMm)).stroke();
 
 	// The hub from the wheel side: pointer at the top, the tape on the rim, the crank's sense of rotation.
@@ -139,9 +136,9 @@ function fittingDiagram(doc: PDFKit.PDFDocument, rotation: Rotation, left: numbe
 	// BTDC beside the tape's end ahead of the pointer in the sense of rotation, ATDC beside the other.
 	const rightEnd = at(38, r + 2.4);
 	const leftEnd = at(142, r + 2.4);
-	const words = btdc === 'right' ? (['ATDC', 'BTDC'] as const) : (['BTDC', 'ATDC'] as const);
-	doc.fillColor(words[0] === 'BTDC' ? '#8a5200' : 'black').text(words[0], leftEnd[0] - P(8), leftEnd[1] - P(2), { width: P(8), align: 'right', lineBreak: false });
-	doc.fillColor(words[1] === 'BTDC' ? '#8a5200' : 'black').text(words[1], rightEnd[0], rightEnd[1] - P(2), { lineBreak: false });
+	const ink = (word: string) => (word === 'BTDC' ? '#8a5200' : 'black');
+	doc.fillColor(ink(ends.left)).text(ends.left, leftEnd[0] - P(8), leftEnd[1] - P(2), { width: P(8), align: 'right', lineBreak: false });
+	doc.fillColor(ink(ends.right)).text(ends.right, rightEnd[0], rightEnd[1] - P(2), { lineBreak: false });
 	doc.font('text').fontSize(5).fillColor('black').text(`seen from the wheel side, turning ${rotation === 'cw' ? 'clockwise' : 'counter-clockwise'}`, P(left + 1), P(top + fitting.heightMm - 4.5), { width: P(30), align: 'center' });
 
 	// The tape at the pointer, looking at the rim: engine beyond, wheel face toward you.
@@ -159,8 +156,8 @@ function fittingDiagram(doc: PDFKit.PDFDocument, rotation: Rotation, left: numbe
 		doc.lineWidth(d === 0 ? 0.6 : 0.25).moveTo(P(xx), P(tapeTop)).lineTo(P(xx), P(tapeTop + (d === 0 ? 3.5 : d % 5 === 0 ? 2.5 : 1.5))).stroke();
 	}
 	doc.font('bold').fontSize(4.5).text('TDC', P(tx - 3), P(tapeTop + 3.4), { width: P(6), align: 'center', lineBreak: false });
-	doc.font('bold').fontSize(4.5).fillColor('#8a5200').text('BTDC', P(btdc === 'right' ? tx + 5 : tx - 13), P(tapeTop + 3.4), { width: P(8), align: 'center', lineBreak: false });
-	doc.fillColor('black').text('ATDC', P(btdc === 'right' ? tx - 13 : tx + 5), P(tapeTop + 3.4), { width: P(8), align: 'center', lineBreak: false });
+	doc.font('bold').fontSize(4.5).fillColor(ink(ends.left)).text(ends.left, P(tx - 13), P(tapeTop + 3.4), { width: P(8), align: 'center', lineBreak: false });
+	doc.fillColor(ink(ends.right)).text(ends.right, P(tx + 5), P(tapeTop + 3.4), { width: P(8), align: 'center', lineBreak: false });
 	doc.font('text').fontSize(4.5).text('top edge (header side) toward the engine', P(bx), P(tapeTop + tapeH - 2.9), { width: P(bw), align: 'center', lineBreak: false });
 	// The way the tape moves past the pointer.
 	const ay = tapeTop + tapeH + 3;

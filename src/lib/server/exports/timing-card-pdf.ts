@@ -1,6 +1,6 @@
 // The timing-light card: a table to take to the engine of where the mark should appear at each
 // speed, on this hub's tape.
-import { travelWords, type Rotation } from '$lib/trade/hub';
+import { tdcSideOf, travelWords, type Rotation } from '$lib/trade/hub';
 import { fittingWords, mmPerDegree } from '$lib/trade/tape';
 import type { CardRow } from '$lib/trade/timing';
 import { formatLength, fromMm, type Units } from '$lib/trade/units';
@@ -25,7 +25,7 @@ export async function timingCardPdf(rows: CardRow[], hub: { hubDiameterMm: numbe
 	for (const r of rows) {
 		doc.font('mono').fontSize(10);
 		doc.text(`${r.rpm} rpm`, mm(cols[0]!), mm(y), { lineBreak: false });
-		doc.text(r.advanceDeg === 0 ? 'TDC' : `${Math.abs(r.advanceDeg)}° ${r.advanceDeg > 0 ? 'BTDC' : 'ATDC'}`, mm(cols[1]!), mm(y), { lineBreak: false });
+		doc.text(r.advanceDeg === 0 ? 'TDC' : `${Math.abs(r.advanceDeg)}° ${tdcSideOf(-r.advanceDeg)}`, mm(cols[1]!), mm(y), { lineBreak: false });
 		doc.text(r.side ? `${fromMm(r.fromTdcMm, units).toFixed(units === 'in' ? 3 : 1)} ${units} ${r.side} of TDC` : 'on the TDC line', mm(cols[2]!), mm(y), { lineBreak: false });
 		doc.font('text').fontSize(8).text('checked: ____', mm(cols[3]!), mm(y + 0.5), { lineBreak: false });
 		y += 7.5;

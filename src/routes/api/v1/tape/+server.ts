@@ -1,13 +1,13 @@
 import { json } from '@sveltejs/kit';
-import { parseTape } from '$lib/schemas/tape';
+import { checkTape } from '$lib/schemas/tape';
 import { refuse } from '$lib/server/api';
 import { btdcSide, travelWords } from '$lib/trade/hub';
 import { fittingWords, mmPerDegree, tapeLengthMm, tapeStrips, tapeWarnings } from '$lib/trade/tape';
 import { fromMm } from '$lib/trade/units';
 
 export function GET({ url }) {
-	const parsed = parseTape(Object.fromEntries(url.searchParams));
-	if (!parsed.ok) return refuse(parsed.errors);
+	const parsed = checkTape(Object.fromEntries(url.searchParams));
+	if (!parsed.ok) return refuse(parsed.refusals);
 	const { spec, units, paper } = parsed.value;
 	const strips = tapeStrips(spec, paper);
 	const r = (v: number) => Math.round(v * 1e6) / 1e6;

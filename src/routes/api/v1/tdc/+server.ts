@@ -1,5 +1,5 @@
 import { json } from '@sveltejs/kit';
-import { findTdc } from '$lib/schemas/tdc';
+import { checkTdc } from '$lib/schemas/tdc';
 import { refuse } from '$lib/server/api';
 import { onScale, readingParam, scaleText, sideText, spreadFromRim, tdcAdvice } from '$lib/trade/tdc';
 import { formatLength, fromMm } from '$lib/trade/units';
@@ -7,9 +7,9 @@ import { formatLength, fromMm } from '$lib/trade/units';
 const r6 = (x: number) => Math.round(x * 1e6) / 1e6;
 
 export function GET({ url }) {
-	const found = findTdc(Object.fromEntries(url.searchParams));
-	if (found.ok === false) return refuse(found.errors);
-	if (found.ok === 'rim') {
+	const found = checkTdc(Object.fromEntries(url.searchParams));
+	if (!found.ok) return refuse(found.refusals);
+	if (found.value.kind === 'rim') {
 		const v = found.value;
 		const r = spreadFromRim(v.distanceMm, v.diameterMm);
 		return json({ units: v.units, spreadDeg: r.spreadDeg, halfSpreadDeg: r.halfSpreadDeg, fromEitherMark: r6(fromMm(r.fromEitherMarkMm, v.units)) });
