@@ -34,6 +34,11 @@ describe('the photo reading’s check', () => {
 		expect(refusals({ ...taps, units: 'cm', od: '100' })).toEqual([{ field: 'units', message: 'one of mm, in' }]);
 	});
 
+	it('keeps only x and y of each point, so nothing else sent is stored with the reading', () => {
+		const checked = checkPhotoTaps({ centre: { x: 1, y: 2, note: 'x'.repeat(1000) }, tips: [{ x: 30, y: 40, z: 5 }] });
+		expect(checked.ok && checked.value).toEqual({ centre: { x: 1, y: 2 }, tips: [{ x: 30, y: 40 }], units: 'mm' });
+	});
+
 	it('takes the diameter once', () => {
 		expect(refusals({ ...taps, od: '100', odMm: 100 }).map((r) => r.field)).toEqual(['odMm']);
 	});

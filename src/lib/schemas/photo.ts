@@ -94,7 +94,9 @@ export function checkPhotoTaps(input: Readonly<Record<string, unknown>>, photo?:
 	}
 	if (found.length || !read.ok || !centreOk || !tipsOk) return { ok: false, refusals: firstPerField(found) };
 	const odMm = (read.value.od ?? read.value.odMm) as number | undefined;
-	return { ok: true, value: { centre, tips, units, ...(odMm === undefined ? {} : { odMm }) } };
+	// Only x and y: whatever else came with a point is not stored with the reading.
+	const pt = (p: Pt): Pt => ({ x: p.x, y: p.y });
+	return { ok: true, value: { centre: pt(centre), tips: tips.map(pt), units, ...(odMm === undefined ? {} : { odMm }) } };
 }
 
 /** A diameter in mm as the user would type it back in their units: mm to 0.01, inches to 0.0001. */
