@@ -394,9 +394,11 @@ describe('the signed-in routes', () => {
 	it('POST /api/v1/photos/:id/reading: taps of any shape', async () => {
 		const point = fc.oneof(fc.record({ x: fc.oneof(fc.double(), fc.integer({ min: -10, max: 80 })), y: fc.oneof(fc.double(), fc.integer({ min: -10, max: 80 })) }), jsonValue);
 		const tips = fc.oneof(fc.array(point, { maxLength: 30 }), jsonValue);
-		await run(bodyArb({ centre: point, tips, odMm: fc.oneof(fc.double(), jsonValue) }, { centre: { x: 32, y: 32 }, tips: [{ x: 60, y: 32 }], odMm: 100 }), 80, async ({ body, type }) => {
+		const od = fc.oneof(fc.double(), fc.constantFrom('3 1/2', '100', '1/0', '', '9'.repeat(400)), jsonValue);
+		const units = fc.oneof(fc.constantFrom('mm', 'in', 'cm', ''), jsonValue);
+		await run(bodyArb({ centre: point, tips, od, units, odMm: fc.oneof(fc.double(), jsonValue) }, { centre: { x: 32, y: 32 }, tips: [{ x: 60, y: 32 }], odMm: 100 }), 80, async ({ body, type }) => {
 			// `image` is the photo itself: the reading's refusal when the taps find no teeth in it.
-			expectSound(await send({ method: 'POST', path: `/api/v1/photos/${photoId}/reading`, body, type }), ['centre', 'tips', 'odMm', 'image']);
+			expectSound(await send({ method: 'POST', path: `/api/v1/photos/${photoId}/reading`, body, type }), ['centre', 'tips', 'od', 'units', 'odMm', 'image']);
 		}, 41);
 	}, 120_000);
 

@@ -88,4 +88,33 @@ describe('wheel photos', () => {
 		expect(outside.status).toBe(400);
 		expect(outside.body.errors.centre).toMatch(/^centre: inside the photo/);
 	});
+
+	it('takes the known diameter as od with units, fractions of an inch too, or as the older odMm, to the same reading', async () => {
+		// A 3 1/2 in wheel, drawn from the SVG export at 3.5 × 25.4 = 88.9 mm across the tips (1 in = 25.4 mm exactly).
+		const shot = await syntheticWheelPhoto({ teeth: 24, missing: 2, odMm: 88.9, width: 1200, height: 900, rotationDeg: 80, noise: 4, tips: 3, seed: 5 });
+		const id = (await upload(client, buildId, [{ bytes: shot.image, name: 'three-and-a-half-inch.jpg' }])).body.photos[0]!.id;
+		type Answer = { reading: Record<string, number>; design: Record<string, string>; errors: Record<string, string>; refusals: { field: string; message: string }[] };
+		const read = (body: Record<string, unknown>) => client.send<Answer>('POST', `/api/v1/photos/${id}/reading`, body);
+		const inch = await read({ ...shot.taps, od: '3 1/2', units: 'in' });
+		const older = await read({ ...shot.taps, odMm: 88.9 });
+		expect([inch.status, older.status]).toEqual([200, 200]);
+		// The same reading either way, bar the time it took and the scale's last bit (3.5 × 25.4 is 88.89999… in floating point).
+		const rest = (r: Record<string, number>) => Object.fromEntries(Object.entries(r).filter(([k]) => k !== 'ms' && k !== 'mmPerPx'));
+		expect(rest(inch.body.reading)).toEqual(rest(older.body.reading));
+		expect(inch.body.reading.mmPerPx).toBeCloseTo(older.body.reading.mmPerPx!, 12);
+		expect(inch.body.reading).toMatchObject({ teeth: shot.truth.teeth, missing: shot.truth.missing });
+		// The scale comes from the diameter: 88.9 mm over the tip circle drawn 2 × radiusPx across.
+		expect(Math.abs(inch.body.reading.mmPerPx! / (88.9 / (2 * shot.truth.radiusPx)) - 1)).toBeLessThan(0.03);
+		// The designer opens in the units the diameter was given in.
+		expect(inch.body.design).toMatchObject({ units: 'in', od: '3.5', teeth: '24', missing: '2', pattern: 'missing' });
+		expect(older.body.design).toMatchObject({ units: 'mm', od: '88.9', teeth: '24', missing: '2', pattern: 'missing' });
+		// 1/4 in (6.35 mm) is under the 10 mm least; the range is said in inches (10 / 25.4 = 0.394, 2000 / 25.4 = 78.74).
+		const small = await read({ ...shot.taps, od: '1/4', units: 'in' });
+		expect(small.status).toBe(400);
+		expect(small.body.errors.od).toBe('od: 0.394 in to 78.74 in');
+		expect(small.body.refusals).toEqual([{ field: 'od', message: '0.394 in to 78.74 in' }]);
+		const both = await read({ ...shot.taps, od: '100', odMm: 100 });
+		expect(both.status).toBe(400);
+		expect(Object.keys(both.body.errors)).toEqual(['odMm']);
+	});
 });

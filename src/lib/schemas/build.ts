@@ -120,18 +120,3 @@ export const cuttingPackageInput = z.object({
 	quantity: z.number({ error: 'quantity: a whole number from 1 to 10000' }).int({ error: 'quantity: a whole number from 1 to 10000' }).min(1, { error: 'quantity: a whole number from 1 to 10000' }).max(10_000, { error: 'quantity: a whole number from 1 to 10000' }),
 	notes: text('notes', 2000).optional().default('')
 });
-
-const point = (field: string) =>
-	z.object(
-		{
-			x: z.number({ error: `${field}: x in image pixels` }).finite({ error: `${field}: x in image pixels` }),
-			y: z.number({ error: `${field}: y in image pixels` }).finite({ error: `${field}: y in image pixels` })
-		},
-		{ error: `${field}: a point {x, y} in image pixels` }
-	);
-
-export const photoTaps = z.object({
-	centre: point('centre'),
-	tips: z.array(point('tips'), { error: 'tips: 1 to 24 tooth-tip points' }).min(1, { error: 'tips: 1 to 24 tooth-tip points' }).max(24, { error: 'tips: 1 to 24 tooth-tip points' }),
-	odMm: z.number({ error: 'odMm: the known outer diameter, 10 to 2000 mm' }).min(10, { error: 'odMm: the known outer diameter, 10 to 2000 mm' }).max(2000, { error: 'odMm: the known outer diameter, 10 to 2000 mm' }).optional()
-});

@@ -89,3 +89,10 @@ export function patternRefusals(p: Pattern): { field: string; message: string }[
 	if (p.kind === 'extra' && (p.extraAfter < 0 || p.extraAfter >= N)) return [{ field: 'extraAfter', message: `extraAfter: 0 to ${N - 1}` }];
 	return [];
 }
+
+/**
+ * The open arc of a gap of `count` missing positions, in degrees: from the trailing edge of the
+ * tooth before it to the leading edge of the tooth after it, (count + 1) pitches less one tooth
+ * width (design.md, "Trade math": geometry). `gapOpenings` in wheel.ts spans the same arc.
+ */
+export const gapSpanDeg = (teeth: number, count: number, duty: number) => (count + 1 - duty) * pitchDeg(teeth);

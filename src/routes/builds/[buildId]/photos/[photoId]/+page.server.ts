@@ -1,29 +1,28 @@
 import { error } from '@sveltejs/kit';
+import type { Pt } from '$lib/schemas/photo';
 import { objectAccess } from '$lib/server/access';
 import { getBuild } from '$lib/server/builds';
 import { db } from '$lib/server/db';
 import { photoRow } from '$lib/server/photos/store';
 import { readingToDesign } from '$lib/server/photos/to-design';
+import type { Units } from '$lib/trade/units';
 import type { PageServerLoad } from './$types';
-
-interface Pt {
-	x: number;
-	y: number;
-}
 
 const isPt = (p: unknown): p is Pt => typeof p === 'object' && p !== null && Number.isFinite((p as Pt).x) && Number.isFinite((p as Pt).y);
 
 /** The photo reading stored on the row, with the taps it came from; null when there is none or it is not one we can show. */
 function storedReading(saved: Record<string, unknown> | null) {
 	if (!saved) return null;
-	const { taps, ...reading } = saved as { taps?: { centre?: unknown; tips?: unknown; odMm?: unknown } } & Record<string, unknown>;
+	const { taps, ...reading } = saved as { taps?: { centre?: unknown; tips?: unknown; odMm?: unknown; units?: unknown } } & Record<string, unknown>;
 	if (!taps || !isPt(taps.centre) || !Array.isArray(taps.tips) || !taps.tips.every(isPt)) return null;
 	if (typeof reading.teeth !== 'number' || typeof reading.missing !== 'number' || !Array.isArray(reading.gaps) || typeof reading.duty !== 'number') return null;
 	const odMm = typeof taps.odMm === 'number' ? taps.odMm : undefined;
+	// Readings stored before the units were kept were given in mm.
+	const units: Units = taps.units === 'in' ? 'in' : 'mm';
 	return {
-		taps: { centre: taps.centre, tips: taps.tips as Pt[], ...(odMm ? { odMm } : {}) },
+		taps: { centre: taps.centre, tips: taps.tips as Pt[], units, ...(odMm ? { odMm } : {}) },
 		reading,
-		design: readingToDesign(reading as unknown as Parameters<typeof readingToDesign>[0], odMm)
+		design: readingToDesign(reading as unknown as Parameters<typeof readingToDesign>[0], odMm, units)
 	};
 }
 

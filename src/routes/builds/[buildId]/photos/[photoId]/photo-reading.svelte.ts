@@ -1,0 +1,154 @@
+// The photo reading page's state: the taps (kept in the stored image's pixels, x right, y down,
+// whatever size the photo is shown at), the known diameter, and the answer. The page checks with
+// the API's own check (`checkPhotoTaps`) before it sends, so both refuse in the same words.
+import { callApi } from '$lib/api-client';
+import { checkPhotoTaps, diameterText, maxTips, photoParams, type Pt } from '$lib/schemas/photo';
+import { byField, type Refusal } from '$lib/schemas/refusal';
+import { parseLength, toMm, type Units } from '$lib/trade/units';
+
+export interface ReadingAnswer {
+	teeth: number;
+	missing: number;
+	gaps?: { first: number; count: number }[];
+	/** Image angle of the gap's middle: degrees counter-clockwise from +x, y up. */
+	gapAngleDeg?: number;
+	pitchDeg?: number;
+	duty?: number;
+	confidence?: number;
+	toothCount?: number;
+	radiusPx?: number;
+	mmPerPx?: number;
+}
+
+/** The last stored photo reading of a photo, with its taps (the page's load). */
+export interface StoredReading {
+	taps: { centre: Pt; tips: Pt[]; odMm?: number; units?: Units };
+	reading: Record<string, unknown>;
+	design: Record<string, string>;
+}
+
+export interface Result {
+	reading: ReadingAnswer;
+	design: Record<string, string>;
+	stored: boolean;
+	/** Read on an earlier visit (shown from the photo's stored reading). */
+	earlier: boolean;
+	/** The taps it was read from, to tell when they have changed since. */
+	key: string;
+}
+
+interface Photo {
+	id: string;
+	width: number;
+	height: number;
+}
+
+const tapKey = (c: Pt | null, t: Pt[]) => JSON.stringify([c, t]);
+
+/** Refused fields shown beside their control; the rest go in the alert, named by their label. */
+const besideTheirField = ['od', 'units'];
+/** What may be refused that is no parameter: the photo itself, the request. */
+const otherLabels: Record<string, string> = { image: 'Photo', body: 'Request', form: 'Request' };
+
+export class PhotoReading {
+	readonly photo: Photo;
+	centre = $state<Pt | null>(null);
+	tips = $state<Pt[]>([]);
+	odText = $state('');
+	units = $state<Units>('mm');
+	result = $state<Result | null>(null);
+	refusals = $state<Refusal[]>([]);
+	/** A failure that is no refusal (the server not reached …). */
+	message = $state<string | null>(null);
+	reading = $state(false);
+
+	readonly fresh = $derived(this.result !== null && this.result.key === tapKey(this.centre, this.tips));
+	readonly errors = $derived(byField(this.refusals));
+	readonly alerts = $derived([
+		...this.refusals
+			.filter((r) => !besideTheirField.includes(r.field))
+			.map((r) => `${otherLabels[r.field] ?? photoParams.label(r.field)}: ${r.message}`),
+		...(this.message ? [this.message] : [])
+	]);
+	readonly step = $derived(
+		!this.centre
+			? 'Tap the centre of the wheel'
+			: this.tips.length < maxTips
+				? 'Tap the tips of a few teeth (3 or more, spread round the wheel, helps on a tilted photo)'
+				: `That is ${maxTips} tips, the most a reading takes; read the teeth, or undo some`
+	);
+	readonly tapsSaid = $derived(
+		!this.centre ? 'Nothing tapped yet.' : `Centre placed; ${this.tips.length} tooth ${this.tips.length === 1 ? 'tip' : 'tips'}.`
+	);
+
+	constructor(photo: Photo, stored: StoredReading | null) {
+		this.photo = photo;
+		if (!stored) return;
+		this.centre = stored.taps.centre;
+		this.tips = stored.taps.tips;
+		this.units = stored.taps.units ?? 'mm';
+		this.odText = stored.taps.odMm ? diameterText(stored.taps.odMm, this.units) : '';
+		this.result = {
+			reading: stored.reading as unknown as ReadingAnswer,
+			design: stored.design,
+			stored: true,
+			earlier: true,
+			key: tapKey(stored.taps.centre, stored.taps.tips)
+		};
+	}
+
+	private forget(...fields: string[]) {
+		this.refusals = this.refusals.filter((r) => !fields.includes(r.field));
+	}
+
+	place(at: Pt) {
+		this.forget('centre', 'tips');
+		this.message = null;
+		if (!this.centre) this.centre = at;
+		else if (this.tips.length < maxTips) this.tips.push(at);
+	}
+
+	undo() {
+		if (this.tips.length) this.tips.pop();
+		else this.centre = null;
+	}
+
+	startAgain() {
+		this.centre = null;
+		this.tips = [];
+		this.result = null;
+		this.refusals = [];
+		this.message = null;
+	}
+
+	setOd(text: string) {
+		this.odText = text;
+		this.forget('od');
+	}
+
+	/** Another unit system: a diameter already typed is turned into it, so it still says the same size. */
+	setUnits(units: Units) {
+		const mm = toMm(parseLength(this.odText), this.units);
+		if (this.odText.trim() && Number.isFinite(mm)) this.odText = diameterText(mm, units);
+		this.units = units;
+		this.forget('od', 'units');
+	}
+
+	async read() {
+		if (!this.centre || !this.tips.length || this.reading) return;
+		this.message = null;
+		const od = this.odText.trim();
+		const body = { centre: $state.snapshot(this.centre), tips: $state.snapshot(this.tips), units: this.units, ...(od ? { od } : {}) };
+		const checked = checkPhotoTaps(body, this.photo);
+		this.refusals = checked.ok ? [] : checked.refusals;
+		if (!checked.ok) return;
+		const key = tapKey(this.centre, this.tips);
+		this.reading = true;
+		const answer = await callApi('POST', `/api/v1/photos/${encodeURIComponent(this.photo.id)}/reading`, body);
+		this.reading = false;
+		const a = answer.body as typeof answer.body & { reading: ReadingAnswer; design: Record<string, string>; stored?: boolean };
+		if (answer.ok) this.result = { reading: a.reading, design: a.design, stored: a.stored === true, earlier: false, key };
+		else if (a.refusals?.length) this.refusals = a.refusals;
+		else this.message = a.message ?? `The reading failed (status ${answer.status}); try again.`;
+	}
+}
