@@ -61,5 +61,17 @@ export const common = {
 	},
 	keywayAngle: { name: 'keywayAngle', label: 'Keyway angle', help: 'Where the keyway sits, in degrees from the gap’s reference.', kind: 'angle', min: -360, max: 360, default: '0' },
 	rpm: { name: 'rpm', label: 'Rev limit', help: 'The highest crank speed the wheel will turn at, rpm.', kind: 'whole', min: 100, max: 30000, default: '8000' },
-	paper: { name: 'paper', label: 'Paper', kind: 'choice', values: ['a4', 'letter'], labels: { a4: 'A4', letter: 'Letter' }, default: 'a4' }
+	paper: { name: 'paper', label: 'Paper', kind: 'choice', values: ['a4', 'letter'], labels: { a4: 'A4', letter: 'Letter' }, default: 'a4' },
+	// The wheel's size and stock, which the build sheet asks for too (ranges as src/lib/schemas/wheel.ts reads them).
+	depth: { name: 'depth', label: 'Tooth depth', help: 'From the tooth tip to the root.', kind: 'length', minMm: 0.2, maxMm: 200 },
+	thickness: { name: 'thickness', label: 'Thickness', help: 'Of the plate the wheel is cut from.', kind: 'length', minMm: 0.2, maxMm: 50 },
+	bore: { name: 'bore', label: 'Bore', help: 'The centre hole; 0 for none.', kind: 'length', minMm: 0, maxMm: 1900 },
+	material: {
+		name: 'material',
+		label: 'Material',
+		help: 'For the mass and the balance; custom takes a density.',
+		kind: 'choice',
+		values: ['steel', 'stainless', 'aluminium', 'custom'],
+		default: 'steel'
+	}
 } as const satisfies Record<string, ParamDef>;
