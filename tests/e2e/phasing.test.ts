@@ -2,6 +2,7 @@ import { execFileSync } from 'node:child_process';
 import { join } from 'node:path';
 import type { Browser } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { buildSheetParams, phasingParams } from '../../src/lib/schemas/phasing';
 import { baseUrl, launch, screenshots } from './browser';
 
 let browser: Browser;
@@ -31,7 +32,7 @@ describe('phasing check in Chromium (signed out)', () => {
 		await page.locator('label', { hasText: 'Measured angles' }).click();
 		await expect.poll(() => page.getByRole('radio', { name: 'Measured angles' }).isChecked()).toBe(true);
 		await page.getByLabel('Sensor angle (crank ° before the TDC mark)').fill('90');
-		await page.getByLabel('Keyway angle on the wheel (wheel °)').fill('15');
+		await page.getByLabel('Keyway angle (wheel °)').fill('15');
 		await page.getByLabel('Key angle (crank ° before the TDC mark)').fill('5');
 		// By geometry: the point at the sensor is (90 − 5) + 15 = 100° of wheel after tooth 0's leading
 		// edge, tooth 10 of a 10° pitch, which passed the sensor 100° before TDC.
@@ -52,7 +53,7 @@ describe('phasing check in Chromium (signed out)', () => {
 		const sheet = page.getByTestId('build-sheet');
 		expect(await sheet.getByRole('link', { name: 'Download build sheet (PDF)' }).getAttribute('aria-disabled')).toBe('true');
 		await page.getByLabel('Build name').fill('Twin 52 test');
-		await page.getByLabel('Outer diameter (mm)').fill('120');
+		await page.getByLabel('Outside diameter (mm)').fill('120');
 		await page.getByLabel('Tooth depth (mm)').fill('6');
 		await page.getByLabel('Thickness (mm)').fill('4');
 		await page.getByLabel('Material').selectOption('aluminium');
@@ -61,6 +62,9 @@ describe('phasing check in Chromium (signed out)', () => {
 		await expect.poll(() => new URL(page.url()).searchParams.get('tdcB')).toBe('19');
 		// The name goes as buildName: `build` in a tool's address is a build's id.
 		expect([new URL(page.url()).searchParams.get('buildName'), new URL(page.url()).searchParams.get('build')]).toEqual(['Twin 52 test', null]);
+		// Every name the form put in the address is a registered parameter of the check or the sheet.
+		const registered = new Set<string>([...phasingParams.names, ...buildSheetParams.names]);
+		expect([...new URL(page.url()).searchParams.keys()].filter((k) => !registered.has(k))).toEqual([]);
 		await page.screenshot({ path: join(screenshots, 'phasing-angles-v-twin.png'), fullPage: true });
 
 		const [download] = await Promise.all([page.waitForEvent('download'), sheet.getByRole('link', { name: 'Download build sheet (PDF)' }).click()]);
@@ -83,6 +87,17 @@ describe('phasing check in Chromium (signed out)', () => {
 		await expect.poll(() => page.getByTestId('first-tooth-offset').innerText()).toMatch(/100\s*° BTDC/);
 		expect(await page.getByLabel('Build name').inputValue()).toBe('Twin 52 test');
 		await context.close();
+	});
+
+	it('shows beside the field the same first refusal as GET /api/v1/phasing', async () => {
+		// Typed from the range: the spark window starts between -30 and 90° BTDC.
+		const query = 'teeth=36&missing=1&toothAtTdc=9&windowFrom=100';
+		const api = await (await fetch(`${baseUrl}/api/v1/phasing?${query}`)).json();
+		expect(api.refusals[0]).toEqual({ field: 'windowFrom', message: 'a number from -30 to 90° BTDC' });
+		const page = await (await browser.newContext()).newPage();
+		await page.goto(`${baseUrl}/phasing?${query}`);
+		await expect.poll(() => page.locator('#phasing-windowFrom-error').innerText()).toBe('a number from -30 to 90° BTDC');
+		expect(await page.getByLabel('Spark window from (° BTDC)').getAttribute('aria-invalid')).toBe('true');
 	});
 
 	it('opens a link of an earlier version (layout=v-twin-90) as a 90° V-twin', async () => {

@@ -172,7 +172,7 @@ describe('engine profile and records on a build', () => {
 		expect(res.body.phasing.firstToothOffsetDeg).toBe(90);
 		const bad = await me.client.send<{ errors: Record<string, string> }>('PUT', `/api/v1/builds/${buildId}/engine`, { params: { ...params, rpm: '90000' } });
 		expect(bad.status).toBe(400);
-		expect(bad.body.errors.rpm).toMatch(/^rpm: a number from 100 to 30000/);
+		expect(bad.body.errors.rpm).toMatch(/^rpm: a whole number from 100 to 30000/);
 		const { body } = await me.client.json<{ build: { engineProfile: Record<string, string> } }>(`/api/v1/builds/${buildId}`);
 		expect(body.build.engineProfile).toEqual(params);
 	});

@@ -1,5 +1,7 @@
 import { modelClearances } from '../support/phasing-model';
 import { describe, expect, it } from 'vitest';
+import { checkPhasing } from '../../src/lib/schemas/phasing';
+import { phasingSent } from '../../src/routes/phasing/form-query';
 
 const get = (params: Record<string, string>) => fetch(`${process.env.APP_URL}/api/v1/phasing?${new URLSearchParams(params)}`);
 
@@ -125,6 +127,28 @@ describe('GET /api/v1/phasing', () => {
 			keyFromSensor: 'keyFromSensor: not with input=angles (it follows from sensorAngle and keyAngle)'
 		});
 		expect(await errorsOf({ toothAtTdc: '9', sensorAngle: '90' })).toEqual({ sensorAngle: 'sensorAngle: only with input=angles (or give toothAtTdc alone)' });
+	});
+});
+
+describe('the page’s check and GET /api/v1/phasing', () => {
+	// The expected reasons are typed from the ranges: the spark window runs from -30 to 90° BTDC, and
+	// on a 36-position wheel the teeth are 0 to 35 (tooth 0 the first after the gap).
+	it('give the same first refusal for the same bad query', async () => {
+		const cases = [
+			{ query: { teeth: '36', missing: '1', toothAtTdc: '9', windowFrom: '100' }, first: { field: 'windowFrom', message: 'a number from -30 to 90° BTDC' } },
+			{ query: { teeth: '36', missing: '1', toothAtTdc: '40', windowFrom: '45' }, first: { field: 'toothAtTdc', message: '0 up to 36 (tooth 0 is the first after the gap)' } }
+		];
+		for (const { query, first } of cases) {
+			// What the page runs: the form's fields as it sends them, through the one check.
+			const page = checkPhasing(phasingSent(query));
+			expect(page.ok).toBe(false);
+			expect(!page.ok && page.refusals[0]).toEqual(first);
+			const res = await get(query);
+			expect(res.status).toBe(400);
+			const body = await res.json();
+			expect(body.refusals[0]).toEqual(first);
+			expect(body.errors[first.field]).toBe(`${first.field}: ${first.message}`);
+		}
 	});
 });
 

@@ -69,5 +69,17 @@ export const common = {
 		kind: 'length',
 		minMm: 10,
 		maxMm: 2000
+	},
+	// The wheel's size and stock, which the build sheet asks for too (ranges as src/lib/schemas/wheel.ts reads them).
+	depth: { name: 'depth', label: 'Tooth depth', help: 'From the tooth tip to the root.', kind: 'length', minMm: 0.2, maxMm: 200 },
+	thickness: { name: 'thickness', label: 'Thickness', help: 'Of the plate the wheel is cut from.', kind: 'length', minMm: 0.2, maxMm: 50 },
+	bore: { name: 'bore', label: 'Bore', help: 'The centre hole; 0 for none.', kind: 'length', minMm: 0, maxMm: 1900 },
+	material: {
+		name: 'material',
+		label: 'Material',
+		help: 'For the mass and the balance; custom takes a density.',
+		kind: 'choice',
+		values: ['steel', 'stainless', 'aluminium', 'custom'],
+		default: 'steel'
 	}
 } as const satisfies Record<string, ParamDef>;

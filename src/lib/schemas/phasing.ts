@@ -1,16 +1,17 @@
-import { z } from 'zod';
 import { cycleDeg, layoutChoices, layouts, legacyVTwin, vAngleRange, vTwin, type Layout, type Stroke } from '$lib/trade/engine';
 import { patternRefusals } from '$lib/trade/pattern';
 import { keyFromSensorFrom, toothAtTdcFrom, type MeasuredAngles, type PhasingInput } from '$lib/trade/phasing';
 import { summarize, type WheelSummary } from '$lib/trade/summary';
 import type { TdcResult } from '$lib/trade/tdc';
-import { formatLength, parseLength, toMm } from '$lib/trade/units';
-import type { FieldErrors } from './form';
+import { parseLength, toMm, type Units } from '$lib/trade/units';
+import { common } from './common-params';
+import { firstPerField, refusal, refusalsFromMap, type Checked, type Refusal } from './refusal';
+import { allows, defineRegistry, givenParams, type Params } from './registry';
 import { findTdc } from './tdc';
 import { singleLine } from './text';
-import { gapsField, parseWheel, patternKinds, patternOf, type ParsedWheel } from './wheel';
+import { gapsField, parseWheel, patternOf, type ParsedWheel } from './wheel';
 
-// The phasing check's public parameters (query or form), flat strings. Refusals name the field.
+// The phasing check's public parameters (query or form), flat strings; and the build sheet's.
 // Where the sensor is can be said two ways (`input`): `tooth`, the tooth under the sensor with
 // cylinder 1 at TDC (`toothAtTdc`); or `angles`, measured on the engine: `sensorAngle` and
 // `keyAngle` in crank degrees before the TDC mark, `keywayAngle` on the wheel (the designer's
@@ -19,48 +20,143 @@ import { gapsField, parseWheel, patternKinds, patternOf, type ParsedWheel } from
 /** Typical upper limits of the sensor's output, Hz (from memory; the data sheet wins). */
 export const sensorDefaults = { hall: 15000, vr: 10000 } as const;
 
-const oneOf = <T extends readonly [string, ...string[]]>(field: string, values: T) => z.enum(values, { error: `${field}: one of ${values.join(', ')}` });
-const number = (field: string, min: number, max: number, unit = '') => {
-	const range = `${field}: a number from ${min} to ${max}${unit}`;
-	return z.coerce.number({ error: range }).min(min, { error: range }).max(max, { error: range });
-};
-const whole = (field: string, min: number, max: number) => number(field, min, max).int({ error: `${field}: a whole number from ${min} to ${max}` });
-
 export const inputKinds = ['tooth', 'angles'] as const;
 const layoutIds = layoutChoices.map((l) => l.id) as [string, ...string[]];
-// Earlier ids (v-twin-45 …) are still read; the refusal names only today's.
-const layoutField = z.enum([...layoutIds, 'v-twin-45', 'v-twin-60', 'v-twin-75', 'v-twin-90'], { error: `layout: one of ${layoutIds.join(', ')}` });
+const byAngles = (p: Params) => p.input === 'angles';
+const beforeMark = '° before the TDC mark';
 
-const schema = z.object({
-	// The wheel's pattern parameters, with the wheel's names (src/lib/schemas/wheel.ts).
-	pattern: oneOf('pattern', patternKinds).default('missing'),
-	teeth: whole('teeth', 2, 720),
-	missing: whole('missing', 0, 719).default(1),
-	gaps: gapsField,
-	extraAfter: whole('extraAfter', 0, 719).default(0),
-	duty: number('duty', 0.05, 0.95).default(0.5),
-	mount: oneOf('mount', ['crank', 'cam'] as const).default('crank'),
-	layout: layoutField.optional(),
-	vAngle: number('vAngle', vAngleRange.min, vAngleRange.max, '°').optional(),
-	stroke: z.enum(['2', '4'], { error: 'stroke: 2 or 4' }).optional(),
-	intervals: z.string().optional(),
-	cylinders: whole('cylinders', 1, 12).optional(),
-	input: oneOf('input', inputKinds).default('tooth'),
-	toothAtTdc: number('toothAtTdc', 0, 720).optional(),
-	sensorAngle: number('sensorAngle', -720, 720, '° before the TDC mark').optional(),
-	keywayAngle: number('keywayAngle', -360, 360, '°').default(0),
-	keyAngle: number('keyAngle', -720, 720, '° before the TDC mark').optional(),
-	edge: oneOf('edge', ['leading', 'trailing'] as const).default('leading'),
-	rpm: whole('rpm', 100, 30000).default(8000),
-	cranking: whole('cranking', 50, 2000).default(200),
-	sensor: oneOf('sensor', ['hall', 'vr'] as const).default('hall'),
-	sensorMaxHz: number('sensorMaxHz', 100, 1_000_000, ' Hz').optional(),
-	windowFrom: number('windowFrom', -30, 90, '° BTDC').default(45),
-	windowTo: number('windowTo', -30, 90, '° BTDC').default(0),
-	resolution: number('resolution', 0.1, 90, '°').optional(),
-	target: number('target', 0, 720, '° BTDC').optional(),
-	keyFromSensor: number('keyFromSensor', -360, 360, '°').optional()
-});
+export const phasingParams = defineRegistry([
+	// The wheel's pattern parameters, with the wheel's names and labels.
+	common.pattern,
+	{ ...common.teeth, min: 2 },
+	{ ...common.missing, default: '1' },
+	common.gaps,
+	common.extraAfter,
+	{ ...common.duty, default: '0.5' },
+	{
+		name: 'mount',
+		label: 'Wheel on the',
+		help: 'The crank, or the cam (turning at half crank speed).',
+		kind: 'choice',
+		values: ['crank', 'cam'],
+		labels: { crank: 'Crank', cam: 'Cam (half speed)' },
+		default: 'crank'
+	},
+	{
+		name: 'layout',
+		label: 'Layout',
+		help: 'The cylinders and the crank. Empty: single-4, or the firing intervals given.',
+		kind: 'choice',
+		// Earlier ids (v-twin-45 …) are still read; the refusal names only today's.
+		values: [...layoutIds, 'v-twin-45', 'v-twin-60', 'v-twin-75', 'v-twin-90'],
+		allows: `one of ${layoutIds.join(', ')}`
+	},
+	{
+		name: 'vAngle',
+		label: 'V angle',
+		help: `Between the two cylinders’ axes, ${vAngleRange.min} to ${vAngleRange.max}°, decimals allowed. Both rods on one crankpin: cylinder 2 fires 360° + V after cylinder 1, then cylinder 1 360° − V later.`,
+		kind: 'number',
+		min: vAngleRange.min,
+		max: vAngleRange.max,
+		unit: '°',
+		appliesWhen: (p) => p.layout === 'v-twin'
+	},
+	{
+		name: 'stroke',
+		label: 'Stroke',
+		help: 'Without a layout: 4 unless given; a layout says its own.',
+		kind: 'choice',
+		values: ['4', '2'],
+		labels: { '4': '4-stroke', '2': '2-stroke' },
+		allows: '2 or 4',
+		appliesWhen: (p) => !p.layout
+	},
+	{
+		name: 'intervals',
+		label: 'Firing intervals',
+		help: 'Crank degrees from each cylinder’s firing to the next, from cylinder 1 round to cylinder 1 again, like 270, 450.',
+		kind: 'free',
+		allows: 'crank degrees between firings, like 270, 450',
+		appliesWhen: (p) => !p.layout
+	},
+	{ name: 'cylinders', label: 'Cylinders', help: 'A check on the intervals: one per cylinder.', kind: 'whole', min: 1, max: 12 },
+	{
+		name: 'input',
+		label: 'Where the sensor is, given as',
+		help: 'tooth: the tooth under the sensor at TDC; angles: the sensor’s and the key’s places measured on the engine.',
+		kind: 'choice',
+		values: inputKinds,
+		labels: { tooth: 'Tooth at TDC', angles: 'Measured angles' },
+		default: 'tooth'
+	},
+	// The measurement of the input chosen is required: checkPhasing asks for it (see there).
+	{
+		name: 'toothAtTdc',
+		label: 'Tooth at the sensor at TDC',
+		help: 'With cylinder 1 at TDC. Tooth 0 is the first after the gap; fractions allowed: 4.5 is half-way between 4 and 5.',
+		kind: 'number',
+		min: 0,
+		max: 720,
+		appliesWhen: (p) => !byAngles(p)
+	},
+	{
+		name: 'sensorAngle',
+		label: 'Sensor angle',
+		help: 'With cylinder 1 at TDC, crank degrees before the TDC mark; negative when the sensor sits after the mark.',
+		kind: 'number',
+		min: -720,
+		max: 720,
+		unit: beforeMark,
+		appliesWhen: byAngles
+	},
+	// The designer's keyway angle; the API has always worded its range as a number's.
+	{ ...common.keywayAngle, kind: 'number', unit: '°', appliesWhen: byAngles },
+	{
+		name: 'keyAngle',
+		label: 'Key angle',
+		help: 'Where the shaft’s key sits, read like the sensor. Empty is 0: the key in line with the mark.',
+		kind: 'number',
+		min: -720,
+		max: 720,
+		unit: beforeMark,
+		default: '0',
+		appliesWhen: byAngles
+	},
+	{
+		name: 'edge',
+		label: 'Edge the ECU reads',
+		kind: 'choice',
+		values: ['leading', 'trailing'],
+		labels: { leading: 'Leading edge', trailing: 'Trailing edge' },
+		default: 'leading'
+	},
+	common.rpm,
+	{ name: 'cranking', label: 'Cranking speed', help: 'Starter speed, rpm.', kind: 'whole', min: 50, max: 2000, default: '200' },
+	{ name: 'sensor', label: 'Sensor type', kind: 'choice', values: ['hall', 'vr'], labels: { hall: 'Hall-effect', vr: 'VR' }, default: 'hall' },
+	{
+		name: 'sensorMaxHz',
+		label: 'Sensor’s highest frequency',
+		help: `Empty: a typical sensor, Hall-effect ${sensorDefaults.hall} Hz, VR ${sensorDefaults.vr} Hz (from memory; the data sheet wins).`,
+		kind: 'number',
+		min: 100,
+		max: 1_000_000,
+		unit: ' Hz'
+	},
+	{ name: 'windowFrom', label: 'Spark window from', help: 'The earliest advance the ECU may fire at.', kind: 'number', min: -30, max: 90, unit: '° BTDC', default: '45' },
+	{ name: 'windowTo', label: 'Spark window to', help: 'The latest; no more than the window’s start.', kind: 'number', min: -30, max: 90, unit: '° BTDC', default: '0' },
+	{ name: 'resolution', label: 'Finest timing step wanted', help: 'Optional.', kind: 'number', min: 0.1, max: 90, unit: '°' },
+	{ name: 'target', label: 'First-tooth offset wanted', help: 'What the ECU maker asks for, if anything.', kind: 'number', min: 0, max: 720, unit: '° BTDC' },
+	{
+		name: 'keyFromSensor',
+		label: 'Where the key sits',
+		help: 'With cylinder 1 at TDC: how many wheel degrees the shaft’s key still turns, in the sense of rotation, before it reaches the sensor.',
+		kind: 'number',
+		min: -360,
+		max: 360,
+		unit: '°',
+		appliesWhen: (p) => !byAngles(p)
+	}
+]);
 
 export interface ParsedPhasing {
 	input: PhasingInput;
@@ -71,33 +167,70 @@ export interface ParsedPhasing {
 	clocking: { targetDeg: number; keyFromSensorDeg: number } | null;
 }
 
-export function parsePhasing(params: Record<string, string | undefined>): { ok: true; value: ParsedPhasing } | { ok: false; errors: FieldErrors } {
-	const given = Object.fromEntries(Object.entries(params).filter(([, v]) => v !== undefined && v !== ''));
-	// What is required depends on the input chosen: a placeholder that fails makes the refusal say the range.
-	const angles = given.input === 'angles';
-	const parsed = schema.safeParse({ teeth: 'missing', ...(angles ? { sensorAngle: 'missing' } : { toothAtTdc: 'missing' }), ...given });
-	const errors: FieldErrors = {};
-	if (!parsed.success) {
-		for (const issue of parsed.error.issues) errors[String(issue.path[0] ?? 'form')] ??= issue.message;
-		return { ok: false, errors };
-	}
-	const v = parsed.data;
-	const pattern = patternOf(v);
-	for (const r of patternRefusals(pattern)) errors[r.field] ??= r.message;
+/** The values as the registry reads them (angles in degrees; optional ones undefined when not given). */
+interface PhasingValues {
+	pattern: 'missing' | 'custom' | 'single' | 'extra';
+	teeth: number;
+	missing: number;
+	gaps?: string;
+	extraAfter: number;
+	duty: number;
+	mount: 'crank' | 'cam';
+	layout?: string;
+	vAngle?: number;
+	stroke?: '2' | '4';
+	intervals?: string;
+	cylinders?: number;
+	input: (typeof inputKinds)[number];
+	toothAtTdc?: number;
+	sensorAngle?: number;
+	keywayAngle: number;
+	keyAngle: number;
+	edge: 'leading' | 'trailing';
+	rpm: number;
+	cranking: number;
+	sensor: 'hall' | 'vr';
+	sensorMaxHz?: number;
+	windowFrom: number;
+	windowTo: number;
+	resolution?: number;
+	target?: number;
+	keyFromSensor?: number;
+}
+
+/**
+ * The phasing check, the same on the page, in `GET /api/v1/phasing`, for a build's engine profile
+ * and in the build sheet: the parsed input, or the first refusal per field in the order found.
+ */
+export function checkPhasing(params: Partial<Record<string, string>>): Checked<ParsedPhasing> {
+	const given = givenParams(params);
+	const ranges: Refusal[] = [];
+	// The measurement of the input chosen: no default could stand in for it, and the refusal says what it takes.
+	const measuredField = byAngles(given) ? 'sensorAngle' : 'toothAtTdc';
+	if (!(measuredField in given)) ranges.push(refusal(measuredField, allows(phasingParams.get(measuredField)!, 'mm')));
+	const read = phasingParams.read(given, 'mm');
+	if (!read.ok) ranges.push(...read.refusals);
+	const gaps = gapsField.safeParse(given.gaps ?? '');
+	if (!gaps.success) ranges.push(...gaps.error.issues.map((i) => refusal('gaps', i.message)));
+	if (!read.ok || ranges.length || !gaps.success) return { ok: false, refusals: firstPerField(ranges) };
+	const v = read.value as unknown as PhasingValues;
+
+	const found: Refusal[] = [];
+	const refuse = (field: string, message: string) => found.push(refusal(field, message));
+	const pattern = patternOf({ ...v, gaps: gaps.data });
+	for (const r of patternRefusals(pattern)) refuse(r.field, r.message);
 
 	let measured: MeasuredAngles | null = null;
 	let toothAtTdc = v.toothAtTdc ?? 0;
 	if (v.input === 'angles') {
-		const derivedFrom = 'it is worked out from sensorAngle, keywayAngle and keyAngle';
-		if (v.toothAtTdc !== undefined) errors.toothAtTdc = `toothAtTdc: not with input=angles (${derivedFrom})`;
-		if (v.keyFromSensor !== undefined) errors.keyFromSensor = 'keyFromSensor: not with input=angles (it follows from sensorAngle and keyAngle)';
-		measured = { sensorFromTdcDeg: v.sensorAngle!, keywayDeg: v.keywayAngle, keyFromTdcDeg: v.keyAngle ?? 0, mount: v.mount };
+		if (v.toothAtTdc !== undefined) refuse('toothAtTdc', 'not with input=angles (it is worked out from sensorAngle, keywayAngle and keyAngle)');
+		if (v.keyFromSensor !== undefined) refuse('keyFromSensor', 'not with input=angles (it follows from sensorAngle and keyAngle)');
+		measured = { sensorFromTdcDeg: v.sensorAngle!, keywayDeg: v.keywayAngle, keyFromTdcDeg: v.keyAngle, mount: v.mount };
 		toothAtTdc = toothAtTdcFrom({ ...measured, teeth: v.teeth });
 	} else {
-		for (const field of ['sensorAngle', 'keyAngle'] as const) {
-			if (v[field] !== undefined) errors[field] = `${field}: only with input=angles (or give toothAtTdc alone)`;
-		}
-		if (toothAtTdc >= v.teeth) errors.toothAtTdc = `toothAtTdc: 0 up to ${v.teeth} (tooth 0 is the first after the gap)`;
+		// As given, not as defaulted: keyAngle means 0 when empty, but is refused only when given.
+		for (const field of ['sensorAngle', 'keyAngle'] as const) if (field in given) refuse(field, 'only with input=angles (or give toothAtTdc alone)');
+		if (toothAtTdc >= v.teeth) refuse('toothAtTdc', `0 up to ${v.teeth} (tooth 0 is the first after the gap)`);
 	}
 
 	// A V-twin takes its V angle from vAngle, or from the id of earlier versions (v-twin-90).
@@ -105,38 +238,40 @@ export function parsePhasing(params: Record<string, string | undefined>): { ok: 
 	const layoutId = legacyV !== null ? 'v-twin' : v.layout;
 	let preset: Layout | undefined;
 	if (layoutId === 'v-twin') {
-		if (legacyV !== null && v.vAngle !== undefined) errors.vAngle = `vAngle: only with layout=v-twin (${v.layout} says its V angle)`;
+		if (legacyV !== null && v.vAngle !== undefined) refuse('vAngle', `only with layout=v-twin (${v.layout} says its V angle)`);
 		const vAngle = legacyV ?? v.vAngle;
-		if (vAngle === undefined) errors.vAngle = `vAngle: required with layout=v-twin, a number from ${vAngleRange.min} to ${vAngleRange.max}°`;
+		if (vAngle === undefined) refuse('vAngle', `required with layout=v-twin, ${allows(phasingParams.get('vAngle')!, 'mm')}`);
 		else preset = vTwin(vAngle);
 	} else {
-		if (v.vAngle !== undefined) errors.vAngle = 'vAngle: only with layout=v-twin';
+		if (v.vAngle !== undefined) refuse('vAngle', 'only with layout=v-twin');
 		preset = layouts.find((l) => l.id === (layoutId ?? (v.intervals ? undefined : 'single-4')));
 	}
 	const stroke: Stroke = v.stroke ? (Number(v.stroke) as Stroke) : (preset?.stroke ?? 4);
 	let intervals = preset?.intervals ?? [];
 	if (v.intervals !== undefined) {
 		intervals = v.intervals.split(/[\s,;]+/).filter(Boolean).map(Number);
-		if (intervals.some((i) => !(i > 0 && i <= 720))) errors.intervals = 'intervals: crank degrees between firings, like 270, 450';
+		if (intervals.some((i) => !(i > 0 && i <= 720))) refuse('intervals', allows(phasingParams.get('intervals')!, 'mm'));
 		else if (Math.abs(intervals.reduce((a, b) => a + b, 0) - cycleDeg(stroke)) > 1e-6) {
-			errors.intervals = `intervals: must add up to ${cycleDeg(stroke)}° for a ${stroke}-stroke (one firing per cylinder per cycle)`;
+			refuse('intervals', `must add up to ${cycleDeg(stroke)}° for a ${stroke}-stroke (one firing per cylinder per cycle)`);
 		}
 	} else if (preset && v.stroke && preset.stroke !== stroke) {
-		errors.stroke = `stroke: the ${preset.label} layout is a ${preset.stroke}-stroke`;
+		refuse('stroke', `the ${preset.label} layout is a ${preset.stroke}-stroke`);
 	}
-	if (v.cylinders !== undefined && v.cylinders !== intervals.length) errors.cylinders = `cylinders: ${intervals.length}, one per firing interval`;
-	if (v.windowTo > v.windowFrom) errors.windowTo = 'windowTo: no more than windowFrom (the window runs from windowFrom down to windowTo degrees BTDC)';
+	if (v.cylinders !== undefined && v.cylinders !== intervals.length) refuse('cylinders', `${intervals.length}, one per firing interval`);
+	if (v.windowTo > v.windowFrom) refuse('windowTo', 'no more than windowFrom (the window runs from windowFrom down to windowTo degrees BTDC)');
 
 	let clocking: ParsedPhasing['clocking'] = null;
 	if (measured) {
 		// The angles say where the key sits: the target alone is enough.
 		if (v.target !== undefined) clocking = { targetDeg: v.target, keyFromSensorDeg: keyFromSensorFrom(measured) };
-	} else if ((v.target === undefined) !== (v.keyFromSensor === undefined)) {
-		errors[v.target === undefined ? 'target' : 'keyFromSensor'] = 'target and keyFromSensor: give both to get a clocking suggestion';
+	} else if (v.target === undefined && v.keyFromSensor !== undefined) {
+		refuse('target', 'give it with keyFromSensor, to get a clocking suggestion');
+	} else if (v.target !== undefined && v.keyFromSensor === undefined) {
+		refuse('keyFromSensor', 'give it with target, to get a clocking suggestion');
 	} else if (v.target !== undefined && v.keyFromSensor !== undefined) {
 		clocking = { targetDeg: v.target, keyFromSensorDeg: v.keyFromSensor };
 	}
-	if (Object.keys(errors).length) return { ok: false, errors };
+	if (found.length) return { ok: false, refusals: firstPerField(found) };
 
 	return {
 		ok: true,
@@ -164,25 +299,35 @@ export function parsePhasing(params: Record<string, string | undefined>): { ok: 
 	};
 }
 
+/** The earlier name of checkPhasing, for callers not moved yet. */
+export const parsePhasing = checkPhasing;
+
 // ---- Build sheet ----
 // The sheet's parameters are the wheel's (src/lib/schemas/wheel.ts) and the phasing check's, which
-// share `teeth`, `missing`, `duty`, `rpm` and `keywayAngle` with one meaning, plus these.
+// share `teeth`, `missing`, `duty`, `rpm` and `keywayAngle` with one meaning, plus its own.
 
 /**
- * The build sheet's own parameters, besides the wheel's and the phasing check's. `build` is the
- * name's earlier spelling, still read: on the tools' pages `build` in the address is the id of the
- * build being worked on (src/lib/address-query.svelte.ts), so the name is `buildName`.
+ * The build sheet's parameters besides the phasing check's: its own, then the wheel's that its form
+ * asks for (it reads every wheel parameter). The name is `buildName`: on the tools' pages `build` in
+ * the address is the id of the build being worked on (src/lib/address-query.svelte.ts).
  */
-export const buildSheetKeys = ['buildName', 'build', 'revision', 'tdcA', 'tdcB', 'tapeDiameter'] as const;
+export const buildSheetParams = defineRegistry([
+	{ name: 'buildName', label: 'Build name', help: 'Printed at the top; up to 80 characters.', kind: 'free', allows: 'one line of text, at most 80 characters' },
+	{ name: 'revision', label: 'Wheel revision', help: 'Printed under the name; empty is “unsaved”.', kind: 'free', allows: 'one line of text, at most 20 characters' },
+	{ name: 'tdcA', label: 'First piston-stop mark', help: 'Optional: the two readings of the TDC finder.', kind: 'free', allows: 'a piston-stop reading in degrees' },
+	{ name: 'tdcB', label: 'Second piston-stop mark', kind: 'free', allows: 'a piston-stop reading in degrees' },
+	{ name: 'tapeDiameter', label: 'Timing hub diameter', help: 'Optional: for the degree tape’s scale.', kind: 'length', minMm: 10, maxMm: 2000 },
+	common.units,
+	{ ...common.od, required: true },
+	{ ...common.depth, required: true },
+	common.thickness,
+	common.bore,
+	common.material,
+	common.paper
+]);
 
-const sheetExtra = z.object({
-	buildName: singleLine('buildName', 80).default(''),
-	build: singleLine('build', 80).default(''),
-	revision: singleLine('revision', 20).default(''),
-	tdcA: z.string().optional(),
-	tdcB: z.string().optional(),
-	tapeDiameter: z.string().optional()
-});
+/** The names the sheet takes besides the wheel's and the phasing check's; `build` is `buildName`'s earlier spelling, still read. */
+export const buildSheetKeys = ['buildName', 'build', 'revision', 'tdcA', 'tdcB', 'tapeDiameter'] as const;
 
 export interface ParsedBuildSheet {
 	buildName: string;
@@ -194,45 +339,61 @@ export interface ParsedBuildSheet {
 	tapeHubMm: number | null;
 }
 
-/** Everything a build sheet needs, from flat parameters; refusals name each field, of either part. */
-export function parseBuildSheet(params: Record<string, string | undefined>): { ok: true; value: ParsedBuildSheet } | { ok: false; errors: FieldErrors } {
-	const given = Object.fromEntries(Object.entries(params).filter(([, v]) => v !== undefined && v !== '')) as Record<string, string>;
+/** A check's refusals, whether it answers them as refusals or (written the older way) as a field → message map. */
+const refusalsOfAnswer = (answer: { refusals: readonly Refusal[] } | { errors: Record<string, string> }): Refusal[] =>
+	'refusals' in answer ? [...answer.refusals] : refusalsFromMap(answer.errors);
+
+/** The sheet's own text fields: one line each. */
+const sheetText = { buildName: singleLine('buildName', 80), build: singleLine('build', 80), revision: singleLine('revision', 20) };
+
+/**
+ * Everything a build sheet needs, from flat parameters, checked the same on the page and in both
+ * build-sheet routes; refusals name each field, of either part.
+ */
+export function checkBuildSheet(params: Partial<Record<string, string>>): Checked<ParsedBuildSheet> {
+	const given = givenParams(params);
 	const wheel = parseWheel(given);
-	const phase = parsePhasing(given);
-	const more = sheetExtra.safeParse(given);
-	const errors: FieldErrors = { ...(wheel.ok ? {} : wheel.errors), ...(phase.ok ? {} : phase.errors) };
-	if (!more.success) for (const i of more.error.issues) errors[String(i.path[0])] ??= i.message;
+	const phase = checkPhasing(given);
+	// Where both refuse a shared name (teeth …), the phasing check's reason: its ranges are the narrower.
+	const found: Refusal[] = [...(phase.ok ? [] : phase.refusals), ...(wheel.ok ? [] : refusalsOfAnswer(wheel))];
+	const text: Record<string, string> = {};
+	for (const [field, schema] of Object.entries(sheetText)) {
+		const read = schema.safeParse(given[field] ?? '');
+		if (read.success) text[field] = read.data;
+		else found.push(...read.error.issues.map((i) => refusal(field, i.message)));
+	}
 
 	let tdc: ParsedBuildSheet['tdc'] = null;
 	const { tdcA, tdcB, tapeDiameter } = given;
 	if (tdcA !== undefined || tdcB !== undefined) {
 		const marks = findTdc({ a: tdcA, b: tdcB });
-		// findTdc names its fields a and b: here they are tdcA and tdcB.
-		const rename = (field: string, message: string) => {
-			const named = `tdc${field.toUpperCase()}`;
-			const text = message.startsWith(`${field}:`) ? `${named}${message.slice(field.length)}` : `${named}: ${message}`;
-			errors[named] ??= text.replace(/^tdcB: must differ from a\b/, 'tdcB: must differ from tdcA');
-		};
-		if (marks.ok === false) for (const [k, m] of Object.entries(marks.errors)) rename(k, m);
-		else if (marks.ok === 'rim') errors.tdcA ??= 'tdcA: a piston-stop reading in degrees';
+		if (marks.ok === false) {
+			// findTdc names its fields a and b: here they are tdcA and tdcB.
+			for (const r of refusalsOfAnswer(marks)) {
+				const message = r.message.startsWith(`${r.field}: `) ? r.message.slice(r.field.length + 2) : r.message;
+				found.push(refusal(`tdc${r.field.toUpperCase()}`, message.replace(/^must differ from a\b/, 'must differ from tdcA')));
+			}
+		} else if (marks.ok === 'rim') found.push(refusal('tdcA', 'a piston-stop reading in degrees'));
 		else tdc = { a: marks.value.marks.a.atdcDeg, b: marks.value.marks.b.atdcDeg, result: marks.value.result };
 	}
 	let tapeHubMm: number | null = null;
 	if (tapeDiameter !== undefined) {
-		const units = wheel.ok ? wheel.value.units : given.units === 'in' ? 'in' : 'mm';
+		const units: Units = wheel.ok ? wheel.value.units : given.units === 'in' ? 'in' : 'mm';
+		const def = buildSheetParams.get('tapeDiameter')!;
 		tapeHubMm = toMm(parseLength(tapeDiameter), units);
-		const L = (mm: number) => formatLength(mm, units).replace(/\.?0+ /, ' ');
-		if (!(tapeHubMm >= 10 && tapeHubMm <= 2000)) errors.tapeDiameter = `tapeDiameter: the timing hub diameter, ${L(10)} to ${L(2000)}`;
+		if (!(tapeHubMm >= 10 && tapeHubMm <= 2000)) found.push(refusal('tapeDiameter', `the timing hub diameter, ${allows(def, units)}`));
 	}
 	// The wheel's own cross-checks (a tooth deeper than the web allows …), from the trade library.
 	const summary = wheel.ok ? summarize(wheel.value.spec, wheel.value.units, wheel.value.running) : null;
-	if (summary && !summary.ok) for (const r of summary.refusals) errors[r.field] ??= r.message;
-	if (!wheel.ok || !phase.ok || !more.success || !summary?.ok || Object.keys(errors).length) return { ok: false, errors };
+	if (summary && !summary.ok) for (const r of summary.refusals) found.push(refusal(r.field, r.message));
+	if (!wheel.ok || !phase.ok || !summary?.ok || found.length) {
+		return { ok: false, refusals: firstPerField(found.length ? found : [refusal('form', 'this build sheet could not be put together')]) };
+	}
 	return {
 		ok: true,
 		value: {
-			buildName: more.data.buildName || more.data.build || 'Untitled build',
-			revision: more.data.revision || 'unsaved',
+			buildName: text.buildName || text.build || 'Untitled build',
+			revision: text.revision || 'unsaved',
 			wheel: wheel.value,
 			summary: summary.summary,
 			// One wheel on the sheet: the phasing check runs on the pattern and duty the wheel is cut

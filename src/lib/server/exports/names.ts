@@ -13,3 +13,14 @@ export function exportName(spec: WheelSpec, units: Units, ext: 'dxf' | 'svg' | '
 	const pattern = patternName(spec.pattern).split(' ')[0]!.replace(/[^0-9+-]/g, '');
 	return `wheel-${pattern || 'custom'}-${od}${units}${paper ? `-${paper}` : ''}${revision ? `-r${revision}` : ''}.${ext}`;
 }
+
+/** A name as it goes into a file name: lower case, runs of anything but letters and digits one hyphen. */
+const slug = (name: string) =>
+	name
+		.toLowerCase()
+		.replace(/[^a-z0-9]+/g, '-')
+		.replace(/^-|-$/g, '');
+
+/** `build-sheet-trail-single-500.pdf`, `build-sheet-sheet-bench-650-r2.pdf`: the build's name and the wheel's saved revision. */
+export const buildSheetName = (buildName: string, revision?: number): string =>
+	`build-sheet-${slug(buildName) || 'build'}${revision ? `-r${revision}` : ''}.pdf`;

@@ -1,12 +1,12 @@
 import { json } from '@sveltejs/kit';
-import { parsePhasing } from '$lib/schemas/phasing';
+import { checkPhasing } from '$lib/schemas/phasing';
 import { refuse } from '$lib/server/api';
 import { clockingFor, phasing } from '$lib/trade/phasing';
 
 export function GET({ url }) {
-	const parsed = parsePhasing(Object.fromEntries(url.searchParams));
-	if (!parsed.ok) return refuse(parsed.errors);
-	const { input, layoutLabel, clocking, measured } = parsed.value;
+	const checked = checkPhasing(Object.fromEntries(url.searchParams));
+	if (!checked.ok) return refuse(checked.refusals);
+	const { input, layoutLabel, clocking, measured } = checked.value;
 	return json({
 		layout: layoutLabel,
 		mount: input.mount,

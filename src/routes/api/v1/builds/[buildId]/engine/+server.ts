@@ -1,6 +1,6 @@
 import { json } from '@sveltejs/kit';
 import { engineProfile } from '$lib/schemas/build';
-import { parsePhasing } from '$lib/schemas/phasing';
+import { checkPhasing } from '$lib/schemas/phasing';
 import { objectAccess } from '$lib/server/access';
 import { jsonBody, refuse } from '$lib/server/api';
 import { updateBuild } from '$lib/server/builds';
@@ -15,8 +15,8 @@ export async function PUT(event) {
 	const access = await objectAccess(event, 'edit', 'build', event.params.buildId);
 	const body = await jsonBody(event.request, engineProfile);
 	if (!body.ok) return body.response;
-	const parsed = parsePhasing(body.data.params);
-	if (!parsed.ok) return refuse(parsed.errors);
+	const parsed = checkPhasing(body.data.params);
+	if (!parsed.ok) return refuse(parsed.refusals);
 	const params = Object.fromEntries(Object.entries(body.data.params).filter(([, v]) => v.trim() !== ''));
 	const result = phasing(parsed.value.input);
 	await updateBuild(db(), access.workshop.id, access.buildId, { engineProfile: params }, {
