@@ -13,11 +13,11 @@ export interface Refusal {
 
 export type Checked<T> = { ok: true; value: T } | { ok: false; refusals: Refusal[] };
 
-/** A refusal, with a leading `field: ` taken off a message written the older way. */
-export const refusal = (field: string, message: string): Refusal => ({
-	field,
-	message: message.startsWith(`${field}: `) ? message.slice(field.length + 2) : message
-});
+/** A refusal, with a leading `field: ` taken off a message written the older way (`teeth: ` for `params.teeth` too). */
+export const refusal = (field: string, message: string): Refusal => {
+	const name = [field, field.slice(field.lastIndexOf('.') + 1)].find((n) => message.startsWith(`${n}: `));
+	return { field, message: name ? message.slice(name.length + 2) : message };
+};
 
 /** The first refusal for each field, in the order found. */
 export function firstPerField(refusals: readonly Refusal[]): Refusal[] {
@@ -37,10 +37,15 @@ export function byField(refusals: readonly Refusal[]): Record<string, string> {
 
 /**
  * The map the API has always answered under `errors`: each message starting with its field's name,
- * so a refusal read on its own still says what it is about.
+ * so a refusal read on its own still says what it is about. A tool parameter inside a body keeps
+ * its key `params.teeth` and its message the tool's own `teeth: …`, as it always has.
  */
 export const namedErrors = (refusals: readonly Refusal[]): Record<string, string> =>
-	Object.fromEntries(firstPerField(refusals).map((r) => [r.field, `${r.field}: ${r.message}`]));
+	Object.fromEntries(firstPerField(refusals).map((r) => [r.field, `${r.field.replace(/^params\./, '')}: ${r.message}`]));
 
 /** A field → message map (messages may start with their field's name) as refusals. */
 export const refusalsFromMap = (errors: Record<string, string>): Refusal[] => Object.entries(errors).map(([field, message]) => refusal(field, message));
+
+/** A tool's field → message map as refusals of a body's nested object (`params.teeth`), messages without the field's name. */
+export const refusalsUnder = (prefix: string, errors: Record<string, string>): Refusal[] =>
+	Object.entries(errors).map(([field, message]) => ({ field: `${prefix}.${field}`, message: refusal(field, message).message }));

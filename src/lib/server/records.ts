@@ -1,7 +1,7 @@
 import { and, desc, eq } from 'drizzle-orm';
 import { parseTape } from '$lib/schemas/tape';
 import { findTdc, tdcRecordParams } from '$lib/schemas/tdc';
-import type { FieldErrors } from '$lib/schemas/form';
+import { refusalsUnder, type Refusal } from '$lib/schemas/refusal';
 import { sideText, spreadFromRim } from '$lib/trade/tdc';
 import type { Database, Queryable } from './db';
 import { degreeTape, tdcRecord, user, type FlatParams } from './db/schema';
@@ -9,18 +9,19 @@ import { logActivity } from './activity';
 import { touchBuild } from './builds';
 
 // A build's TDC records and degree tapes: the parameters as the tools take them, checked by the
-// tools' own schemas, so a saved record always opens again in its tool.
+// tools' own schemas, so a saved record always opens again in its tool. Refusals name the body's
+// `params.<field>`, as the API answers them.
 
 const keep = (params: FlatParams) => Object.fromEntries(Object.entries(params).filter(([, v]) => v.trim() !== ''));
 
-export type RecordWrite = { ok: true; id: string } | { ok: false; errors: FieldErrors };
+export type RecordWrite = { ok: true; id: string } | { ok: false; refusals: Refusal[] };
 
 export async function saveTdcRecord(database: Database, buildId: string, input: { label: string; params: FlatParams }, authorId: string): Promise<RecordWrite> {
 	const found = findTdc(input.params);
-	if (found.ok === false) return { ok: false, errors: found.errors };
+	if (found.ok === false) return { ok: false, refusals: refusalsUnder('params', found.errors) };
 	if (found.ok === 'rim') {
 		const spread = spreadFromRim(found.value.distanceMm, found.value.diameterMm);
-		return { ok: false, errors: { a: `a: a TDC record needs the two piston-stop readings in degrees (the rim distance gives a spread of ${spread.spreadDeg.toFixed(2)}°)` } };
+		return { ok: false, refusals: refusalsUnder('params', { a: `a TDC record needs the two piston-stop readings in degrees (the rim distance gives a spread of ${spread.spreadDeg.toFixed(2)}°)` }) };
 	}
 	const { marks, result } = found.value;
 	// Kept with their sides and scale, so the record never depends on how the readings were typed.
@@ -37,7 +38,7 @@ export async function saveTdcRecord(database: Database, buildId: string, input: 
 
 export async function saveTape(database: Database, buildId: string, input: { label: string; params: FlatParams }, authorId: string): Promise<RecordWrite> {
 	const parsed = parseTape(input.params);
-	if (!parsed.ok) return { ok: false, errors: parsed.errors };
+	if (!parsed.ok) return { ok: false, refusals: refusalsUnder('params', parsed.errors) };
 	const hub = parsed.value.spec.hubDiameterMm;
 	return database.transaction(async (tx) => {
 		const [row] = await tx.insert(degreeTape).values({ buildId, label: input.label, params: keep(input.params), authorId }).returning({ id: degreeTape.id });

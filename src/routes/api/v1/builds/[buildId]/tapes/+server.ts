@@ -11,6 +11,6 @@ export async function POST(event) {
 	const body = await jsonBody(event.request, saveRecord);
 	if (!body.ok) return body.response;
 	const result = await saveTape(db(), access.buildId, body.data, access.user.id);
-	if (!result.ok) return refuse(Object.fromEntries(Object.entries(result.errors).map(([k, v]) => [`params.${k}`, v])));
+	if (!result.ok) return refuse(result.refusals);
 	return json({ id: result.id }, { status: 201 });
 }
