@@ -299,9 +299,6 @@ export function checkPhasing(params: Partial<Record<string, string>>): Checked<P
 	};
 }
 
-/** The earlier name of checkPhasing, for callers not moved yet. */
-export const parsePhasing = checkPhasing;
-
 // ---- Build sheet ----
 // The sheet's parameters are the wheel's (src/lib/schemas/wheel.ts) and the phasing check's, which
 // share `teeth`, `missing`, `duty`, `rpm` and `keywayAngle` with one meaning, plus its own.

@@ -50,3 +50,7 @@ export const namedErrors = (refusals: readonly Refusal[]): Record<string, string
 
 /** A field → message map (messages may start with their field's name) as refusals. */
 export const refusalsFromMap = (errors: Record<string, string>): Refusal[] => Object.entries(errors).map(([field, message]) => refusal(field, message));
+
+/** A tool's field → message map as refusals of a body's nested object (`params.teeth`), messages without the field's name. */
+export const refusalsUnder = (prefix: string, errors: Record<string, string>): Refusal[] =>
+	Object.entries(errors).map(([field, message]) => ({ field: `${prefix}.${field}`, message: refusal(field, message).message }));

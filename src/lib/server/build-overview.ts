@@ -1,5 +1,5 @@
 import { and, desc, eq } from 'drizzle-orm';
-import type { Queryable } from './db';
+import type { Database, Queryable } from './db';
 import { build as buildTable, cuttingPackage, user } from './db/schema';
 import { listActivity } from './activity';
 import { getBuild, type BuildWrite } from './builds';
@@ -35,17 +35,20 @@ export type BuildOverview = NonNullable<Awaited<ReturnType<typeof buildOverview>
 
 /**
  * Removes the build with everything in it, its photos' files in the object store too: the one way
- * a build is deleted, from the Builds page and from `DELETE /api/v1/builds/:id` alike (the page
- * once deleted the row alone and left the photos' files in the bucket). The rows go first, in
- * cascade; a file that then fails to go is an orphan in the bucket, never a row without its file.
+ * a build is deleted, from the Builds page and from `DELETE /api/v1/builds/:id` alike. The rows go
+ * first, in one transaction (the cascade takes the activity log with them, so there is no entry to
+ * write); a file that then fails to go is an orphan in the bucket, never a row without its file.
  */
-export async function removeBuild(database: Queryable, workshopId: string, buildId: string): Promise<BuildWrite> {
-	const keys = await photoKeysOf(database, buildId);
-	const rows = await database
-		.delete(buildTable)
-		.where(and(eq(buildTable.id, buildId), eq(buildTable.workshopId, workshopId)))
-		.returning({ id: buildTable.id });
-	if (!rows[0]) return { ok: false, reason: 'not-found' };
-	await Promise.allSettled(keys.map((key) => deleteObject(key)));
-	return { ok: true, id: rows[0].id };
+export async function deleteBuild(database: Database, workshopId: string, buildId: string): Promise<BuildWrite> {
+	const removed = await database.transaction(async (tx) => {
+		const keys = await photoKeysOf(tx, buildId);
+		const rows = await tx
+			.delete(buildTable)
+			.where(and(eq(buildTable.id, buildId), eq(buildTable.workshopId, workshopId)))
+			.returning({ id: buildTable.id });
+		return rows[0] && { id: rows[0].id, keys };
+	});
+	if (!removed) return { ok: false, reason: 'not-found' };
+	await Promise.allSettled(removed.keys.map((key) => deleteObject(key)));
+	return { ok: true, id: removed.id };
 }

@@ -1,5 +1,8 @@
 import { and, asc, count, desc, eq, ilike, or, sql } from 'drizzle-orm';
 import type { BuildQuery } from '$lib/schemas/build';
+import { checkPhasing } from '$lib/schemas/phasing';
+import type { Refusal } from '$lib/schemas/refusal';
+import { phasing, type PhasingResult } from '$lib/trade/phasing';
 import type { Database, Queryable } from './db';
 import { logActivity, type ActivityKind } from './activity';
 import { build, wheelDesign, type FlatParams } from './db/schema';
@@ -57,13 +60,45 @@ export async function createBuild(database: Database, workshopId: string, input:
 	}
 }
 
-/** Changes a build's own fields, with an entry in its activity log when `actorId` is given. */
-export async function updateBuild(
+export type BuildChange = { name?: string; engine?: string; notes?: string };
+
+/**
+ * Changes a build's name, engine or notes, with its activity entry in the same transaction: the
+ * one path for the Builds page's rename and `PATCH /api/v1/builds/:id` alike.
+ */
+export function changeBuild(database: Database, workshopId: string, buildId: string, change: BuildChange, actorId: string): Promise<BuildWrite> {
+	const fields = Object.keys(change);
+	const summary = fields.length === 1 && change.name !== undefined ? `Build renamed to “${change.name}”` : `Build details changed (${fields.join(', ')})`;
+	return writeBuild(database, workshopId, buildId, change, { actorId, kind: 'build', summary });
+}
+
+export type EngineProfileWrite =
+	| { ok: true; params: FlatParams; layout: string; phasing: PhasingResult }
+	| { ok: false; reason: 'invalid'; refusals: Refusal[] }
+	| { ok: false; reason: 'not-found' };
+
+/**
+ * Stores the build's engine profile and sensor set-up: the phasing check's parameters (the same
+ * names as `GET /api/v1/phasing`), checked the same way, blank ones left out.
+ */
+export async function saveEngineProfile(database: Database, workshopId: string, buildId: string, given: FlatParams, actorId: string): Promise<EngineProfileWrite> {
+	const parsed = checkPhasing(given);
+	if (!parsed.ok) return { ok: false, reason: 'invalid', refusals: parsed.refusals };
+	const params = Object.fromEntries(Object.entries(given).filter(([, v]) => v.trim() !== ''));
+	const result = phasing(parsed.value.input);
+	const summary = `Engine profile: ${parsed.value.layoutLabel}; first-tooth offset ${result.firstToothOffsetDeg}° BTDC`;
+	const written = await writeBuild(database, workshopId, buildId, { engineProfile: params }, { actorId, kind: 'engine', summary });
+	if (!written.ok) return { ok: false, reason: 'not-found' };
+	return { ok: true, params, layout: parsed.value.layoutLabel, phasing: result };
+}
+
+/** The one update of a build's row, with its activity entry, in one transaction. */
+async function writeBuild(
 	database: Database,
 	workshopId: string,
 	buildId: string,
-	change: { name?: string; engine?: string; notes?: string; engineProfile?: FlatParams },
-	log?: { actorId: string; kind?: ActivityKind; summary: string }
+	change: BuildChange & { engineProfile?: FlatParams },
+	log: { actorId: string; kind: ActivityKind; summary: string }
 ): Promise<BuildWrite> {
 	try {
 		return await database.transaction(async (tx) => {
@@ -73,7 +108,7 @@ export async function updateBuild(
 				.where(and(eq(build.id, buildId), eq(build.workshopId, workshopId)))
 				.returning({ id: build.id });
 			if (!rows[0]) return { ok: false as const, reason: 'not-found' as const };
-			if (log) await logActivity(tx, { buildId, actorId: log.actorId, kind: log.kind ?? 'build', summary: log.summary });
+			await logActivity(tx, { buildId, actorId: log.actorId, kind: log.kind, summary: log.summary });
 			return { ok: true as const, id: rows[0].id };
 		});
 	} catch (err) {
@@ -82,11 +117,9 @@ export async function updateBuild(
 	}
 }
 
-export const renameBuild = (database: Database, workshopId: string, buildId: string, name: string) => updateBuild(database, workshopId, buildId, { name });
-
 /** Marks a build as changed (a new revision, record or photo), for the list's "updated" order. */
 export async function touchBuild(database: Queryable, buildId: string) {
 	await database.update(build).set({ updatedAt: sql`now()` }).where(eq(build.id, buildId));
 }
 
-// Deleting a build is removeBuild() in build-overview.ts: the one path that also removes its photos' files.
+// Deleting a build is deleteBuild() in build-overview.ts, beside the photos it removes with it.

@@ -1,8 +1,10 @@
 import { and, desc, eq, max } from 'drizzle-orm';
 import type { Database, Queryable } from './db';
 import { user, wheelDesign, wheelRevision, type FlatParams } from './db/schema';
+import { refusalsUnder, type Refusal } from '$lib/schemas/refusal';
 import { logActivity } from './activity';
 import { isUniqueViolation, touchBuild } from './builds';
+import { checkWheel } from './wheel-request';
 
 // Wheel designs and their revisions. A revision is written once and never changed (a database
 // trigger refuses updates); a save names the revision it started from, and the unique
@@ -47,13 +49,28 @@ export async function revisionOf(database: Queryable, designId: string, number?:
 	return row;
 }
 
-export type CreateDesign = { ok: true; designId: string } | { ok: false; reason: 'name-taken' };
+type Invalid = { ok: false; reason: 'invalid'; refusals: Refusal[] };
 
+/**
+ * The wheel check every revision passes before it is written, whether created, saved or restored:
+ * the designer's own (parseWheel, then the summary's geometry checks), so a saved revision always
+ * opens and exports again. The one place it is called for designs: switch it here.
+ */
+export function checkDesignParams(params: FlatParams): { ok: true; params: FlatParams } | Invalid {
+	const wheel = checkWheel(params);
+	return wheel.ok ? { ok: true, params: wheel.params } : { ok: false, reason: 'invalid', refusals: refusalsUnder('params', wheel.errors) };
+}
+
+export type CreateDesign = { ok: true; designId: string } | { ok: false; reason: 'name-taken' } | Invalid;
+
+/** A new design with its revision 1, checked as every revision is. */
 export async function createDesign(database: Database, buildId: string, input: { name: string; params: FlatParams; message: string }, authorId: string): Promise<CreateDesign> {
+	const checked = checkDesignParams(input.params);
+	if (!checked.ok) return checked;
 	try {
 		return await database.transaction(async (tx) => {
 			const [design] = await tx.insert(wheelDesign).values({ buildId, name: input.name }).returning({ id: wheelDesign.id });
-			await tx.insert(wheelRevision).values({ designId: design!.id, number: 1, params: input.params, message: input.message || 'First revision', authorId });
+			await tx.insert(wheelRevision).values({ designId: design!.id, number: 1, params: checked.params, message: input.message || 'First revision', authorId });
 			await logActivity(tx, { buildId, actorId: authorId, kind: 'design', summary: `New wheel design “${input.name}”, revision 1` });
 			await touchBuild(tx, buildId);
 			return { ok: true as const, designId: design!.id };
@@ -64,15 +81,42 @@ export async function createDesign(database: Database, buildId: string, input: {
 	}
 }
 
-export type SaveResult = { ok: true; revision: Revision } | { ok: false; reason: 'stale'; head: Revision };
+type DesignRef = { id: string; name: string; buildId: string };
+
+/** `params` are the parameters as checked (the wheel's own names only): what a stale save would have written. */
+export type SaveResult = { ok: true; revision: Revision } | { ok: false; reason: 'stale'; head: Revision; params: FlatParams } | Invalid;
 
 /**
- * Saves `params` as the revision after `baseRevision`. Refused as stale when the design has moved
- * on since that base; the answer then carries the newest revision so the caller can choose.
+ * Saves `params` as the revision after `baseRevision`, once they pass the wheel check. Refused as
+ * stale when the design has moved on since that base; the answer then carries the newest revision
+ * so the caller can choose.
  */
-export async function saveRevision(
+export async function saveRevision(database: Database, design: DesignRef, input: { baseRevision: number; params: FlatParams; message: string }, authorId: string): Promise<SaveResult> {
+	const checked = checkDesignParams(input.params);
+	if (!checked.ok) return checked;
+	return writeRevision(database, design, { ...input, params: checked.params }, authorId);
+}
+
+export type RestoreResult = SaveResult | { ok: false; reason: 'not-found' };
+
+/**
+ * Restoring never rewrites history: the old revision's parameters become a new revision on top of
+ * `baseRevision`. They pass today's wheel check first, as any save does; a revision saved under
+ * looser rules is refused by field rather than written again.
+ */
+export async function restoreRevision(database: Database, design: DesignRef, input: { revision: number; baseRevision: number; message?: string }, authorId: string): Promise<RestoreResult> {
+	const old = await revisionOf(database, design.id, input.revision);
+	if (!old) return { ok: false, reason: 'not-found' };
+	const checked = checkDesignParams(old.params);
+	if (!checked.ok) return checked;
+	const message = input.message ?? `Restores revision ${old.number}`;
+	return writeRevision(database, design, { baseRevision: input.baseRevision, params: checked.params, message, restoredFrom: old.number }, authorId);
+}
+
+/** The one insert of a revision, with its activity entry, in one transaction; `params` already checked. */
+async function writeRevision(
 	database: Database,
-	design: { id: string; name: string; buildId: string },
+	design: DesignRef,
 	input: { baseRevision: number; params: FlatParams; message: string; restoredFrom?: number },
 	authorId: string
 ): Promise<SaveResult> {
@@ -90,7 +134,7 @@ export async function saveRevision(
 	} catch (err) {
 		// Another save from the same base got there first: its insert holds the number.
 		if (!(err instanceof Stale) && !isUniqueViolation(err, 'wheel_revision_design_number')) throw err;
-		return { ok: false, reason: 'stale', head: (await revisionOf(database, design.id))! };
+		return { ok: false, reason: 'stale', head: (await revisionOf(database, design.id))!, params: input.params };
 	}
 	return { ok: true, revision: (await revisionOf(database, design.id, number))! };
 }

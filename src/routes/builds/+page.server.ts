@@ -2,8 +2,8 @@ import { fail } from '@sveltejs/kit';
 import { buildId, buildQuery, createBuild as createSchema, renameBuild as renameSchema } from '$lib/schemas/build';
 import { parseForm } from '$lib/schemas/form';
 import { workshopAccess } from '$lib/server/access';
-import { removeBuild } from '$lib/server/build-overview';
-import { createBuild, listBuilds, renameBuild } from '$lib/server/builds';
+import { deleteBuild } from '$lib/server/build-overview';
+import { changeBuild, createBuild, listBuilds } from '$lib/server/builds';
 import { db } from '$lib/server/db';
 import type { Actions, PageServerLoad } from './$types';
 
@@ -13,18 +13,22 @@ const refusals = {
 } as const;
 
 /**
- * The first page of the list, for the view the address names (the same query as
- * `GET /api/v1/builds`); from there the page fetches the API itself. An address the schema refuses
- * (a hand-edited page=0) shows the default view rather than an error.
+ * The page of the list the address names (the same query as `GET /api/v1/builds`). The page moves
+ * between views with `goto`, so this load runs again for each search, sort and page, and after each
+ * action. An address the schema refuses (a hand-edited page=0) shows the default view rather than
+ * an error; a page past the end (its last build just deleted) shows the last page there is.
  */
 export const load: PageServerLoad = async (event) => {
 	const access = await workshopAccess(event, 'read');
 	const query = buildQuery.safeParse(Object.fromEntries(event.url.searchParams));
 	const view = query.success ? query.data : buildQuery.parse({});
-	const list = await listBuilds(db(), access.workshop.id, view);
+	let list = await listBuilds(db(), access.workshop.id, view);
+	const last = Math.max(1, Math.ceil(list.total / list.size));
+	if (list.builds.length === 0 && view.page > last) list = await listBuilds(db(), access.workshop.id, { ...view, page: last });
 	return { workshop: access.workshop, can: access.can, q: view.q, list };
 };
 
+// Each action calls the same service as the API route for the same change (builds.ts, build-overview.ts).
 export const actions: Actions = {
 	create: async (event) => {
 		const access = await workshopAccess(event, 'edit');
@@ -42,7 +46,7 @@ export const actions: Actions = {
 		const form = await event.request.formData();
 		const parsed = parseForm(renameSchema, form);
 		if (!parsed.ok) return fail(400, { action: 'rename', buildId: String(form.get('buildId') ?? ''), errors: parsed.errors });
-		const result = await renameBuild(db(), access.workshop.id, parsed.data.buildId, parsed.data.name);
+		const result = await changeBuild(db(), access.workshop.id, parsed.data.buildId, { name: parsed.data.name }, access.user.id);
 		if (!result.ok) return fail(result.reason === 'not-found' ? 404 : 409, { action: 'rename', buildId: parsed.data.buildId, errors: { name: refusals[result.reason] } });
 		return { action: 'rename' };
 	},
@@ -51,7 +55,7 @@ export const actions: Actions = {
 		const access = await workshopAccess(event, 'edit');
 		const parsed = parseForm(buildId, await event.request.formData());
 		if (!parsed.ok) return fail(400, { action: 'delete', errors: parsed.errors });
-		const result = await removeBuild(db(), access.workshop.id, parsed.data.buildId);
+		const result = await deleteBuild(db(), access.workshop.id, parsed.data.buildId);
 		if (!result.ok) return fail(404, { action: 'delete', message: refusals['not-found'] });
 		return { action: 'delete' };
 	}

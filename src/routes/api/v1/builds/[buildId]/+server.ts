@@ -2,8 +2,8 @@ import { error, json } from '@sveltejs/kit';
 import { updateBuild as updateSchema } from '$lib/schemas/build';
 import { objectAccess } from '$lib/server/access';
 import { jsonBody } from '$lib/server/api';
-import { buildOverview, removeBuild } from '$lib/server/build-overview';
-import { updateBuild } from '$lib/server/builds';
+import { buildOverview, deleteBuild } from '$lib/server/build-overview';
+import { changeBuild } from '$lib/server/builds';
 import { db } from '$lib/server/db';
 
 /** The build with everything it holds: engine profile, wheel designs, records, photos, cutting packages, activity. */
@@ -18,7 +18,7 @@ export async function PATCH(event) {
 	const access = await objectAccess(event, 'edit', 'build', event.params.buildId);
 	const body = await jsonBody(event.request, updateSchema);
 	if (!body.ok) return body.response;
-	const result = await updateBuild(db(), access.workshop.id, access.buildId, body.data, { actorId: access.user.id, summary: `Build details changed (${Object.keys(body.data).join(', ')})` });
+	const result = await changeBuild(db(), access.workshop.id, access.buildId, body.data, access.user.id);
 	if (!result.ok) return json({ message: 'name: another build in this workshop has that name', code: 'conflict', errors: { name: 'name: another build in this workshop has that name' } }, { status: 409 });
 	return json({ id: result.id });
 }
@@ -26,6 +26,6 @@ export async function PATCH(event) {
 /** Removes the build and everything in it, its photos' files included. */
 export async function DELETE(event) {
 	const access = await objectAccess(event, 'edit', 'build', event.params.buildId);
-	await removeBuild(db(), access.workshop.id, access.buildId);
+	await deleteBuild(db(), access.workshop.id, access.buildId);
 	return new Response(null, { status: 204 });
 }

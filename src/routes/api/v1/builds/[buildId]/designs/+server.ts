@@ -4,7 +4,6 @@ import { objectAccess } from '$lib/server/access';
 import { jsonBody, refuse } from '$lib/server/api';
 import { db } from '$lib/server/db';
 import { createDesign, designsOf } from '$lib/server/designs';
-import { checkWheel } from '$lib/server/wheel-request';
 
 export async function GET(event) {
 	const access = await objectAccess(event, 'read', 'build', event.params.buildId);
@@ -16,9 +15,8 @@ export async function POST(event) {
 	const access = await objectAccess(event, 'edit', 'build', event.params.buildId);
 	const body = await jsonBody(event.request, createSchema);
 	if (!body.ok) return body.response;
-	const wheel = checkWheel(body.data.params);
-	if (!wheel.ok) return refuse(Object.fromEntries(Object.entries(wheel.errors).map(([k, v]) => [`params.${k}`, v])));
-	const result = await createDesign(db(), access.buildId, { ...body.data, params: wheel.params }, access.user.id);
+	const result = await createDesign(db(), access.buildId, body.data, access.user.id);
+	if (!result.ok && result.reason === 'invalid') return refuse(result.refusals);
 	if (!result.ok) return json({ message: 'name: this build has a wheel design of that name', code: 'conflict', errors: { name: 'name: this build has a wheel design of that name' } }, { status: 409 });
 	return json({ id: result.designId, revision: 1 }, { status: 201, headers: { location: `/api/v1/designs/${result.designId}` } });
 }

@@ -4,7 +4,6 @@ import { objectAccess } from '$lib/server/access';
 import { conflict, jsonBody, refuse } from '$lib/server/api';
 import { db } from '$lib/server/db';
 import { getDesign, revisionsOf, saveRevision } from '$lib/server/designs';
-import { checkWheel } from '$lib/server/wheel-request';
 
 export async function GET(event) {
 	await objectAccess(event, 'read', 'design', event.params.designId);
@@ -19,16 +18,13 @@ export async function POST(event) {
 	const access = await objectAccess(event, 'edit', 'design', event.params.designId);
 	const body = await jsonBody(event.request, saveSchema);
 	if (!body.ok) return body.response;
-	const wheel = checkWheel(body.data.params);
-	if (!wheel.ok) return refuse(Object.fromEntries(Object.entries(wheel.errors).map(([k, v]) => [`params.${k}`, v])));
 	const design = (await getDesign(db(), event.params.designId))!;
-	const result = await saveRevision(db(), design, { ...body.data, params: wheel.params }, access.user.id);
-	if (!result.ok) {
-		return conflict(`Revision ${result.head.number} was saved by ${result.head.author ?? 'someone'} after revision ${body.data.baseRevision}, which this edit started from.`, {
-			baseRevision: body.data.baseRevision,
-			head: result.head,
-			yours: { params: wheel.params, message: body.data.message }
-		});
-	}
-	return json({ revision: result.revision }, { status: 201 });
+	const result = await saveRevision(db(), design, body.data, access.user.id);
+	if (result.ok) return json({ revision: result.revision }, { status: 201 });
+	if (result.reason === 'invalid') return refuse(result.refusals);
+	return conflict(`Revision ${result.head.number} was saved by ${result.head.author ?? 'someone'} after revision ${body.data.baseRevision}, which this edit started from.`, {
+		baseRevision: body.data.baseRevision,
+		head: result.head,
+		yours: { params: result.params, message: body.data.message }
+	});
 }
