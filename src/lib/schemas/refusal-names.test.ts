@@ -13,5 +13,7 @@ describe('refusals of a field inside an object', () => {
 		expect(refusal('params.teeth', 'teeth: a whole number').message).toBe('a whole number');
 		expect(refusal('params.teeth', 'params.teeth: a whole number').message).toBe('a whole number');
 		expect(refusal('params.teeth', 'params: an object').message).toBe('params: an object');
+		// A name the tool does not take is refused as the object's own fault, named by the object.
+		expect(namedErrors([refusal('params.foo', 'params: each value text')])).toEqual({ 'params.foo': 'params: each value text' });
 	});
 });

@@ -46,7 +46,10 @@ export function byField(refusals: readonly Refusal[]): Record<string, string> {
  * so a refusal read on its own still says what it is about (`params.b` → `b: …`, as the tool says it).
  */
 export const namedErrors = (refusals: readonly Refusal[]): Record<string, string> =>
-	Object.fromEntries(firstPerField(refusals).map((r) => [r.field, `${shownName(r.field)}: ${r.message}`]));
+	Object.fromEntries(firstPerField(refusals).map((r) => [r.field, namedMessage(r)]));
+
+/** A refusal about the object itself (`params.foo` refused as `params: …`) already says what it is about. */
+const namedMessage = (r: Refusal) => (r.field.includes('.') && r.message.startsWith(`${r.field.split('.')[0]}: `) ? r.message : `${shownName(r.field)}: ${r.message}`);
 
 /** A field → message map (messages may start with their field's name) as refusals. */
 export const refusalsFromMap = (errors: Record<string, string>): Refusal[] => Object.entries(errors).map(([field, message]) => refusal(field, message));
