@@ -142,8 +142,10 @@ interface SignedInLoad {
 	all: { responses: number; rps: number; p50: number; p95: number; p99: number; errors: number };
 }
 
-async function signedInLoad(url: string): Promise<SignedInLoad> {
-	process.env.APP_URL = url;
+async function signedInLoad(url: string, env: Record<string, string>): Promise<SignedInLoad> {
+	// The test client reads the app's address and the fake mailbox's (signing up confirms the
+	// address by mail) from the environment, as it does under npm test.
+	Object.assign(process.env, env, { APP_URL: url });
 	const { signUp, freshEmail } = await import('../tests/support/client');
 	const client = await signUp('Bench Runner', freshEmail('bench'));
 	let buildId = '';
@@ -285,7 +287,7 @@ try {
 		exports.push(await step(`${e.name}: static floor, same params, new params`, () => endpointFigures(url, e), (f) => `${f.cached.rps.toFixed(0)} / ${f.uncached.rps.toFixed(0)} req/s against ${f.floor.rps.toFixed(0)}`));
 		await drain(url);
 	}
-	const signedIn = runs('load') ? await step(`Signed-in load, 50 connections, ${loadSeconds} s`, () => signedInLoad(url), (s) => `${s.all.responses} answers, ${s.all.errors} errors`) : undefined;
+	const signedIn = runs('load') ? await step(`Signed-in load, 50 connections, ${loadSeconds} s`, () => signedInLoad(url, stack!.env), (s) => `${s.all.responses} answers, ${s.all.errors} errors`) : undefined;
 	// autocannon stops sending at its deadline; let the server finish what it had already taken.
 	await drain(url);
 
