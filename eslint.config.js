@@ -10,7 +10,16 @@ import ts from 'typescript-eslint';
 import svelteConfig from './svelte.config.js';
 
 export default defineConfig(
-	globalIgnores(['build/', 'build-bench/', '.svelte-kit/', 'test-results/', '.data/', 'static/', 'drizzle/', 'src/lib/trade/label-font.ts']),
+	globalIgnores([
+		'build/',
+		'build-bench/',
+		'.svelte-kit/',
+		'test-results/',
+		'.data/',
+		'static/',
+		'drizzle/',
+		'src/lib/trade/label-font.ts'
+	]),
 	js.configs.recommended,
 	ts.configs.recommended,
 	svelte.configs.recommended,
