@@ -5,7 +5,9 @@ import { vitePreprocess } from '@sveltejs/vite-plugin-svelte';
 export default {
 	preprocess: vitePreprocess(),
 	kit: {
-		adapter: adapter({ out: 'build' }),
+		// PW_BUILD_DIR: `npm run bench` builds its own server (with the bench's floor) beside build/
+		// rather than over it; see scripts/app.ts.
+		adapter: adapter({ out: process.env.PW_BUILD_DIR || 'build' }),
 		// Test fixtures (example specs, synthetic photos, the makerjs model the DXF is checked
 		// against) live outside src, so no production import can reach them.
 		alias: { $support: 'tests/support' },

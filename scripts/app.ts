@@ -1,4 +1,5 @@
-// Building and serving the SvelteKit app (adapter-node output in build/).
+// Building and serving the SvelteKit app (adapter-node output in build/, or build-bench/ for the
+// bench's own build).
 import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
 import { existsSync, readdirSync, statSync } from 'node:fs';
 import { join } from 'node:path';
@@ -6,7 +7,6 @@ import { root } from './profile';
 import { sleep, StepError } from './steps';
 
 const bin = (name: string) => join(root, 'node_modules', '.bin', name);
-const builtServer = join(root, 'build', 'index.js');
 const sources = ['src', 'static', 'drizzle', 'svelte.config.js', 'vite.config.ts', 'tailwind.config.ts', 'package-lock.json'];
 
 function newestChange(path: string): number {
@@ -15,20 +15,35 @@ function newestChange(path: string): number {
 	return Math.max(stat.mtimeMs, ...readdirSync(path).map((f) => newestChange(join(path, f))));
 }
 
-/** True when build/ is older than any source file. */
-export function buildIsStale(): boolean {
-	if (!existsSync(builtServer)) return true;
-	const built = statSync(builtServer).mtimeMs;
+/** A server build: where adapter-node writes it, and what the build reads from the environment. */
+export interface AppBuild {
+	dir: string;
+	env: Record<string, string>;
+}
+/** What npm start and npm test serve. */
+export const productBuild: AppBuild = { dir: 'build', env: {} };
+/** npm run bench's: the product plus the bench's floor endpoint (src/lib/server/bench-floor.ts). */
+export const benchBuild: AppBuild = { dir: 'build-bench', env: { VITE_PW_BENCH: '1' } };
+
+export const builtServer = (build: AppBuild = productBuild) => join(root, build.dir, 'index.js');
+
+/** True when the build is older than any source file. */
+export function buildIsStale(build: AppBuild = productBuild): boolean {
+	const server = builtServer(build);
+	if (!existsSync(server)) return true;
+	const built = statSync(server).mtimeMs;
 	return sources.some((s) => existsSync(join(root, s)) && newestChange(join(root, s)) > built);
 }
 
-export function buildApp() {
-	const res = spawnSync(bin('vite'), ['build', '--logLevel', 'warn'], { cwd: root, stdio: 'inherit' });
+export function buildApp(build: AppBuild = productBuild) {
+	// VITE_PW_BENCH is set for every build, so one left in the shell cannot put the floor in build/.
+	const env = { ...process.env, VITE_PW_BENCH: '', ...build.env, PW_BUILD_DIR: build.dir };
+	const res = spawnSync(bin('vite'), ['build', '--logLevel', 'warn'], { cwd: root, stdio: 'inherit', env });
 	if (res.status !== 0) throw new StepError('vite build failed (errors above).', 'Fix the reported error, then run this again.');
 }
 
-export function serveApp(env: Record<string, string>): ChildProcess {
-	return spawn(process.execPath, [builtServer], {
+export function serveApp(env: Record<string, string>, build: AppBuild = productBuild): ChildProcess {
+	return spawn(process.execPath, [builtServer(build)], {
 		cwd: root,
 		env: { ...process.env, NODE_ENV: 'production', ...env },
 		stdio: ['ignore', 'inherit', 'inherit']

@@ -14,7 +14,7 @@ import { once } from 'node:events';
 import { existsSync, mkdirSync, readFileSync, rmSync } from 'node:fs';
 import { cpus, loadavg, totalmem } from 'node:os';
 import { join } from 'node:path';
-import { buildApp, buildIsStale, serveApp, waitForApp } from './app';
+import { benchBuild, buildApp, buildIsStale, builtServer, serveApp, waitForApp } from './app';
 import { pageScripts, type PageScripts } from './bench/bundle';
 import { load, loadTogether, percentile, type LoadResult, type LoadRun } from './bench/load';
 import { profile, root } from './profile';
@@ -142,8 +142,10 @@ interface SignedInLoad {
 	all: { responses: number; rps: number; p50: number; p95: number; p99: number; errors: number };
 }
 
-async function signedInLoad(url: string): Promise<SignedInLoad> {
-	process.env.APP_URL = url;
+async function signedInLoad(url: string, env: Record<string, string>): Promise<SignedInLoad> {
+	// The test client reads the app's address and the fake mailbox's (signing up confirms the
+	// address by mail) from the environment, as it does under npm test.
+	Object.assign(process.env, env, { APP_URL: url });
 	const { signUp, freshEmail } = await import('../tests/support/client');
 	const client = await signUp('Bench Runner', freshEmail('bench'));
 	let buildId = '';
@@ -248,7 +250,8 @@ let exitCode = 1;
 try {
 	const loadBefore = loadavg();
 	stack = await bringUp(p, { freshDatabase: true });
-	await step('Build', () => (buildIsStale() ? (buildApp(), 'built into build/') : 'up to date'), (r) => r);
+	// Its own build, with the floor endpoint (bench-floor.ts) that the product's build leaves out.
+	await step('Build (with the bench floor)', () => (buildIsStale(benchBuild) ? (buildApp(benchBuild), `built into ${benchBuild.dir}/`) : 'up to date'), (r) => r);
 
 	let vitestReport: VitestReport | undefined;
 	if (runs('vitest')) {
@@ -263,24 +266,28 @@ try {
 	}
 
 	const profileDir = process.env.PW_BENCH_CPU_PROF;
-	const serverEnv = { ...stack.env, PW_BENCH: '1' };
+	const serverEnv = stack.env;
 	// As serveApp does, with node's profiler flags (which NODE_OPTIONS does not take).
 	const server = profileDir
-		? spawn(process.execPath, ['--cpu-prof', `--cpu-prof-dir=${profileDir}`, join(root, 'build', 'index.js')], { cwd: root, env: { ...process.env, NODE_ENV: 'production', ...serverEnv }, stdio: ['ignore', 'inherit', 'inherit'] })
-		: serveApp(serverEnv);
+		? spawn(process.execPath, ['--cpu-prof', `--cpu-prof-dir=${profileDir}`, builtServer(benchBuild)], {
+				cwd: root,
+				env: { ...process.env, NODE_ENV: 'production', ...serverEnv },
+				stdio: ['ignore', 'inherit', 'inherit']
+			})
+		: serveApp(serverEnv, benchBuild);
 	app = server;
 	stack.track(server);
 	const url = stack.env.APP_URL!;
-	await step(`Bench server on ${url} (PW_BENCH=1)`, () => waitForApp(url, server), (s) => `health check answered ${s}`);
+	await step(`Bench server on ${url} (${benchBuild.dir}/)`, () => waitForApp(url, server), (s) => `health check answered ${s}`);
 
-	const scripts = runs('size') ? await step('Designer page JavaScript (from the build)', () => pageScripts('/wheel'), (s) => `${s.files.length} files`) : undefined;
+	const scripts = runs('size') ? await step('Designer page JavaScript (from the build)', () => pageScripts('/wheel', benchBuild.dir), (s) => `${s.files.length} files`) : undefined;
 
 	const exports: EndpointFigures[] = [];
 	for (const e of runs('endpoints') ? endpoints() : []) {
 		exports.push(await step(`${e.name}: static floor, same params, new params`, () => endpointFigures(url, e), (f) => `${f.cached.rps.toFixed(0)} / ${f.uncached.rps.toFixed(0)} req/s against ${f.floor.rps.toFixed(0)}`));
 		await drain(url);
 	}
-	const signedIn = runs('load') ? await step(`Signed-in load, 50 connections, ${loadSeconds} s`, () => signedInLoad(url), (s) => `${s.all.responses} answers, ${s.all.errors} errors`) : undefined;
+	const signedIn = runs('load') ? await step(`Signed-in load, 50 connections, ${loadSeconds} s`, () => signedInLoad(url, stack!.env), (s) => `${s.all.responses} answers, ${s.all.errors} errors`) : undefined;
 	// autocannon stops sending at its deadline; let the server finish what it had already taken.
 	await drain(url);
 

@@ -53,7 +53,7 @@ export async function bringUp(p: Profile, opts: { freshDatabase: boolean; real?:
 			console.log('▸ PostgreSQL: using DATABASE_URL from the environment (no local cluster)');
 			env.DATABASE_URL = process.env.DATABASE_URL!;
 		} else {
-			const { bin, installed } = await step('PostgreSQL server', () => pgCluster.serverBin(), (r) => `${r.bin}${r.installed ? ' (installed from Debian)' : ''}`);
+			const { bin } = await step('PostgreSQL server', () => pgCluster.serverBin(), (r) => `${r.bin}${r.installed ? ' (installed from Debian)' : ''}`);
 			const dir = pgCluster.clusterDir();
 			cluster = { bin, dir };
 			await step('Private cluster', () => pgCluster.initCluster(bin, dir), (created) => `${dir} ${created ? '(created)' : '(exists)'}`);

@@ -1,6 +1,7 @@
 // npm test: the same set-up as npm start against a fresh test database and the test ports, then
-// type checks (svelte-check), and one Vitest run of the unit, integration and end-to-end projects
-// against a freshly built server. Exits non-zero on any failure and ends with "N passed, N failed".
+// type checks (svelte-check), lint (Prettier's check and ESLint), and one Vitest run of the unit,
+// integration and end-to-end projects against a freshly built server. Exits non-zero on any failure
+// and ends with "N passed, N failed".
 import type { ChildProcess } from 'node:child_process';
 import { spawn, spawnSync } from 'node:child_process';
 import { once } from 'node:events';
@@ -74,6 +75,13 @@ try {
 		return res.status === 0;
 	}, (ok) => (ok ? 'no errors, no warnings' : 'FAILED (see above)'));
 
+	// As `npm run lint`: Prettier's check (prints only the files it would change), then ESLint.
+	const lintOk = await step('Lint (Prettier check, ESLint)', () => {
+		const format = spawnSync(bin('prettier'), ['--check', '.', '--log-level', 'warn'], { cwd: root, stdio: 'inherit' });
+		const eslint = spawnSync(bin('eslint'), ['.'], { cwd: root, stdio: 'inherit' });
+		return format.status === 0 && eslint.status === 0;
+	}, (ok) => (ok ? 'formatted, no findings' : 'FAILED (see above; `npm run format` fixes the layout)'));
+
 	await step('Build', () => (buildIsStale() ? (buildApp(), 'built into build/') : 'up to date'), (r) => r);
 	const server = serveApp(stack.env);
 	app = server;
@@ -100,13 +108,14 @@ try {
 
 	console.log('');
 	console.log(`type check: ${typesOk ? 'passed' : 'FAILED'}`);
+	console.log(`lint: ${lintOk ? 'passed' : 'FAILED'}`);
 	if (!counts) {
 		console.log('tests: Vitest wrote no results (it crashed; see above)');
 	} else {
 		const skipped = counts.numPendingTests ? `, ${counts.numPendingTests} skipped` : '';
 		console.log(`tests: ${counts.numPassedTests} passed, ${failed} failed${skipped}`);
 	}
-	exitCode = typesOk && counts && failed === 0 && counts.numPassedTests > 0 ? 0 : 1;
+	exitCode = typesOk && lintOk && counts && failed === 0 && counts.numPassedTests > 0 ? 0 : 1;
 } catch (err) {
 	if (!(err instanceof StepFailed)) console.error(err);
 } finally {

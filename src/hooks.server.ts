@@ -28,7 +28,20 @@ export const themeHandle: Handle = async ({ event, resolve }) => {
 // before anything reads it (origin.ts). formActionHandle answers 404 for an action the page does
 // not define, and bodyLimitHandle 413 for a body over the route's cap, both before Auth.js or a
 // route reads anything.
-export const handle: Handle = sequence(drainBodyHandle, hostHandle, unavailableHandle, securityHeadersHandle, formActionHandle, bodyLimitHandle, authHandle, themeHandle);
+// The bench's floor (`npm run bench`) last, behind every other hook as the exports are. The constant
+// is fixed at build time: only the bench's own build (VITE_PW_BENCH=1) has the branch and the module.
+const benchHandles: Handle[] = import.meta.env.VITE_PW_BENCH === '1' ? [(await import('$lib/server/bench-floor')).benchFloorHandle] : [];
+export const handle: Handle = sequence(
+	drainBodyHandle,
+	hostHandle,
+	unavailableHandle,
+	securityHeadersHandle,
+	formActionHandle,
+	bodyLimitHandle,
+	authHandle,
+	themeHandle,
+	...benchHandles
+);
 
 /** A lost database connection answers 503 (see unavailable.ts); anything else is logged as a fault. */
 export const handleError: HandleServerError = ({ error, event, status, message }) => {

@@ -20,8 +20,12 @@ function listAfter(text: string, pattern: RegExp, what: string): string[] {
 	return JSON.parse(m[1]!) as string[];
 }
 
-/** The client scripts a page route (e.g. "/wheel") loads before it runs. */
-export function pageScripts(routeId: string): PageScripts {
+/**
+ * The client scripts a page route (e.g. "/wheel") loads before it runs, read from the build in
+ * `buildDir`. The manifest comes from SvelteKit's output of the last build; the client scripts do
+ * not depend on which build it was (only server code reads VITE_PW_BENCH), so the names agree.
+ */
+export function pageScripts(routeId: string, buildDir: string): PageScripts {
 	const manifest = readFileSync(join(output, 'manifest.js'), 'utf8');
 	const entry = listAfter(manifest, /client: \{[^}]*?imports:(\[[^\]]*\])/, 'client entry');
 	const route = new RegExp(`id: "${routeId.replace(/[/]/g, '\\/')}",[^}]*?page: \\{ layouts: \\[([^\\]]*)\\], errors: \\[[^\\]]*\\], leaf: (\\d+) \\}`).exec(manifest);
@@ -29,7 +33,7 @@ export function pageScripts(routeId: string): PageScripts {
 	const nodes = [...route[1]!.split(',').filter(Boolean), route[2]!].map(Number);
 	const nodeScripts = nodes.flatMap((n) => listAfter(readFileSync(join(output, 'nodes', `${n}.js`), 'utf8'), /export const imports = (\[[^\]]*\]);/, `imports for node ${n}`));
 	const files = [...new Set([...entry, ...nodeScripts])].map((file) => {
-		const body = readFileSync(join(root, 'build', 'client', file));
+		const body = readFileSync(join(root, buildDir, 'client', file));
 		return { file, bytes: body.length, gzip: gzipSync(body, { level: 9 }).length };
 	});
 	files.sort((a, b) => b.gzip - a.gzip);

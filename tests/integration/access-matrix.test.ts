@@ -279,7 +279,7 @@ const table: Row[] = [
 	{ route: 'POST /account?/confirm', note: 'every caller’s address is confirmed', object: 'the caller’s own address', expect: e(303, 409, 409, 409, 409), call: (c) => act(c, '/account', 'confirm', {}) },
 
 	// API: public tools, the same for everyone
-	{ route: 'GET /api/bench/static', object: 'none (the benchmarks’ floor: served only with PW_BENCH=1)', expect: e(404, 404, 404, 404, 404), call: (c) => getApi(c, '/api/bench/static?bytes=10') },
+	{ route: 'GET /api/bench/static', object: 'none (the benchmarks’ floor: only in npm run bench’s own build, never in build/)', expect: e(404, 404, 404, 404, 404), call: (c) => getApi(c, '/api/bench/static?bytes=10') },
 	{ route: 'GET /api/health', object: 'none', expect: e(200, 200, 200, 200, 200), call: (c) => getApi(c, '/api/health') },
 	publicTool('/api/v1/wheel', wheelQuery),
 	publicTool('/api/v1/wheel.dxf', wheelQuery),

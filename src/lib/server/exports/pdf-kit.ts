@@ -114,7 +114,6 @@ export function wrapLines(doc: PDFKit.PDFDocument, text: string, widthPt: number
 			continue;
 		}
 		if (line) lines.push(line);
-		line = '';
 		let rest = word;
 		while (!fits(rest)) {
 			// The longest head of the word that fits, at least one character.
