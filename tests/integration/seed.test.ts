@@ -45,11 +45,11 @@ describe('demo users', () => {
 describe('demo designs and profiles', () => {
 	it('are wheels the designer accepts and profiles the phasing check accepts, each once', async () => {
 		const { checkWheel } = await import('../../src/lib/server/wheel-request');
-		const { parsePhasing } = await import('../../src/lib/schemas/phasing');
+		const { checkPhasing } = await import('../../src/lib/schemas/phasing');
 		const { findTdc } = await import('../../src/lib/schemas/tdc');
 		for (const demo of demoBuilds) {
 			for (const r of demo.revisions) expect(checkWheel(r.params), `${demo.name}: ${r.message}`).toMatchObject({ ok: true });
-			expect(parsePhasing(demo.engineProfile), demo.name).toMatchObject({ ok: true });
+			expect(checkPhasing(demo.engineProfile), demo.name).toMatchObject({ ok: true });
 			// The stored TDC is half-way between the piston-stop marks (common practice): 16 BTDC and 13
 			// ATDC are 29° apart, 14.5° each side: −16 + 14.5 = −1.5, 1.5° BTDC (by hand).
 			if (demo.tdc) expect(findTdc(demo.tdc.params)).toMatchObject({ ok: true, value: { result: { tdcDeg: Number(demo.tdc.tdcDeg), spreadDeg: 29 } } });
