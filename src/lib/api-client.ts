@@ -1,7 +1,6 @@
 // The pages' calls to the JSON API (README: "Builds, wheel designs …"): one answer shape whatever
 // happened, so each caller only decides what to show.
-import { withoutField } from './params';
-import type { Refusal } from './schemas/refusal';
+import { refusal, type Refusal } from './schemas/refusal';
 
 export type ApiBody = { message?: string; code?: string; errors?: Record<string, string>; refusals?: Refusal[]; [key: string]: unknown };
 export interface ApiAnswer {
@@ -40,7 +39,7 @@ export async function callApi(method: 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE
 export function splitRefusal(answer: ApiAnswer, shown: readonly string[], fallback = 'Not saved'): { errors: Record<string, string>; alerts: string[] } {
 	const errors: Record<string, string> = {};
 	const alerts: string[] = [];
-	const refusals = answer.body.refusals ?? Object.entries(answer.body.errors ?? {}).map(([field, message]) => ({ field, message: withoutField(field, message) ?? message }));
+	const refusals = answer.body.refusals ?? Object.entries(answer.body.errors ?? {}).map(([field, message]) => refusal(field, message));
 	for (const { field: key, message } of refusals) {
 		const field = key.replace(/^params\./, '');
 		if (shown.includes(field)) errors[field] ??= message;
@@ -49,7 +48,7 @@ export function splitRefusal(answer: ApiAnswer, shown: readonly string[], fallba
 	if (!refusals.length) {
 		const message = answer.body.message ?? `${fallback} (error ${answer.status}).`;
 		const named = shown.find((f) => message.startsWith(`${f}: `));
-		if (named) errors[named] = withoutField(named, message)!;
+		if (named) errors[named] = refusal(named, message).message;
 		else alerts.push(message);
 	}
 	return { errors, alerts };

@@ -21,10 +21,6 @@ export function balanceParams(h: HoleCircle, units: Units): Params {
 	};
 }
 
-/** A message keyed by field says the field's name first; beside the field that is said already. */
-export const withoutField = (field: string, message: string | undefined) =>
-	message?.startsWith(`${field}: `) ? message.slice(field.length + 2) : message;
-
 /**
  * The same lengths in other units. Empty fields stay empty, and anything not yet a number is left
  * as typed, for its error to say so.
