@@ -23,8 +23,7 @@ export const palette = {
 } as const;
 
 type Mode = 'light' | 'dark';
-const vars = (mode: Mode) =>
-	Object.fromEntries(Object.entries(palette).map(([name, v]) => [`--pw-${name}`, v[mode]]));
+const vars = (mode: Mode) => Object.fromEntries(Object.entries(palette).map(([name, v]) => [`--pw-${name}`, v[mode]]));
 
 export default {
 	content: ['./src/**/*.{html,svelte,ts}'],

@@ -4,7 +4,17 @@ import { bench, describe } from 'vitest';
 import { readPhoto } from '../src/lib/server/photos/reading';
 import { syntheticWheelPhoto } from '$support/synthetic-photos';
 
-const photo = await syntheticWheelPhoto({ teeth: 60, missing: 2, width: 4000, height: 3000, rotationDeg: 33, noise: 8, blur: 2, light: 0.3, jitterPx: 4 });
+const photo = await syntheticWheelPhoto({
+	teeth: 60,
+	missing: 2,
+	width: 4000,
+	height: 3000,
+	rotationDeg: 33,
+	noise: 8,
+	blur: 2,
+	light: 0.3,
+	jitterPx: 4
+});
 
 describe('photo reading, 60-2 wheel, 4000 x 3000 JPEG', () => {
 	bench(

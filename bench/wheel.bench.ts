@@ -15,7 +15,18 @@ import { cutContours, drawWheel } from '../src/lib/trade/wheel';
 
 // 100,000 diameters before one comes back: far more than any cache of recent results keeps.
 let i = 0;
-const params = () => ({ teeth: '60', missing: '2', od: (120 + (i++ % 100_000) / 10_000).toFixed(4), depth: '5', bore: '25', keyway: 'din6885', shaft: '25', tipRadius: '0.4', rootRadius: '0.6', units: 'mm' });
+const params = () => ({
+	teeth: '60',
+	missing: '2',
+	od: (120 + (i++ % 100_000) / 10_000).toFixed(4),
+	depth: '5',
+	bore: '25',
+	keyway: 'din6885',
+	shaft: '25',
+	tipRadius: '0.4',
+	rootRadius: '0.6',
+	units: 'mm'
+});
 function next() {
 	const parsed = parseWheel(params());
 	if (!parsed.ok) throw new Error(JSON.stringify(parsed.errors));

@@ -71,5 +71,8 @@ export async function waitForApp(baseUrl: string, child: ChildProcess, timeoutMs
 			await sleep(200);
 		}
 	}
-	throw new StepError(`the server did not answer on ${baseUrl} within ${timeoutMs / 1000} s.`, 'Is the port taken? Set PORT to another one.');
+	throw new StepError(
+		`the server did not answer on ${baseUrl} within ${timeoutMs / 1000} s.`,
+		'Is the port taken? Set PORT to another one.'
+	);
 }

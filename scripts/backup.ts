@@ -44,5 +44,14 @@ export async function backup(url: string, bin: string, file?: string): Promise<s
 
 /** Replaces the database's tables with the backup's, in one transaction: all or nothing. */
 export async function restore(url: string, bin: string, file: string): Promise<void> {
-	await run(join(bin, 'pg_restore'), ['--clean', '--if-exists', '--no-owner', '--no-privileges', '--single-transaction', '--exit-on-error', `--dbname=${url}`, file]);
+	await run(join(bin, 'pg_restore'), [
+		'--clean',
+		'--if-exists',
+		'--no-owner',
+		'--no-privileges',
+		'--single-transaction',
+		'--exit-on-error',
+		`--dbname=${url}`,
+		file
+	]);
 }

@@ -24,7 +24,10 @@ import { step, StepError, StepFailed } from './steps';
 
 const quick = process.argv.includes('--quick');
 const parts = ['vitest', 'endpoints', 'load', 'size'] as const;
-const onlyArg = process.argv.find((a) => a.startsWith('--only='))?.slice('--only='.length).split(',');
+const onlyArg = process.argv
+	.find((a) => a.startsWith('--only='))
+	?.slice('--only='.length)
+	.split(',');
 const unknown = onlyArg?.filter((a) => !(parts as readonly string[]).includes(a)) ?? [];
 if (unknown.length) {
 	console.error(`--only: some of ${parts.join(', ')} (got ${unknown.join(', ')}).`);
@@ -109,7 +112,12 @@ const endpoints = (): Endpoint[] => {
 		{ name: 'wheel.dxf', aim: 0.67, same: `/api/v1/wheel.dxf?${wheelQuery('120')}`, fresh: () => `/api/v1/wheel.dxf?${wheelQuery(od())}` },
 		{ name: 'wheel.svg', aim: 0.67, same: `/api/v1/wheel.svg?${wheelQuery('120')}`, fresh: () => `/api/v1/wheel.svg?${wheelQuery(od())}` },
 		{ name: 'tape.pdf', aim: 0.33, same: '/api/v1/tape.pdf?diameter=150', fresh: () => `/api/v1/tape.pdf?diameter=${diameter()}` },
-		{ name: 'wheel.pdf', aim: 0.33, same: `/api/v1/wheel.pdf?${wheelQuery('120')}`, fresh: () => `/api/v1/wheel.pdf?${wheelQuery(pdfOd())}` }
+		{
+			name: 'wheel.pdf',
+			aim: 0.33,
+			same: `/api/v1/wheel.pdf?${wheelQuery('120')}`,
+			fresh: () => `/api/v1/wheel.pdf?${wheelQuery(pdfOd())}`
+		}
 	];
 };
 
@@ -150,7 +158,10 @@ async function signedInLoad(url: string, env: Record<string, string>): Promise<S
 	const client = await signUp('Bench Runner', freshEmail('bench'));
 	let buildId = '';
 	for (let i = 1; i <= 12; i++) {
-		const made = await client.send<{ id: string }>('POST', '/api/v1/builds', { name: `Bench build ${i}`, engine: `Single ${100 + i * 25} cc` });
+		const made = await client.send<{ id: string }>('POST', '/api/v1/builds', {
+			name: `Bench build ${i}`,
+			engine: `Single ${100 + i * 25} cc`
+		});
 		if (made.status !== 201) throw new StepError(`POST /api/v1/builds answered ${made.status}.`, 'Read the server output above.');
 		buildId ||= made.body.id;
 	}
@@ -166,7 +177,14 @@ async function signedInLoad(url: string, env: Record<string, string>): Promise<S
 		const res = await client.get(path, { accept });
 		if (res.status !== 200) throw new StepError(`${label} answered ${res.status} signed in.`, 'Read the server output above.');
 	}
-	const runs = routes.map(([label, path, accept]): LoadRun => ({ label, url, connections: 10, seconds: loadSeconds, path: () => path, headers: { cookie, accept } }));
+	const runs = routes.map(([label, path, accept]): LoadRun => ({
+		label,
+		url,
+		connections: 10,
+		seconds: loadSeconds,
+		path: () => path,
+		headers: { cookie, accept }
+	}));
 	await loadTogether(runs.map((r) => ({ ...r, seconds: warmupSeconds })));
 	const measuredRoutes = await loadTogether(runs);
 	const merged = measuredRoutes.flatMap((r) => r.latencies).sort((a, b) => a - b);
@@ -195,29 +213,46 @@ async function drain(url: string) {
 // ---- the table --------------------------------------------------------------------------------
 
 const ms = (v: number) => (Number.isFinite(v) ? (v >= 100 ? v.toFixed(0) : v >= 10 ? v.toFixed(1) : v.toFixed(2)) : '-');
-const pad = (cells: (string | number)[], widths: number[]) => cells.map((c, i) => (i === 0 ? String(c).padEnd(widths[i]!) : String(c).padStart(widths[i]!))).join('  ');
+const pad = (cells: (string | number)[], widths: number[]) =>
+	cells.map((c, i) => (i === 0 ? String(c).padEnd(widths[i]!) : String(c).padStart(widths[i]!))).join('  ');
 
-function printReport(r: { vitest?: VitestReport; exports: EndpointFigures[]; signedIn?: SignedInLoad; scripts?: PageScripts; loadBefore: number[] }) {
+function printReport(r: {
+	vitest?: VitestReport;
+	exports: EndpointFigures[];
+	signedIn?: SignedInLoad;
+	scripts?: PageScripts;
+	loadBefore: number[];
+}) {
 	const out: string[] = [];
 	const cpu = cpus();
 	out.push('', '════ Benchmarks ════');
-	out.push(`${new Date().toISOString().slice(0, 16).replace('T', ' ')} UTC · ${cpu.length} × ${cpu[0]?.model ?? 'unknown CPU'} · ${(totalmem() / 2 ** 30).toFixed(0)} GiB · Node ${process.version}`);
-	out.push(`load average before the runs: ${r.loadBefore.map((v) => v.toFixed(2)).join(' ')} (other work on the machine shows in every figure)`);
+	out.push(
+		`${new Date().toISOString().slice(0, 16).replace('T', ' ')} UTC · ${cpu.length} × ${cpu[0]?.model ?? 'unknown CPU'} · ${(totalmem() / 2 ** 30).toFixed(0)} GiB · Node ${process.version}`
+	);
+	out.push(
+		`load average before the runs: ${r.loadBefore.map((v) => v.toFixed(2)).join(' ')} (other work on the machine shows in every figure)`
+	);
 
 	if (r.vitest) {
 		out.push('', 'In process (Vitest bench), ms per run');
 		const w = [62, 8, 8, 8, 8];
 		out.push(pad(['', 'median', 'mean', 'p99', 'runs'], w));
-		for (const f of r.vitest.files) for (const g of f.groups) for (const b of g.benchmarks) out.push(pad([b.name.slice(0, 62), ms(b.median), ms(b.mean), ms(b.p99), b.sampleCount], w));
+		for (const f of r.vitest.files)
+			for (const g of f.groups)
+				for (const b of g.benchmarks) out.push(pad([b.name.slice(0, 62), ms(b.median), ms(b.mean), ms(b.p99), b.sampleCount], w));
 		out.push('  aims: live preview recompute under 1 ms; photo reading under 2 s');
 	}
 
 	if (r.exports.length) {
-		out.push('', `Export endpoints (autocannon, ${endpointConnections} connections, ${endpointSeconds} s each after ${warmupSeconds} s of warm-up); ratio = req/s ÷ the same-size static answer's`);
+		out.push(
+			'',
+			`Export endpoints (autocannon, ${endpointConnections} connections, ${endpointSeconds} s each after ${warmupSeconds} s of warm-up); ratio = req/s ÷ the same-size static answer's`
+		);
 		const w = [26, 9, 9, 9, 9, 9, 7, 6];
 		out.push(pad(['', 'bytes', 'req/s', 'p50 ms', 'p95 ms', 'p99 ms', 'ratio', 'aim'], w));
 		for (const e of r.exports) {
-			const row = (l: LoadResult, ratio: string, aim: string) => pad([l.label, e.bytes, l.rps.toFixed(0), ms(l.p50), ms(l.p95), ms(l.p99), ratio, aim], w);
+			const row = (l: LoadResult, ratio: string, aim: string) =>
+				pad([l.label, e.bytes, l.rps.toFixed(0), ms(l.p50), ms(l.p95), ms(l.p99), ratio, aim], w);
 			out.push(row(e.floor, '1', ''));
 			out.push(row(e.cached, (e.cached.rps / e.floor.rps).toFixed(2), `≥${e.endpoint.aim}`));
 			out.push(row(e.uncached, (e.uncached.rps / e.floor.rps).toFixed(2), `≥${e.endpoint.aim}`));
@@ -238,8 +273,16 @@ function printReport(r: { vitest?: VitestReport; exports: EndpointFigures[]; sig
 
 	if (r.scripts) {
 		const kb = (b: number) => (b / 1024).toFixed(1);
-		out.push('', `Designer page (/wheel) JavaScript: ${kb(r.scripts.gzip)} KB gzipped (${kb(r.scripts.bytes)} KB raw) in ${r.scripts.files.length} files; aim ≤ 150 KB`);
-		out.push(`  largest: ${r.scripts.files.slice(0, 5).map((f) => `${f.file.split('/').pop()} ${kb(f.gzip)} KB`).join(', ')}`);
+		out.push(
+			'',
+			`Designer page (/wheel) JavaScript: ${kb(r.scripts.gzip)} KB gzipped (${kb(r.scripts.bytes)} KB raw) in ${r.scripts.files.length} files; aim ≤ 150 KB`
+		);
+		out.push(
+			`  largest: ${r.scripts.files
+				.slice(0, 5)
+				.map((f) => `${f.file.split('/').pop()} ${kb(f.gzip)} KB`)
+				.join(', ')}`
+		);
 	}
 	console.log(out.join('\n'));
 }
@@ -251,7 +294,11 @@ try {
 	const loadBefore = loadavg();
 	stack = await bringUp(p, { freshDatabase: true });
 	// Its own build, with the floor endpoint (bench-floor.ts) that the product's build leaves out.
-	await step('Build (with the bench floor)', () => (buildIsStale(benchBuild) ? (buildApp(benchBuild), `built into ${benchBuild.dir}/`) : 'up to date'), (r) => r);
+	await step(
+		'Build (with the bench floor)',
+		() => (buildIsStale(benchBuild) ? (buildApp(benchBuild), `built into ${benchBuild.dir}/`) : 'up to date'),
+		(r) => r
+	);
 
 	let vitestReport: VitestReport | undefined;
 	if (runs('vitest')) {
@@ -259,7 +306,11 @@ try {
 		mkdirSync(results, { recursive: true });
 		rmSync(vitestJson, { force: true });
 		// Not spawnSync: the fakes run in this process and must keep answering.
-		vitest = spawn(bin('vitest'), ['bench', '--run', '--project', 'unit', `--outputJson=${vitestJson}`], { cwd: root, stdio: 'inherit', env: { ...process.env, ...stack.env } });
+		vitest = spawn(bin('vitest'), ['bench', '--run', '--project', 'unit', `--outputJson=${vitestJson}`], {
+			cwd: root,
+			stdio: 'inherit',
+			env: { ...process.env, ...stack.env }
+		});
 		await once(vitest, 'exit');
 		vitestReport = existsSync(vitestJson) ? (JSON.parse(readFileSync(vitestJson, 'utf8')) as VitestReport) : undefined;
 		if (!vitestReport) console.error('  ✗ Vitest wrote no bench results (see above)');
@@ -278,16 +329,38 @@ try {
 	app = server;
 	stack.track(server);
 	const url = stack.env.APP_URL!;
-	await step(`Bench server on ${url} (${benchBuild.dir}/)`, () => waitForApp(url, server), (s) => `health check answered ${s}`);
+	await step(
+		`Bench server on ${url} (${benchBuild.dir}/)`,
+		() => waitForApp(url, server),
+		(s) => `health check answered ${s}`
+	);
 
-	const scripts = runs('size') ? await step('Designer page JavaScript (from the build)', () => pageScripts('/wheel', benchBuild.dir), (s) => `${s.files.length} files`) : undefined;
+	const scripts = runs('size')
+		? await step(
+				'Designer page JavaScript (from the build)',
+				() => pageScripts('/wheel', benchBuild.dir),
+				(s) => `${s.files.length} files`
+			)
+		: undefined;
 
 	const exports: EndpointFigures[] = [];
 	for (const e of runs('endpoints') ? endpoints() : []) {
-		exports.push(await step(`${e.name}: static floor, same params, new params`, () => endpointFigures(url, e), (f) => `${f.cached.rps.toFixed(0)} / ${f.uncached.rps.toFixed(0)} req/s against ${f.floor.rps.toFixed(0)}`));
+		exports.push(
+			await step(
+				`${e.name}: static floor, same params, new params`,
+				() => endpointFigures(url, e),
+				(f) => `${f.cached.rps.toFixed(0)} / ${f.uncached.rps.toFixed(0)} req/s against ${f.floor.rps.toFixed(0)}`
+			)
+		);
 		await drain(url);
 	}
-	const signedIn = runs('load') ? await step(`Signed-in load, 50 connections, ${loadSeconds} s`, () => signedInLoad(url, stack!.env), (s) => `${s.all.responses} answers, ${s.all.errors} errors`) : undefined;
+	const signedIn = runs('load')
+		? await step(
+				`Signed-in load, 50 connections, ${loadSeconds} s`,
+				() => signedInLoad(url, stack!.env),
+				(s) => `${s.all.responses} answers, ${s.all.errors} errors`
+			)
+		: undefined;
 	// autocannon stops sending at its deadline; let the server finish what it had already taken.
 	await drain(url);
 

@@ -74,7 +74,13 @@ function outline(glyph) {
 		} else if (command === 'quadraticCurveTo') {
 			const q = [args[0], args[1]];
 			const end = [args[2], args[3]];
-			cubic(at, [at[0] + (2 / 3) * (q[0] - at[0]), at[1] + (2 / 3) * (q[1] - at[1])], [end[0] + (2 / 3) * (q[0] - end[0]), end[1] + (2 / 3) * (q[1] - end[1])], end, current);
+			cubic(
+				at,
+				[at[0] + (2 / 3) * (q[0] - at[0]), at[1] + (2 / 3) * (q[1] - at[1])],
+				[end[0] + (2 / 3) * (q[0] - end[0]), end[1] + (2 / 3) * (q[1] - end[1])],
+				end,
+				current
+			);
 			at = end;
 		} else if (command === 'bezierCurveTo') {
 			const end = [args[4], args[5]];

@@ -31,7 +31,10 @@ export function serverBin(): { bin: string; installed: boolean } {
 	const found = find();
 	if (found) return { bin: found, installed: false };
 	if (!isRoot) {
-		throw new StepError('PostgreSQL server is not installed.', 'Install it with `sudo apt-get install -y postgresql`, then run this again.');
+		throw new StepError(
+			'PostgreSQL server is not installed.',
+			'Install it with `sudo apt-get install -y postgresql`, then run this again.'
+		);
 	}
 	// Debian would otherwise create and start a system-wide cluster on port 5432 that nobody uses.
 	mkdirSync('/etc/postgresql-common', { recursive: true });
@@ -49,7 +52,10 @@ export function aptInstall(packages: string[]) {
 	const update = spawnSync('apt-get', ['update', '-q'], { stdio: 'inherit', env });
 	const install = update.status === 0 && spawnSync('apt-get', ['install', '-y', '-q', ...packages], { stdio: 'inherit', env });
 	if (!install || install.status !== 0) {
-		throw new StepError(`apt-get could not install ${packages.join(', ')}.`, 'Check the network to the Debian mirrors and that you are root, then run this again.');
+		throw new StepError(
+			`apt-get could not install ${packages.join(', ')}.`,
+			'Check the network to the Debian mirrors and that you are root, then run this again.'
+		);
 	}
 }
 
@@ -92,11 +98,27 @@ export function initCluster(bin: string, dir: string): boolean {
 	writeFileSync(pwfile, password + '\n', { mode: 0o600 });
 	giveToPostgres(dir, pwfile);
 	chmodSync(dir, 0o700);
-	const init = run(join(bin, 'initdb'), ['-D', dir, '-U', 'postgres', '--pwfile', pwfile, '--auth', 'scram-sha-256', '-E', 'UTF8', '--locale', 'C']);
+	const init = run(join(bin, 'initdb'), [
+		'-D',
+		dir,
+		'-U',
+		'postgres',
+		'--pwfile',
+		pwfile,
+		'--auth',
+		'scram-sha-256',
+		'-E',
+		'UTF8',
+		'--locale',
+		'C'
+	]);
 	rmSync(pwfile, { force: true });
 	if (init.status !== 0) {
 		rmSync(dir, { recursive: true, force: true });
-		throw new StepError(`initdb failed: ${init.stderr.trim()}`, 'Check free disk space (df -h) and permissions of .data/, then run this again.');
+		throw new StepError(
+			`initdb failed: ${init.stderr.trim()}`,
+			'Check free disk space (df -h) and permissions of .data/, then run this again.'
+		);
 	}
 	writeFileSync(superuserFile, password, { mode: 0o600 });
 	// Loopback TCP only: no Unix socket, so paths of any length work and nothing else can reach it.

@@ -53,10 +53,18 @@ export async function bringUp(p: Profile, opts: { freshDatabase: boolean; real?:
 			console.log('▸ PostgreSQL: using DATABASE_URL from the environment (no local cluster)');
 			env.DATABASE_URL = process.env.DATABASE_URL!;
 		} else {
-			const { bin } = await step('PostgreSQL server', () => pgCluster.serverBin(), (r) => `${r.bin}${r.installed ? ' (installed from Debian)' : ''}`);
+			const { bin } = await step(
+				'PostgreSQL server',
+				() => pgCluster.serverBin(),
+				(r) => `${r.bin}${r.installed ? ' (installed from Debian)' : ''}`
+			);
 			const dir = pgCluster.clusterDir();
 			cluster = { bin, dir };
-			await step('Private cluster', () => pgCluster.initCluster(bin, dir), (created) => `${dir} ${created ? '(created)' : '(exists)'}`);
+			await step(
+				'Private cluster',
+				() => pgCluster.initCluster(bin, dir),
+				(created) => `${dir} ${created ? '(created)' : '(exists)'}`
+			);
 			await step(
 				'Cluster running on 127.0.0.1',
 				async () => {
@@ -68,9 +76,17 @@ export async function bringUp(p: Profile, opts: { freshDatabase: boolean; real?:
 				},
 				(how) => `port ${new URL(env.DATABASE_URL!).port}, ${how}`
 			);
-			await step(`Database ${p.database}`, () => pgCluster.ensureDatabase(p.database, { fresh: opts.freshDatabase }), (r) => (opts.freshDatabase ? 'created fresh' : r));
+			await step(
+				`Database ${p.database}`,
+				() => pgCluster.ensureDatabase(p.database, { fresh: opts.freshDatabase }),
+				(r) => (opts.freshDatabase ? 'created fresh' : r)
+			);
 		}
-		await step('Migrations from drizzle/', () => migrateDatabase(env.DATABASE_URL!), () => 'applied');
+		await step(
+			'Migrations from drizzle/',
+			() => migrateDatabase(env.DATABASE_URL!),
+			() => 'applied'
+		);
 		if (process.env.NODE_ENV !== 'production') {
 			await step(
 				'Demo workshop',
@@ -82,7 +98,10 @@ export async function bringUp(p: Profile, opts: { freshDatabase: boolean; real?:
 						await database.$client.end();
 					}
 				},
-				(r) => (r.workshopCreated || r.buildsCreated || r.usersCreated ? `seeded (${r.buildsCreated} builds, ${r.usersCreated} users)` : 'already there')
+				(r) =>
+					r.workshopCreated || r.buildsCreated || r.usersCreated
+						? `seeded (${r.buildsCreated} builds, ${r.usersCreated} users)`
+						: 'already there'
 			);
 		}
 		if (real.mail) {

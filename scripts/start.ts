@@ -37,7 +37,12 @@ process.on('SIGTERM', () => void stopAll(0));
 
 try {
 	stack = await bringUp(p, { freshDatabase: false, real: realEndpoints() });
-	if (!dev) await step('Build', () => (buildIsStale() ? (buildApp(), 'built into build/') : 'up to date'), (r) => r);
+	if (!dev)
+		await step(
+			'Build',
+			() => (buildIsStale() ? (buildApp(), 'built into build/') : 'up to date'),
+			(r) => r
+		);
 	const server = dev ? devServer(stack.env) : serveApp(stack.env);
 	app = server;
 	stack.track(server);
@@ -48,7 +53,11 @@ try {
 		}
 	});
 	const url = stack.env.APP_URL!;
-	await step(`Serving on ${url}${dev ? ' (dev server)' : ''}`, () => waitForApp(url, server, dev ? 90_000 : 30_000), (s) => `health check answered ${s}`);
+	await step(
+		`Serving on ${url}${dev ? ' (dev server)' : ''}`,
+		() => waitForApp(url, server, dev ? 90_000 : 30_000),
+		(s) => `health check answered ${s}`
+	);
 
 	console.log(`\nPhasewright is running at ${url}`);
 	if (stack.env.MAILBOX_URL) console.log(`Mail the app sends lands in the local mailbox: ${url}/dev/mail`);

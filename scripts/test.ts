@@ -59,34 +59,58 @@ for (const signal of ['SIGINT', 'SIGTERM'] as const) {
 
 let exitCode = 1;
 try {
-	await step('Reference tools from Debian (Chromium, ezdxf, poppler, LibreCAD, OpenSCAD)', () => {
-		const missing = referenceTools.filter((t) => !t.present()).map((t) => t.pkg);
-		if (!missing.length) return 'present';
-		if (process.getuid?.() !== 0) throw new StepError(`Missing: ${missing.join(', ')}.`, `Install them with \`sudo apt-get install -y ${missing.join(' ')}\`.`);
-		aptInstall(missing);
-		return `installed ${missing.join(', ')}`;
-	}, (r) => r);
+	await step(
+		'Reference tools from Debian (Chromium, ezdxf, poppler, LibreCAD, OpenSCAD)',
+		() => {
+			const missing = referenceTools.filter((t) => !t.present()).map((t) => t.pkg);
+			if (!missing.length) return 'present';
+			if (process.getuid?.() !== 0)
+				throw new StepError(`Missing: ${missing.join(', ')}.`, `Install them with \`sudo apt-get install -y ${missing.join(' ')}\`.`);
+			aptInstall(missing);
+			return `installed ${missing.join(', ')}`;
+		},
+		(r) => r
+	);
 
 	stack = await bringUp(p, { freshDatabase: true });
 
-	const typesOk = await step('Type check (svelte-check)', () => {
-		spawnSync(bin('svelte-kit'), ['sync'], { cwd: root, stdio: 'inherit' });
-		const res = spawnSync(bin('svelte-check'), ['--tsconfig', './tsconfig.json', '--fail-on-warnings', '--output', 'human'], { cwd: root, stdio: 'inherit' });
-		return res.status === 0;
-	}, (ok) => (ok ? 'no errors, no warnings' : 'FAILED (see above)'));
+	const typesOk = await step(
+		'Type check (svelte-check)',
+		() => {
+			spawnSync(bin('svelte-kit'), ['sync'], { cwd: root, stdio: 'inherit' });
+			const res = spawnSync(bin('svelte-check'), ['--tsconfig', './tsconfig.json', '--fail-on-warnings', '--output', 'human'], {
+				cwd: root,
+				stdio: 'inherit'
+			});
+			return res.status === 0;
+		},
+		(ok) => (ok ? 'no errors, no warnings' : 'FAILED (see above)')
+	);
 
 	// As `npm run lint`: Prettier's check (prints only the files it would change), then ESLint.
-	const lintOk = await step('Lint (Prettier check, ESLint)', () => {
-		const format = spawnSync(bin('prettier'), ['--check', '.', '--log-level', 'warn'], { cwd: root, stdio: 'inherit' });
-		const eslint = spawnSync(bin('eslint'), ['.'], { cwd: root, stdio: 'inherit' });
-		return format.status === 0 && eslint.status === 0;
-	}, (ok) => (ok ? 'formatted, no findings' : 'FAILED (see above; `npm run format` fixes the layout)'));
+	const lintOk = await step(
+		'Lint (Prettier check, ESLint)',
+		() => {
+			const format = spawnSync(bin('prettier'), ['--check', '.', '--log-level', 'warn'], { cwd: root, stdio: 'inherit' });
+			const eslint = spawnSync(bin('eslint'), ['.'], { cwd: root, stdio: 'inherit' });
+			return format.status === 0 && eslint.status === 0;
+		},
+		(ok) => (ok ? 'formatted, no findings' : 'FAILED (see above; `npm run format` fixes the layout)')
+	);
 
-	await step('Build', () => (buildIsStale() ? (buildApp(), 'built into build/') : 'up to date'), (r) => r);
+	await step(
+		'Build',
+		() => (buildIsStale() ? (buildApp(), 'built into build/') : 'up to date'),
+		(r) => r
+	);
 	const server = serveApp(stack.env);
 	app = server;
 	stack.track(server);
-	await step(`Test server on ${stack.env.APP_URL}`, () => waitForApp(stack!.env.APP_URL!, server), (s) => `health check answered ${s}`);
+	await step(
+		`Test server on ${stack.env.APP_URL}`,
+		() => waitForApp(stack!.env.APP_URL!, server),
+		(s) => `health check answered ${s}`
+	);
 
 	console.log('▸ Tests (Vitest: unit, integration, e2e)');
 	mkdirSync(results, { recursive: true });
@@ -100,11 +124,11 @@ try {
 		env: { ...process.env, ...stack.env, CHROMIUM_PATH: chromiumPath }
 	});
 	await once(vitest, 'exit');
-	const counts = existsSync(vitestJson)
-		? (JSON.parse(readFileSync(vitestJson, 'utf8')) as VitestSummary)
-		: undefined;
+	const counts = existsSync(vitestJson) ? (JSON.parse(readFileSync(vitestJson, 'utf8')) as VitestSummary) : undefined;
 	// A test file that fails to load has no tests of its own; count it as one failure.
-	const failed = counts ? counts.numFailedTests + counts.testResults.filter((f) => f.status === 'failed' && f.assertionResults.length === 0).length : 0;
+	const failed = counts
+		? counts.numFailedTests + counts.testResults.filter((f) => f.status === 'failed' && f.assertionResults.length === 0).length
+		: 0;
 
 	console.log('');
 	console.log(`type check: ${typesOk ? 'passed' : 'FAILED'}`);

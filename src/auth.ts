@@ -25,7 +25,11 @@ export const signInLinkLifetimeS = 30 * 60;
 // Sessions are JWTs in an httpOnly cookie: Auth.js's Credentials provider works only with JWT
 // sessions, even with a database adapter. The adapter still keeps users and sign-in link tokens.
 // Each JWT names a user_session row (sessions.ts): without its row, the cookie signs in no one.
-export const { handle: authHandle, signIn, signOut } = SvelteKitAuth(async (event) => {
+export const {
+	handle: authHandle,
+	signIn,
+	signOut
+} = SvelteKitAuth(async (event) => {
 	const c = config();
 	return {
 		adapter: DrizzleAdapter(db(), { usersTable: user, accountsTable: account, verificationTokensTable: verificationToken }),
@@ -63,7 +67,10 @@ export const { handle: authHandle, signIn, signOut } = SvelteKitAuth(async (even
 					const link = new URL(onOrigin(url));
 					const back = link.searchParams.get('callbackUrl');
 					const backUrl = back && URL.canParse(back) ? new URL(back) : null;
-					link.searchParams.set('callbackUrl', linkTo(redirectTarget(backUrl && backUrl.origin === c.origin ? backUrl.pathname + backUrl.search : null)));
+					link.searchParams.set(
+						'callbackUrl',
+						linkTo(redirectTarget(backUrl && backUrl.origin === c.origin ? backUrl.pathname + backUrl.search : null))
+					);
 					// An account made by sign-up and never confirmed gets the same link, said as what it also does.
 					const unconfirmed = await isUnconfirmed(db(), identifier);
 					await sendMail((unconfirmed ? confirmAddressMessage : signInLinkMessage)(identifier, link.href));
@@ -73,7 +80,8 @@ export const { handle: authHandle, signIn, signOut } = SvelteKitAuth(async (even
 		events: {
 			// A first sign-in by e-mail link creates the user through the adapter; give them a workshop too.
 			async createUser({ user: created }) {
-				if (created.id && created.email) await createPersonalWorkshop(db(), { id: created.id, email: created.email, name: created.name ?? null });
+				if (created.id && created.email)
+					await createPersonalWorkshop(db(), { id: created.id, email: created.email, name: created.name ?? null });
 			},
 			async signOut(message) {
 				const sid = 'token' in message ? sessionIdOf(message.token?.sid) : null;

@@ -28,10 +28,14 @@ function listAfter(text: string, pattern: RegExp, what: string): string[] {
 export function pageScripts(routeId: string, buildDir: string): PageScripts {
 	const manifest = readFileSync(join(output, 'manifest.js'), 'utf8');
 	const entry = listAfter(manifest, /client: \{[^}]*?imports:(\[[^\]]*\])/, 'client entry');
-	const route = new RegExp(`id: "${routeId.replace(/[/]/g, '\\/')}",[^}]*?page: \\{ layouts: \\[([^\\]]*)\\], errors: \\[[^\\]]*\\], leaf: (\\d+) \\}`).exec(manifest);
+	const route = new RegExp(
+		`id: "${routeId.replace(/[/]/g, '\\/')}",[^}]*?page: \\{ layouts: \\[([^\\]]*)\\], errors: \\[[^\\]]*\\], leaf: (\\d+) \\}`
+	).exec(manifest);
 	if (!route) throw new Error(`no page ${routeId} in the build's server manifest`);
 	const nodes = [...route[1]!.split(',').filter(Boolean), route[2]!].map(Number);
-	const nodeScripts = nodes.flatMap((n) => listAfter(readFileSync(join(output, 'nodes', `${n}.js`), 'utf8'), /export const imports = (\[[^\]]*\]);/, `imports for node ${n}`));
+	const nodeScripts = nodes.flatMap((n) =>
+		listAfter(readFileSync(join(output, 'nodes', `${n}.js`), 'utf8'), /export const imports = (\[[^\]]*\]);/, `imports for node ${n}`)
+	);
 	const files = [...new Set([...entry, ...nodeScripts])].map((file) => {
 		const body = readFileSync(join(root, buildDir, 'client', file));
 		return { file, bytes: body.length, gzip: gzipSync(body, { level: 9 }).length };

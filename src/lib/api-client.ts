@@ -10,7 +10,12 @@ export interface ApiAnswer {
 	body: ApiBody;
 }
 
-export async function callApi(method: 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE', path: string, body?: unknown, signal?: AbortSignal): Promise<ApiAnswer> {
+export async function callApi(
+	method: 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE',
+	path: string,
+	body?: unknown,
+	signal?: AbortSignal
+): Promise<ApiAnswer> {
 	let res: Response;
 	try {
 		res = await fetch(path, {
@@ -36,7 +41,11 @@ export async function callApi(method: 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE
  * `params.<name>`; a 404 names its field at the start of its message), worded for beside the
  * field, and the rest, for an alert.
  */
-export function splitRefusal(answer: ApiAnswer, shown: readonly string[], fallback = 'Not saved'): { errors: Record<string, string>; alerts: string[] } {
+export function splitRefusal(
+	answer: ApiAnswer,
+	shown: readonly string[],
+	fallback = 'Not saved'
+): { errors: Record<string, string>; alerts: string[] } {
 	const errors: Record<string, string> = {};
 	const alerts: string[] = [];
 	const refusals = answer.body.refusals ?? Object.entries(answer.body.errors ?? {}).map(([field, message]) => refusal(field, message));

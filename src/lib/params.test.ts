@@ -3,7 +3,9 @@ import { convertLengths, diffParams } from './params';
 
 describe('tool form helpers', () => {
 	it('converts the given length fields between units (1 in = 25.4 mm), leaving empty and unfinished ones', () => {
-		expect(convertLengths({ od: '100', depth: '3 1/2', bore: '', label: '7', pcd: '4/' }, ['od', 'depth', 'bore', 'pcd'], 'mm', 'in')).toEqual({ od: '3.937', depth: '0.1378' });
+		expect(
+			convertLengths({ od: '100', depth: '3 1/2', bore: '', label: '7', pcd: '4/' }, ['od', 'depth', 'bore', 'pcd'], 'mm', 'in')
+		).toEqual({ od: '3.937', depth: '0.1378' });
 		expect(convertLengths({ od: '4' }, ['od'], 'in', 'mm')).toEqual({ od: '101.6' });
 	});
 

@@ -26,16 +26,14 @@ export const tools: readonly Tool[] = [
 		id: 'tape',
 		href: '/tape',
 		title: 'Degree tape',
-		summary:
-			'Print a degree tape sized to your timing hub, zero at TDC, with BTDC on the correct side for the crank rotation.',
+		summary: 'Print a degree tape sized to your timing hub, zero at TDC, with BTDC on the correct side for the crank rotation.',
 		ready: true
 	},
 	{
 		id: 'tdc',
 		href: '/tdc',
 		title: 'TDC finder',
-		summary:
-			'Enter the two piston-stop marks and get true TDC half-way between them, in crank degrees.',
+		summary: 'Enter the two piston-stop marks and get true TDC half-way between them, in crank degrees.',
 		ready: true
 	},
 	{
@@ -50,8 +48,7 @@ export const tools: readonly Tool[] = [
 		id: 'builds',
 		href: '/builds',
 		title: 'Builds',
-		summary:
-			'Keep each engine’s wheel designs, TDC records and build sheets together, versioned, in your workshop.',
+		summary: 'Keep each engine’s wheel designs, TDC records and build sheets together, versioned, in your workshop.',
 		ready: true
 	}
 ];

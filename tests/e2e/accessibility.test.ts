@@ -13,7 +13,13 @@ import { baseUrl, contextFor, launch } from './browser';
 
 const axeSource = readFileSync(createRequire(import.meta.url).resolve('axe-core/axe.min.js'), 'utf8');
 
-type Violation = { id: string; impact: string | null; help: string; helpUrl: string; nodes: { target: unknown[]; failureSummary?: string }[] };
+type Violation = {
+	id: string;
+	impact: string | null;
+	help: string;
+	helpUrl: string;
+	nodes: { target: unknown[]; failureSummary?: string }[];
+};
 
 let browser: Browser;
 let owner: Client;
@@ -30,13 +36,46 @@ beforeAll(async () => {
 		return 'id' in r.body ? r.body.id : r.body.photos[0]!.id;
 	};
 	ids.build = await created(owner.send('POST', '/api/v1/builds', { name: 'Accessibility single', engine: '500 cc single' }), 'build');
-	expect((await owner.send('PUT', `/api/v1/builds/${ids.build}/engine`, { params: { teeth: '36', missing: '1', toothAtTdc: '9', layout: 'single-4', rpm: '9000' } })).status).toBe(200);
-	ids.design = await created(owner.send('POST', `/api/v1/builds/${ids.build}/designs`, { name: 'Crank wheel', params: wheel, message: 'as drawn' }), 'design');
+	expect(
+		(
+			await owner.send('PUT', `/api/v1/builds/${ids.build}/engine`, {
+				params: { teeth: '36', missing: '1', toothAtTdc: '9', layout: 'single-4', rpm: '9000' }
+			})
+		).status
+	).toBe(200);
+	ids.design = await created(
+		owner.send('POST', `/api/v1/builds/${ids.build}/designs`, { name: 'Crank wheel', params: wheel, message: 'as drawn' }),
+		'design'
+	);
 	// A second revision, so the history page has something to compare.
-	expect((await owner.send('POST', `/api/v1/designs/${ids.design}/revisions`, { baseRevision: 1, params: { ...wheel, od: '110' }, message: 'bigger' })).status).toBe(201);
-	await created(owner.send('POST', `/api/v1/builds/${ids.build}/tdc-records`, { label: 'cold', params: { a: '-14', b: '15' } }), 'TDC record');
-	await created(owner.send('POST', `/api/v1/builds/${ids.build}/tapes`, { label: 'flywheel', params: { units: 'mm', diameter: '120' } }), 'tape');
-	const shot = await syntheticWheelPhoto({ teeth: 36, missing: 1, width: 800, height: 600, rotationDeg: 20, noise: 3, blur: 1, tips: 3, seed: 5 });
+	expect(
+		(
+			await owner.send('POST', `/api/v1/designs/${ids.design}/revisions`, {
+				baseRevision: 1,
+				params: { ...wheel, od: '110' },
+				message: 'bigger'
+			})
+		).status
+	).toBe(201);
+	await created(
+		owner.send('POST', `/api/v1/builds/${ids.build}/tdc-records`, { label: 'cold', params: { a: '-14', b: '15' } }),
+		'TDC record'
+	);
+	await created(
+		owner.send('POST', `/api/v1/builds/${ids.build}/tapes`, { label: 'flywheel', params: { units: 'mm', diameter: '120' } }),
+		'tape'
+	);
+	const shot = await syntheticWheelPhoto({
+		teeth: 36,
+		missing: 1,
+		width: 800,
+		height: 600,
+		rotationDeg: 20,
+		noise: 3,
+		blur: 1,
+		tips: 3,
+		seed: 5
+	});
 	const form = new FormData();
 	form.append('file', new Blob([new Uint8Array(shot.image)], { type: 'image/jpeg' }), 'axe-wheel.jpg');
 	ids.photo = await created(owner.send('POST', `/api/v1/builds/${ids.build}/photos`, form), 'photo');
@@ -110,10 +149,18 @@ function measureDrawingText(): DrawingText {
 	const parse = (s: string): C | null => {
 		const m = /rgba?\(([^)]+)\)/.exec(s);
 		if (!m) return null;
-		const p = m[1]!.split(/[\s,/]+/).filter(Boolean).map(Number);
+		const p = m[1]!
+			.split(/[\s,/]+/)
+			.filter(Boolean)
+			.map(Number);
 		return { r: p[0]!, g: p[1]!, b: p[2]!, a: p[3] ?? 1 };
 	};
-	const over = (top: C, below: C): C => ({ r: top.r * top.a + below.r * (1 - top.a), g: top.g * top.a + below.g * (1 - top.a), b: top.b * top.a + below.b * (1 - top.a), a: 1 });
+	const over = (top: C, below: C): C => ({
+		r: top.r * top.a + below.r * (1 - top.a),
+		g: top.g * top.a + below.g * (1 - top.a),
+		b: top.b * top.a + below.b * (1 - top.a),
+		a: 1
+	});
 	const lum = (c: C) => {
 		const [r, g, b] = [c.r, c.g, c.b].map((v) => v / 255).map((v) => (v <= 0.04045 ? v / 12.92 : ((v + 0.055) / 1.055) ** 2.4));
 		return 0.2126 * r! + 0.7152 * g! + 0.0722 * b!;
@@ -177,7 +224,10 @@ function measureDrawingText(): DrawingText {
 		const shown = over({ ...fill, a: fill.a * Number(style.fillOpacity) * opacity(text) }, behind);
 		const contrast = ratio(shown, behind);
 		result.measured++;
-		if (contrast < (large ? 3 : 4.5)) result.faint.push(`“${text.textContent.trim()}” ${contrast.toFixed(2)}:1 (${style.fill} on rgb(${behind.r.toFixed(0)}, ${behind.g.toFixed(0)}, ${behind.b.toFixed(0)}), ${px.toFixed(1)} px)`);
+		if (contrast < (large ? 3 : 4.5))
+			result.faint.push(
+				`“${text.textContent.trim()}” ${contrast.toFixed(2)}:1 (${style.fill} on rgb(${behind.r.toFixed(0)}, ${behind.g.toFixed(0)}, ${behind.b.toFixed(0)}), ${px.toFixed(1)} px)`
+			);
 	}
 	return result;
 }
@@ -187,7 +237,13 @@ async function audit(check: Check, theme: 'light' | 'dark', session: Map<string,
 	const cookies = new Map(session).set('pw-theme', theme);
 	const viewport = check.phone ? { width: 390, height: 844 } : { width: 1280, height: 900 };
 	// bypassCSP: axe goes in as an inline script, which a Content-Security-Policy may refuse.
-	const context = await contextFor(browser, cookies, { viewport, isMobile: check.phone, hasTouch: check.phone, colorScheme: theme, bypassCSP: true });
+	const context = await contextFor(browser, cookies, {
+		viewport,
+		isMobile: check.phone,
+		hasTouch: check.phone,
+		colorScheme: theme,
+		bypassCSP: true
+	});
 	try {
 		const page = await context.newPage();
 		const response = await page.goto(new URL(check.path, baseUrl).href, { waitUntil: 'networkidle' });
@@ -204,7 +260,10 @@ async function audit(check: Check, theme: 'light' | 'dark', session: Map<string,
 			const axe = (window as unknown as { axe: { run: (ctx: Document, opts: object) => Promise<Result> } }).axe;
 			const result = await axe.run(document, { resultTypes: ['violations', 'incomplete'] });
 			// What axe could not decide, with its reason (text over an image or a drawing, say).
-			const review = result.incomplete.map((r) => `${r.id} [${r.nodes.map((n) => `${n.target.join(' ')}: ${n.any.map((a) => a.data?.messageKey ?? a.data?.contrastRatio ?? '?').join('/')}`).join('; ')}]`);
+			const review = result.incomplete.map(
+				(r) =>
+					`${r.id} [${r.nodes.map((n) => `${n.target.join(' ')}: ${n.any.map((a) => a.data?.messageKey ?? a.data?.contrastRatio ?? '?').join('/')}`).join('; ')}]`
+			);
 			return { violations: result.violations, passed: result.passes.map((r) => r.id), review };
 		});
 		return { ...found, drawing: await page.evaluate(measureDrawingText) };
@@ -215,7 +274,13 @@ async function audit(check: Check, theme: 'light' | 'dark', session: Map<string,
 
 const where = (c: Check, theme: string) => `${theme} ${c.path}${c.note ? ` (${c.note})` : ''}`;
 const describeAll = (c: Check, theme: string, list: Violation[]) =>
-	list.map((v) => `${where(c, theme)}: [${v.impact}] ${v.id}: ${v.help} at ${v.nodes.map((n) => n.target.join(' ')).slice(0, 5).join(' | ')}${v.nodes.length > 5 ? ` (+${v.nodes.length - 5})` : ''}`);
+	list.map(
+		(v) =>
+			`${where(c, theme)}: [${v.impact}] ${v.id}: ${v.help} at ${v.nodes
+				.map((n) => n.target.join(' '))
+				.slice(0, 5)
+				.join(' | ')}${v.nodes.length > 5 ? ` (+${v.nodes.length - 5})` : ''}`
+	);
 const isSerious = (v: Violation) => v.impact === 'serious' || v.impact === 'critical';
 
 async function auditAll(checks: Check[], theme: 'light' | 'dark', session: Map<string, string>) {
@@ -226,9 +291,19 @@ async function auditAll(checks: Check[], theme: 'light' | 'dark', session: Map<s
 		expect(found.passed, `${where(check, theme)}: axe measured no text contrast`).toContain('color-contrast');
 		serious.push(...describeAll(check, theme, found.violations.filter(isSerious)));
 		serious.push(...found.drawing.faint.map((f) => `${where(check, theme)}: [serious] drawing text below the contrast minimum: ${f}`));
-		for (const line of describeAll(check, theme, found.violations.filter((v) => !isSerious(v)))) console.log(`axe (lesser) ${line}`);
-		const drawn = found.drawing.measured || found.drawing.overPhoto ? `; drawing labels: ${found.drawing.measured} measured, ${found.drawing.faint.length} too faint${found.drawing.overPhoto ? `, ${found.drawing.overPhoto} over the photo` : ''}` : '';
-		console.log(`axe ${where(check, theme)}: ${found.passed.length} rules passed, ${found.violations.length} violated${drawn}${found.review.length ? `; for a person to review: ${found.review.join(', ')}` : ''}`);
+		for (const line of describeAll(
+			check,
+			theme,
+			found.violations.filter((v) => !isSerious(v))
+		))
+			console.log(`axe (lesser) ${line}`);
+		const drawn =
+			found.drawing.measured || found.drawing.overPhoto
+				? `; drawing labels: ${found.drawing.measured} measured, ${found.drawing.faint.length} too faint${found.drawing.overPhoto ? `, ${found.drawing.overPhoto} over the photo` : ''}`
+				: '';
+		console.log(
+			`axe ${where(check, theme)}: ${found.passed.length} rules passed, ${found.violations.length} violated${drawn}${found.review.length ? `; for a person to review: ${found.review.join(', ')}` : ''}`
+		);
 	}
 	return serious;
 }
@@ -253,7 +328,11 @@ describe('axe-core on every main page, light and dark', () => {
 				const page = await context.newPage();
 				const address = new URL('/unavailable-page-check', baseUrl).href;
 				await page.route(address, (route) =>
-					route.fulfill({ status: 503, body: unavailablePage(theme), headers: { 'content-type': 'text/html; charset=utf-8', 'content-security-policy': unavailablePagePolicy } })
+					route.fulfill({
+						status: 503,
+						body: unavailablePage(theme),
+						headers: { 'content-type': 'text/html; charset=utf-8', 'content-security-policy': unavailablePagePolicy }
+					})
 				);
 				const refused: string[] = [];
 				page.on('console', (m) => /Content Security Policy/i.test(m.text()) && refused.push(m.text()));
@@ -264,7 +343,9 @@ describe('axe-core on every main page, light and dark', () => {
 				expect(refused).toEqual([]);
 				await page.evaluate(axeSource);
 				const found = await page.evaluate(async () => {
-					const axe = (window as unknown as { axe: { run: (ctx: Document) => Promise<{ violations: Violation[]; passes: { id: string }[] }> } }).axe;
+					const axe = (
+						window as unknown as { axe: { run: (ctx: Document) => Promise<{ violations: Violation[]; passes: { id: string }[] }> } }
+					).axe;
 					const result = await axe.run(document);
 					return { violations: result.violations.map((v) => `${v.id}: ${v.help}`), passed: result.passes.map((r) => r.id) };
 				});
@@ -282,7 +363,9 @@ describe('axe-core on every main page, light and dark', () => {
 		const context = await browser.newContext({ bypassCSP: true });
 		try {
 			const page = await context.newPage();
-			await page.setContent('<!doctype html><html lang="en"><head><title>t</title></head><body><main><input type="text"><p style="color:#bbb;background:#fff">faint</p></main></body></html>');
+			await page.setContent(
+				'<!doctype html><html lang="en"><head><title>t</title></head><body><main><input type="text"><p style="color:#bbb;background:#fff">faint</p></main></body></html>'
+			);
 			await page.addScriptTag({ content: axeSource });
 			const ids = await page.evaluate(async () => {
 				const axe = (window as unknown as { axe: { run: (ctx: Document) => Promise<{ violations: Violation[] }> } }).axe;

@@ -28,6 +28,8 @@ export async function launch(): Promise<Browser> {
 export async function contextFor(browser: Browser, cookies: Map<string, string>, options: Parameters<Browser['newContext']>[0] = {}) {
 	const context = await browser.newContext(options);
 	const url = new URL(baseUrl);
-	await context.addCookies([...cookies].map(([name, value]) => ({ name, value, domain: url.hostname, path: '/', httpOnly: true, sameSite: 'Lax' as const })));
+	await context.addCookies(
+		[...cookies].map(([name, value]) => ({ name, value, domain: url.hostname, path: '/', httpOnly: true, sameSite: 'Lax' as const }))
+	);
 	return context;
 }

@@ -18,7 +18,10 @@ const named = [
 	{ name: 'Thorne T740 roadster', engine: '744 cc parallel twin, 360° crank' },
 	{ name: 'Yarrow Y650 street tracker', engine: '653 cc parallel twin, 360° crank' }
 ];
-const spares = Array.from({ length: 20 }, (_, i) => ({ name: `Spare build ${String(i + 1).padStart(2, '0')}`, engine: 'Kart single, 2-stroke' }));
+const spares = Array.from({ length: 20 }, (_, i) => ({
+	name: `Spare build ${String(i + 1).padStart(2, '0')}`,
+	engine: 'Kart single, 2-stroke'
+}));
 
 beforeAll(async () => {
 	browser = await launch();
@@ -54,7 +57,9 @@ describe('the builds list in Chromium', () => {
 
 		await page.getByLabel('Search builds').fill('hx450');
 		await expect.poll(() => rows(page).count()).toBe(2);
-		expect(await rows(page).allInnerTexts()).toEqual(expect.arrayContaining([expect.stringContaining('Harrow HX450 K1'), expect.stringContaining('Harrow HX450 cafe racer')]));
+		expect(await rows(page).allInnerTexts()).toEqual(
+			expect.arrayContaining([expect.stringContaining('Harrow HX450 K1'), expect.stringContaining('Harrow HX450 cafe racer')])
+		);
 		await expect.poll(() => query(page).get('q')).toBe('hx450');
 		expect(await pageLine(page)).toMatch(/Page 1 of 1/);
 		expect(await sameDocument()).toBe('yes');
@@ -114,7 +119,9 @@ describe('a build’s page in Chromium', () => {
 		await page.waitForURL(/\/builds\/[0-9a-f-]{36}$/);
 		const buildId = new URL(page.url()).pathname.split('/').pop()!;
 		expect(await page.getByRole('heading', { level: 1 }).innerText()).toBe('Thorne T740 roadster');
-		expect(await page.getByRole('link', { name: 'Build sheet (PDF)' }).getAttribute('href')).toBe(`/api/v1/builds/${buildId}/build-sheet.pdf`);
+		expect(await page.getByRole('link', { name: 'Build sheet (PDF)' }).getAttribute('href')).toBe(
+			`/api/v1/builds/${buildId}/build-sheet.pdf`
+		);
 		expect(await page.getByRole('link', { name: 'Set up the engine profile' }).getAttribute('href')).toBe(`/phasing?build=${buildId}`);
 
 		// A reading out of range is refused beside its field (the API names it params.a).
@@ -133,7 +140,9 @@ describe('a build’s page in Chromium', () => {
 		expect(record).toMatch(/TDC 0\.5° ATDC of the scale’s 0/);
 		expect(record).toMatch(/from marks 14° BTDC and 15° ATDC, signed scale/);
 		expect(await page.locator('#tdc-a-error').count()).toBe(0);
-		expect(await page.getByTestId('tdc-records').getByRole('link', { name: 'Open in tool' }).getAttribute('href')).toBe('/tdc?a=14+BTDC&b=15+ATDC&scale=signed');
+		expect(await page.getByTestId('tdc-records').getByRole('link', { name: 'Open in tool' }).getAttribute('href')).toBe(
+			'/tdc?a=14+BTDC&b=15+ATDC&scale=signed'
+		);
 
 		// A wheel design saved through the API shows after a reload, with its head revision's files.
 		const design = await owner.send<{ id: string; revision: number }>('POST', `/api/v1/builds/${buildId}/designs`, {
@@ -145,7 +154,9 @@ describe('a build’s page in Chromium', () => {
 		await page.reload();
 		const designs = page.getByTestId('designs');
 		expect(await designs.innerText()).toContain('Crank wheel 36-1');
-		expect(await designs.getByRole('link', { name: 'DXF' }).getAttribute('href')).toBe(`/api/v1/designs/${design.body.id}/revisions/1/wheel.dxf`);
+		expect(await designs.getByRole('link', { name: 'DXF' }).getAttribute('href')).toBe(
+			`/api/v1/designs/${design.body.id}/revisions/1/wheel.dxf`
+		);
 		expect(await designs.getByRole('link', { name: 'Open in designer' }).getAttribute('href')).toBe(`/wheel?design=${design.body.id}`);
 
 		// The cutting package goes to a fresh address.

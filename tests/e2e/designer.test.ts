@@ -37,7 +37,9 @@ describe('wheel designer in Chromium (signed out)', () => {
 		const file = join(screenshots, '..', download.suggestedFilename());
 		await download.saveAs(file);
 		// Read back by ezdxf: a clean audit (see tests/support/dxf_facts.py for the full checks).
-		const facts = JSON.parse(execFileSync('/usr/bin/python3', [join(import.meta.dirname, '..', 'support', 'dxf_facts.py'), file, '100'], { encoding: 'utf8' }));
+		const facts = JSON.parse(
+			execFileSync('/usr/bin/python3', [join(import.meta.dirname, '..', 'support', 'dxf_facts.py'), file, '100'], { encoding: 'utf8' })
+		);
 		expect(facts).toMatchObject({ auditErrors: 0, openEnds: 0, tipArcs: 58, insunits: 4 });
 		await context.close();
 	});

@@ -47,7 +47,12 @@ describe('phasing check in Chromium (signed out)', () => {
 		// The address follows, so the link shares the check.
 		await expect.poll(() => new URL(page.url()).searchParams.get('keyAngle')).toBe('5');
 		const shared = new URL(page.url()).searchParams;
-		expect([shared.get('input'), shared.get('layout'), shared.get('vAngle'), shared.get('toothAtTdc')]).toEqual(['angles', 'v-twin', '52', null]);
+		expect([shared.get('input'), shared.get('layout'), shared.get('vAngle'), shared.get('toothAtTdc')]).toEqual([
+			'angles',
+			'v-twin',
+			'52',
+			null
+		]);
 
 		// The build sheet: nothing to download until the wheel's size is known.
 		const sheet = page.getByTestId('build-sheet');
@@ -61,13 +66,19 @@ describe('phasing check in Chromium (signed out)', () => {
 		await page.getByLabel('Second piston-stop mark (°)').fill('19');
 		await expect.poll(() => new URL(page.url()).searchParams.get('tdcB')).toBe('19');
 		// The name goes as buildName: `build` in a tool's address is a build's id.
-		expect([new URL(page.url()).searchParams.get('buildName'), new URL(page.url()).searchParams.get('build')]).toEqual(['Twin 52 test', null]);
+		expect([new URL(page.url()).searchParams.get('buildName'), new URL(page.url()).searchParams.get('build')]).toEqual([
+			'Twin 52 test',
+			null
+		]);
 		// Every name the form put in the address is a registered parameter of the check or the sheet.
 		const registered = new Set<string>([...phasingParams.names, ...buildSheetParams.names]);
 		expect([...new URL(page.url()).searchParams.keys()].filter((k) => !registered.has(k))).toEqual([]);
 		await page.screenshot({ path: join(screenshots, 'phasing-angles-v-twin.png'), fullPage: true });
 
-		const [download] = await Promise.all([page.waitForEvent('download'), sheet.getByRole('link', { name: 'Download build sheet (PDF)' }).click()]);
+		const [download] = await Promise.all([
+			page.waitForEvent('download'),
+			sheet.getByRole('link', { name: 'Download build sheet (PDF)' }).click()
+		]);
 		expect(download.suggestedFilename()).toBe('build-sheet-twin-52-test.pdf');
 		const file = join(screenshots, '..', download.suggestedFilename());
 		await download.saveAs(file);

@@ -57,7 +57,17 @@ describe('wheel photos and the photo reading in Chromium', () => {
 
 		// A 36-1 wheel drawn from the project's own SVG export (so its truth is the geometry a user
 		// would cut), turned, a little blurred and noisy, as a phone might take it.
-		const shot = await syntheticWheelPhoto({ teeth: 36, missing: 1, width: 1600, height: 1200, rotationDeg: 37, noise: 4, blur: 1, tips: 3, seed: 11 });
+		const shot = await syntheticWheelPhoto({
+			teeth: 36,
+			missing: 1,
+			width: 1600,
+			height: 1200,
+			rotationDeg: 37,
+			noise: 4,
+			blur: 1,
+			tips: 3,
+			seed: 11
+		});
 		expect([shot.truth.teeth, shot.truth.missing]).toEqual([36, 1]);
 		const dir = mkdtempSync(join(tmpdir(), 'pw-photos-'));
 		const photoFile = join(dir, 'wheel-36-1.jpg');
@@ -81,7 +91,9 @@ describe('wheel photos and the photo reading in Chromium', () => {
 		await expect.poll(() => thumbnail.evaluate((img: HTMLImageElement) => img.complete && img.naturalWidth > 0)).toBe(true);
 
 		// A text file named like a JPEG is refused by its bytes, and the refusal names the file.
-		await page.getByLabel('Choose photos').setInputFiles({ name: 'wheel.jpg', mimeType: 'image/jpeg', buffer: Buffer.from('just some text, not a photo') });
+		await page
+			.getByLabel('Choose photos')
+			.setInputFiles({ name: 'wheel.jpg', mimeType: 'image/jpeg', buffer: Buffer.from('just some text, not a photo') });
 		const refused = page.getByTestId('photo-upload').filter({ hasText: 'wheel.jpg' }).filter({ hasNotText: 'wheel-36-1' });
 		await expect.poll(() => refused.getAttribute('data-status'), { timeout: 10_000 }).toBe('refused');
 		expect(await refused.getByRole('alert').innerText()).toMatch(/^“wheel\.jpg”: JPEG, PNG or WebP only/);
@@ -141,7 +153,16 @@ describe('wheel photos and the photo reading in Chromium', () => {
 		// The photo is shown about 360 px wide on this phone, so one screen px is about 4.5 image px.
 		expect(Math.hypot(touched.x - shot.taps.centre.x, touched.y - shot.taps.centre.y)).toBeLessThan(8);
 		await mobile.getByRole('button', { name: 'Read the teeth' }).tap();
-		await expect.poll(() => mobile.getByTestId('reading-pattern').innerText().catch(() => ''), { timeout: 20_000 }).toBe('36-1');
+		await expect
+			.poll(
+				() =>
+					mobile
+						.getByTestId('reading-pattern')
+						.innerText()
+						.catch(() => ''),
+				{ timeout: 20_000 }
+			)
+			.toBe('36-1');
 		await expect.poll(() => mobile.getByTestId('found-gap').count()).toBe(1);
 		// Touch targets: every button on the page at least 44 px high (WCAG 2.5.5, the project's min-h-tap).
 		const heights = await mobile.locator('main button').evaluateAll((els) => els.map((el) => el.getBoundingClientRect().height));

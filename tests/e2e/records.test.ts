@@ -15,7 +15,10 @@ beforeAll(async () => {
 });
 afterAll(() => browser?.close());
 
-type Overview = { tdcRecords: { label: string; tdcDeg: string; params: Record<string, string> }[]; tapes: { label: string; params: Record<string, string> }[] };
+type Overview = {
+	tdcRecords: { label: string; tdcDeg: string; params: Record<string, string> }[];
+	tapes: { label: string; params: Record<string, string> }[];
+};
 
 describe('saving tool results into a build (Chromium)', () => {
 	it('keeps a TDC record from the TDC finder, with the TDC half-way between the marks', async () => {
@@ -31,11 +34,15 @@ describe('saving tool results into a build (Chromium)', () => {
 		await page.getByText('Saved in the build.').waitFor();
 		const { body } = await client.json<Overview>(`/api/v1/builds/${buildId}`);
 		// Marks 29° apart: TDC 14.5° from each, at 0.5° (common practice); −14 on the signed scale is 14 BTDC.
-		expect(body.tdcRecords).toMatchObject([{ label: 'hot, after the run', tdcDeg: '0.5', params: { a: '14 BTDC', b: '15 ATDC', scale: 'signed', rotation: 'cw' } }]);
+		expect(body.tdcRecords).toMatchObject([
+			{ label: 'hot, after the run', tdcDeg: '0.5', params: { a: '14 BTDC', b: '15 ATDC', scale: 'signed', rotation: 'cw' } }
+		]);
 		// The build page lists it with its sides.
 		await page.setViewportSize({ width: 390, height: 844 });
 		await page.goto(`${baseUrl}/builds/${buildId}`);
-		await expect.poll(() => page.getByTestId('tdc-records').innerText()).toMatch(/TDC 0\.5° ATDC of the scale’s 0\s+from marks 14° BTDC and 15° ATDC, signed scale/);
+		await expect
+			.poll(() => page.getByTestId('tdc-records').innerText())
+			.toMatch(/TDC 0\.5° ATDC of the scale’s 0\s+from marks 14° BTDC and 15° ATDC, signed scale/);
 		await page.getByTestId('tdc-records').screenshot({ path: join(screenshots, 'build-tdc-records.png') });
 	});
 

@@ -51,7 +51,10 @@ describe('wheel design revisions in Chromium: save, history, restore, conflict',
 		await page.waitForURL(`${baseUrl}/builds`);
 
 		const api = await apiAs(context);
-		const created = await api.send<{ id: string }>('POST', '/api/v1/builds', { name: 'Kart 125 single', engine: '125 cc two-stroke single' });
+		const created = await api.send<{ id: string }>('POST', '/api/v1/builds', {
+			name: 'Kart 125 single',
+			engine: '125 cc two-stroke single'
+		});
 		expect(created.status).toBe(201);
 		const buildId = created.body.id;
 
@@ -104,8 +107,12 @@ describe('wheel design revisions in Chromium: save, history, restore, conflict',
 		const dxf = await api.get(`/api/v1/designs/${designId}/revisions/1/wheel.dxf`);
 		expect(dxf.status).toBe(200);
 		expect(dxf.headers.get('content-disposition')).toContain('r1.dxf');
-		expect(await revisionItem(1).getByRole('link', { name: 'Download revision 1 as DXF' }).getAttribute('href')).toBe(`/api/v1/designs/${designId}/revisions/1/wheel.dxf`);
-		expect(await revisionItem(1).getByRole('link', { name: 'Open in designer: revision 1' }).getAttribute('href')).toBe(`/wheel?design=${designId}&revision=1`);
+		expect(await revisionItem(1).getByRole('link', { name: 'Download revision 1 as DXF' }).getAttribute('href')).toBe(
+			`/api/v1/designs/${designId}/revisions/1/wheel.dxf`
+		);
+		expect(await revisionItem(1).getByRole('link', { name: 'Open in designer: revision 1' }).getAttribute('href')).toBe(
+			`/wheel?design=${designId}&revision=1`
+		);
 		await page.screenshot({ path: join(screenshots, 'revisions-history.png'), fullPage: true });
 		const phone = await context.newPage();
 		await phone.setViewportSize({ width: 390, height: 844 });
@@ -192,7 +199,9 @@ describe('wheel design revisions in Chromium: save, history, restore, conflict',
 		// Signed in at the bare designer: the wheel can go into one of the workshop's builds.
 		await page.goto(`${baseUrl}/wheel`);
 		expect(await page.getByTestId('design-context').count()).toBe(0);
-		await expect.poll(async () => (await page.getByLabel('Build', { exact: true }).locator('option').allInnerTexts()).join('|')).toContain('Kart 125 single');
+		await expect
+			.poll(async () => (await page.getByLabel('Build', { exact: true }).locator('option').allInnerTexts()).join('|'))
+			.toContain('Kart 125 single');
 		await setWheel(page, { 'Teeth (N)': '12', 'Missing (M)': '1' });
 		await page.getByLabel('Design name').fill('Cam wheel');
 		await page.getByRole('button', { name: 'Save to build' }).click();

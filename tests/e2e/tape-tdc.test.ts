@@ -35,7 +35,9 @@ describe('TDC finder and degree tape in Chromium (signed out)', () => {
 		// right past the pointer (3D rim model, src/lib/trade/hub.test.ts), so the 4.5 ATDC graduation,
 		// under the pointer at true TDC, trails 0 on its left.
 		await expect.poll(() => page.getByTestId('tdc-remark').innerText()).toMatch(/2\.99 mm along the rim.*to the left of it on a tape/);
-		expect(await page.getByTestId('tdc-pointer').innerText()).toMatch(/the way the crank turns, over the old 0 \(clockwise seen from the wheel side\)/);
+		expect(await page.getByTestId('tdc-pointer').innerText()).toMatch(
+			/the way the crank turns, over the old 0 \(clockwise seen from the wheel side\)/
+		);
 		// The drawing, seen from the wheel side (clockwise crank: BTDC clockwise of 0, ahead of it): with
 		// TDC under the pointer at 12 o'clock, the 10 BTDC stop lies right of the top and 19 ATDC left.
 		const x = async (id: string) => Number(await page.getByTestId(id).getAttribute('x'));
@@ -49,7 +51,9 @@ describe('TDC finder and degree tape in Chromium (signed out)', () => {
 		await expect.poll(() => page.getByTestId('tdc-result').innerText()).toBe('—');
 		await expect.poll(() => page.locator('#tdc-b-error').innerText()).toMatch(/Both readings lie ATDC of 0.*10 BTDC and 19 ATDC/);
 		await page.getByLabel('Scale on your wheel or tape').selectOption('quadrant');
-		await expect.poll(() => page.locator('#tdc-a-error').innerText()).toMatch(/on a 0–90–0 wheel.*like 10 BTDC, 19 ATDC, 30 BBDC or 30 ABDC/);
+		await expect
+			.poll(() => page.locator('#tdc-a-error').innerText())
+			.toMatch(/on a 0–90–0 wheel.*like 10 BTDC, 19 ATDC, 30 BBDC or 30 ABDC/);
 		await page.getByLabel('First mark').fill('10 BTDC');
 		await page.getByLabel('Second mark').fill('19 ATDC');
 		await expect.poll(() => page.getByTestId('tdc-result').innerText()).toBe('4.5° ATDC');

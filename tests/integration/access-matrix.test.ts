@@ -28,7 +28,13 @@ const roles = ['anonymous', 'viewer', 'editor', 'owner', 'stranger'] as const;
 type Role = (typeof roles)[number];
 
 /** One row's expected statuses, in the table's column order. */
-const e = (anonymous: number, viewer: number, editor: number, owner: number, stranger: number): Record<Role, number> => ({ anonymous, viewer, editor, owner, stranger });
+const e = (anonymous: number, viewer: number, editor: number, owner: number, stranger: number): Record<Role, number> => ({
+	anonymous,
+	viewer,
+	editor,
+	owner,
+	stranger
+});
 
 /** One workshop's objects, one of each kind. */
 interface Ids {
@@ -78,7 +84,11 @@ interface Row {
 
 // ---- Calls ----
 
-const textOf = async (res: Response): Promise<Answer> => ({ status: res.status, location: res.headers.get('location'), body: await res.text() });
+const textOf = async (res: Response): Promise<Answer> => ({
+	status: res.status,
+	location: res.headers.get('location'),
+	body: await res.text()
+});
 const page = async (c: Client, path: string) => textOf(await c.get(path, { accept: 'text/html' }));
 const getApi = async (c: Client, path: string) => textOf(await c.get(path, { accept: 'application/json' }));
 async function send(c: Client, method: 'POST' | 'PUT' | 'PATCH' | 'DELETE', path: string, body?: unknown): Promise<Answer> {
@@ -99,7 +109,9 @@ const wheelQuery = new URLSearchParams(wheel).toString();
 
 async function head(designId: string) {
 	if (!/^[0-9a-f-]{36}$/.test(designId)) return 1;
-	const { rows } = await database.execute<{ n: number | null }>(sql`select max(number)::int as n from wheel_revision where design_id = ${designId}`);
+	const { rows } = await database.execute<{ n: number | null }>(
+		sql`select max(number)::int as n from wheel_revision where design_id = ${designId}`
+	);
 	return rows[0]!.n ?? 1;
 }
 
@@ -109,7 +121,9 @@ async function userIdOf(email: string) {
 }
 
 async function smallPng(shade = 128) {
-	return sharp({ create: { width: 16, height: 12, channels: 3, background: { r: shade, g: shade, b: shade } } }).png().toBuffer();
+	return sharp({ create: { width: 16, height: 12, channels: 3, background: { r: shade, g: shade, b: shade } } })
+		.png()
+		.toBuffer();
 }
 
 function photoForm(bytes: Uint8Array, name: string) {
@@ -166,7 +180,10 @@ async function pendingInvitation(owner: Client, label: string) {
 	return { id: rows[0]!.id, token: new URL(mail.link).pathname.split('/').pop()!, email };
 }
 
-async function created<T extends { id: string }>(answer: Promise<{ status: number; body: T | Record<string, unknown> }>, what: string): Promise<string> {
+async function created<T extends { id: string }>(
+	answer: Promise<{ status: number; body: T | Record<string, unknown> }>,
+	what: string
+): Promise<string> {
 	const res = await answer;
 	if (res.status !== 201) throw new Error(`${what}: ${res.status} ${JSON.stringify(res.body)}`);
 	return String((res.body as { id?: string; photos?: { id: string }[] }).id ?? (res.body as { photos: { id: string }[] }).photos[0]!.id);
@@ -186,21 +203,66 @@ async function shop(word: string, photo: { bytes: Uint8Array }): Promise<Shop> {
 		fabricator: freshEmail(`${word.toLowerCase()}-fabricator`),
 		invitee: ''
 	};
-	const build = await created(owner.send<{ id: string }>('POST', `/api/v1/builds?workshop=${workshop.id}`, { name: names.build, engine: `${word} engine ${tag}` }), 'build');
+	const build = await created(
+		owner.send<{ id: string }>('POST', `/api/v1/builds?workshop=${workshop.id}`, { name: names.build, engine: `${word} engine ${tag}` }),
+		'build'
+	);
 	expect((await owner.send('PUT', `/api/v1/builds/${build}/engine`, { params: engine })).status).toBe(200);
-	const design = await created(owner.send<{ id: string }>('POST', `/api/v1/builds/${build}/designs`, { name: names.design, params: wheel }), 'design');
-	const tdc = await created(owner.send<{ id: string }>('POST', `/api/v1/builds/${build}/tdc-records`, { label: `${word} tdc ${tag}`, params: { a: '-14', b: '15' } }), 'TDC record');
-	const tape = await created(owner.send<{ id: string }>('POST', `/api/v1/builds/${build}/tapes`, { label: `${word} tape ${tag}`, params: { units: 'mm', diameter: '120' } }), 'tape');
-	const photoId = await created(owner.send<{ id: string }>('POST', `/api/v1/builds/${build}/photos`, photoForm(photo.bytes, names.photo)), 'photo');
-	expect((await owner.send('POST', `/api/v1/builds/${build}/cutting-packages`, { designId: design, to: names.fabricator, quantity: 1 })).status).toBe(201);
+	const design = await created(
+		owner.send<{ id: string }>('POST', `/api/v1/builds/${build}/designs`, { name: names.design, params: wheel }),
+		'design'
+	);
+	const tdc = await created(
+		owner.send<{ id: string }>('POST', `/api/v1/builds/${build}/tdc-records`, {
+			label: `${word} tdc ${tag}`,
+			params: { a: '-14', b: '15' }
+		}),
+		'TDC record'
+	);
+	const tape = await created(
+		owner.send<{ id: string }>('POST', `/api/v1/builds/${build}/tapes`, {
+			label: `${word} tape ${tag}`,
+			params: { units: 'mm', diameter: '120' }
+		}),
+		'tape'
+	);
+	const photoId = await created(
+		owner.send<{ id: string }>('POST', `/api/v1/builds/${build}/photos`, photoForm(photo.bytes, names.photo)),
+		'photo'
+	);
+	expect(
+		(await owner.send('POST', `/api/v1/builds/${build}/cutting-packages`, { designId: design, to: names.fabricator, quantity: 1 })).status
+	).toBe(201);
 	const invitation = await pendingInvitation(owner, `${word.toLowerCase()}-invitee`);
 	names.invitee = invitation.email;
 	return {
 		owner,
 		ownerEmail,
-		ids: { workshop: workshop.id, build, design, tdc, tape, photo: photoId, invitation: invitation.id, token: invitation.token, member: await userIdOf(ownerEmail) },
+		ids: {
+			workshop: workshop.id,
+			build,
+			design,
+			tdc,
+			tape,
+			photo: photoId,
+			invitation: invitation.id,
+			token: invitation.token,
+			member: await userIdOf(ownerEmail)
+		},
 		names,
-		secrets: [names.workshop, names.build, names.design, names.photo, names.fabricator, names.invitee, ownerName, ownerEmail, `${word} tdc ${tag}`, `${word} tape ${tag}`, `${word} engine ${tag}`]
+		secrets: [
+			names.workshop,
+			names.build,
+			names.design,
+			names.photo,
+			names.fabricator,
+			names.invitee,
+			ownerName,
+			ownerEmail,
+			`${word} tdc ${tag}`,
+			`${word} tape ${tag}`,
+			`${word} engine ${tag}`
+		]
 	};
 }
 
@@ -222,10 +284,30 @@ beforeAll(async () => {
 // ---- Throwaway objects for destructive rows (made by A's owner) ----
 
 const fresh = {
-	build: async (ids: Ids) => ({ build: await created(a.owner.send<{ id: string }>('POST', `/api/v1/builds?workshop=${ids.workshop}`, { name: unique('Throwaway build') }), 'throwaway build') }),
-	tdc: async (ids: Ids) => ({ tdc: await created(a.owner.send<{ id: string }>('POST', `/api/v1/builds/${ids.build}/tdc-records`, { params: { a: '-10', b: '10' } }), 'throwaway TDC record') }),
-	tape: async (ids: Ids) => ({ tape: await created(a.owner.send<{ id: string }>('POST', `/api/v1/builds/${ids.build}/tapes`, { params: { units: 'mm', diameter: '90' } }), 'throwaway tape') }),
-	photo: async (ids: Ids) => ({ photo: await created(a.owner.send<{ id: string }>('POST', `/api/v1/builds/${ids.build}/photos`, photoForm(await smallPng(200), 'throwaway.png')), 'throwaway photo') }),
+	build: async (ids: Ids) => ({
+		build: await created(
+			a.owner.send<{ id: string }>('POST', `/api/v1/builds?workshop=${ids.workshop}`, { name: unique('Throwaway build') }),
+			'throwaway build'
+		)
+	}),
+	tdc: async (ids: Ids) => ({
+		tdc: await created(
+			a.owner.send<{ id: string }>('POST', `/api/v1/builds/${ids.build}/tdc-records`, { params: { a: '-10', b: '10' } }),
+			'throwaway TDC record'
+		)
+	}),
+	tape: async (ids: Ids) => ({
+		tape: await created(
+			a.owner.send<{ id: string }>('POST', `/api/v1/builds/${ids.build}/tapes`, { params: { units: 'mm', diameter: '90' } }),
+			'throwaway tape'
+		)
+	}),
+	photo: async (ids: Ids) => ({
+		photo: await created(
+			a.owner.send<{ id: string }>('POST', `/api/v1/builds/${ids.build}/photos`, photoForm(await smallPng(200), 'throwaway.png')),
+			'throwaway photo'
+		)
+	}),
 	invitation: async () => ({ invitation: (await pendingInvitation(a.owner, 'throwaway-invitee')).id }),
 	member: async () => ({ member: await userIdOf((await joinAs(a.owner, 'viewer', unique('Throwaway member'))).email) })
 };
@@ -233,53 +315,257 @@ const fresh = {
 // ---- The table ----
 // Columns of e(...): anonymous, viewer, editor, owner, stranger (the owner of another workshop).
 
-const publicTool = (route: string, query: string): Row => ({ route: `GET ${route}`, object: 'none (a public tool)', expect: e(200, 200, 200, 200, 200), call: (c) => getApi(c, `${route}?${query}`) });
+const publicTool = (route: string, query: string): Row => ({
+	route: `GET ${route}`,
+	object: 'none (a public tool)',
+	expect: e(200, 200, 200, 200, 200),
+	call: (c) => getApi(c, `${route}?${query}`)
+});
 
 const table: Row[] = [
 	// Pages
 	{ route: 'GET /', object: 'none', expect: e(200, 200, 200, 200, 200), call: (c) => page(c, '/') },
-	{ route: 'GET /builds', object: 'workshop: its builds', expect: e(303, 200, 200, 200, 200), call: (c) => page(c, '/builds'), shows: () => a.names.build },
-	{ route: 'GET /builds/[buildId]', object: 'build', expect: e(303, 200, 200, 200, 404), call: (c, i) => page(c, `/builds/${i.build}`), shows: () => a.names.design, guess: ['build'] },
-	{ route: 'GET /builds/[buildId]/designs/[designId]', object: 'wheel design, revisions', expect: e(303, 200, 200, 200, 404), call: (c, i) => page(c, `/builds/${i.build}/designs/${i.design}`), shows: () => a.names.design, guess: ['build', 'design'] },
-	{ route: 'GET /builds/[buildId]/photos/[photoId]', object: 'wheel photo', expect: e(303, 200, 200, 200, 404), call: (c, i) => page(c, `/builds/${i.build}/photos/${i.photo}`), shows: () => a.names.photo, guess: ['build', 'photo'] },
-	{ route: 'GET /workshop', object: 'workshop: members, invitations', expect: e(303, 200, 200, 200, 200), call: (c) => page(c, '/workshop'), shows: () => a.names.workshop },
-	{ route: 'GET /invite/[token]', object: 'invitation', expect: e(200, 200, 200, 200, 200), call: (c, i) => page(c, `/invite/${i.token}`), shows: () => a.names.workshop, openLink: 'the invitation link is the capability: whoever holds it sees which workshop invites' },
-	{ route: 'GET /reset/[token]', object: 'none (a made-up reset token)', expect: e(200, 200, 200, 200, 200), call: (c) => page(c, `/reset/${randomUUID()}`) },
+	{
+		route: 'GET /builds',
+		object: 'workshop: its builds',
+		expect: e(303, 200, 200, 200, 200),
+		call: (c) => page(c, '/builds'),
+		shows: () => a.names.build
+	},
+	{
+		route: 'GET /builds/[buildId]',
+		object: 'build',
+		expect: e(303, 200, 200, 200, 404),
+		call: (c, i) => page(c, `/builds/${i.build}`),
+		shows: () => a.names.design,
+		guess: ['build']
+	},
+	{
+		route: 'GET /builds/[buildId]/designs/[designId]',
+		object: 'wheel design, revisions',
+		expect: e(303, 200, 200, 200, 404),
+		call: (c, i) => page(c, `/builds/${i.build}/designs/${i.design}`),
+		shows: () => a.names.design,
+		guess: ['build', 'design']
+	},
+	{
+		route: 'GET /builds/[buildId]/photos/[photoId]',
+		object: 'wheel photo',
+		expect: e(303, 200, 200, 200, 404),
+		call: (c, i) => page(c, `/builds/${i.build}/photos/${i.photo}`),
+		shows: () => a.names.photo,
+		guess: ['build', 'photo']
+	},
+	{
+		route: 'GET /workshop',
+		object: 'workshop: members, invitations',
+		expect: e(303, 200, 200, 200, 200),
+		call: (c) => page(c, '/workshop'),
+		shows: () => a.names.workshop
+	},
+	{
+		route: 'GET /invite/[token]',
+		object: 'invitation',
+		expect: e(200, 200, 200, 200, 200),
+		call: (c, i) => page(c, `/invite/${i.token}`),
+		shows: () => a.names.workshop,
+		openLink: 'the invitation link is the capability: whoever holds it sees which workshop invites'
+	},
+	{
+		route: 'GET /reset/[token]',
+		object: 'none (a made-up reset token)',
+		expect: e(200, 200, 200, 200, 200),
+		call: (c) => page(c, `/reset/${randomUUID()}`)
+	},
 	{ route: 'GET /signin', object: 'none', expect: e(200, 303, 303, 303, 303), call: (c) => page(c, '/signin'), to: '/builds' },
 	{ route: 'GET /signup', object: 'none', expect: e(200, 303, 303, 303, 303), call: (c) => page(c, '/signup'), to: '/builds' },
 	{ route: 'GET /account', object: 'the caller’s own account', expect: e(303, 200, 200, 200, 200), call: (c) => page(c, '/account') },
-	{ route: 'GET /signout', object: 'none', expect: e(303, 303, 303, 303, 303), call: (c) => page(c, '/signout'), to: '/', anonymousTo: '/' },
-	{ route: 'GET /dev/mail', object: 'the local mailbox', expect: e(200, 200, 200, 200, 200), call: (c) => page(c, '/dev/mail'), openLink: 'the local SMTP fake’s mailbox: only while the scripts run the fake, only to loopback under the configured host' },
-	{ route: 'GET /dev/mail/[messageId]/[index]', note: 'a made-up message', object: 'an attachment in the local mailbox', expect: e(404, 404, 404, 404, 404), call: (c) => page(c, '/dev/mail/no-such-message/0') },
+	{
+		route: 'GET /signout',
+		object: 'none',
+		expect: e(303, 303, 303, 303, 303),
+		call: (c) => page(c, '/signout'),
+		to: '/',
+		anonymousTo: '/'
+	},
+	{
+		route: 'GET /dev/mail',
+		object: 'the local mailbox',
+		expect: e(200, 200, 200, 200, 200),
+		call: (c) => page(c, '/dev/mail'),
+		openLink: 'the local SMTP fake’s mailbox: only while the scripts run the fake, only to loopback under the configured host'
+	},
+	{
+		route: 'GET /dev/mail/[messageId]/[index]',
+		note: 'a made-up message',
+		object: 'an attachment in the local mailbox',
+		expect: e(404, 404, 404, 404, 404),
+		call: (c) => page(c, '/dev/mail/no-such-message/0')
+	},
 	// Pages without a server load that open an object through the API (SvelteKit's fetch, with the session).
-	{ route: 'GET /wheel?design=[designId]', object: 'wheel design (the designer)', expect: e(200, 200, 200, 200, 200), call: (c, i) => page(c, `/wheel?design=${i.design}`), shows: () => a.names.design, guess: ['design'], guessed: 200, malformed: { design: 200 } },
-	{ route: 'GET /wheel?build=[buildId]', object: 'build (the designer)', expect: e(200, 200, 200, 200, 200), call: (c, i) => page(c, `/wheel?build=${i.build}`), shows: () => a.names.build, guess: ['build'], guessed: 200, malformed: { build: 200 } },
+	{
+		route: 'GET /wheel?design=[designId]',
+		object: 'wheel design (the designer)',
+		expect: e(200, 200, 200, 200, 200),
+		call: (c, i) => page(c, `/wheel?design=${i.design}`),
+		shows: () => a.names.design,
+		guess: ['design'],
+		guessed: 200,
+		malformed: { design: 200 }
+	},
+	{
+		route: 'GET /wheel?build=[buildId]',
+		object: 'build (the designer)',
+		expect: e(200, 200, 200, 200, 200),
+		call: (c, i) => page(c, `/wheel?build=${i.build}`),
+		shows: () => a.names.build,
+		guess: ['build'],
+		guessed: 200,
+		malformed: { build: 200 }
+	},
 
 	// Form actions
-	{ route: 'POST /builds?/create', object: 'build (in the caller’s current workshop)', expect: e(303, 403, 200, 200, 200), call: (c) => act(c, '/builds', 'create', { name: unique('Form build') }) },
-	{ route: 'POST /builds?/rename', object: 'build', expect: e(303, 403, 200, 200, 404), fresh: fresh.build, call: (c, i) => act(c, '/builds', 'rename', { buildId: i.build, name: unique('Renamed') }), guess: ['build'], malformed: { build: 400 } },
-	{ route: 'POST /builds?/delete', object: 'build', expect: e(303, 403, 200, 200, 404), fresh: fresh.build, call: (c, i) => act(c, '/builds', 'delete', { buildId: i.build }), guess: ['build'], malformed: { build: 400 } },
-	{ route: 'POST /workshop?/invite', note: 'into a workshop named by id', object: 'workshop, invitation', expect: e(303, 403, 403, 200, 404), call: (c, i) => act(c, '/workshop', 'invite', { email: freshEmail('matrix-invitee'), role: 'viewer', workshopId: i.workshop }), guess: ['workshop'], malformed: { workshop: 400 } },
-	{ route: 'POST /workshop?/invite', note: 'from a build’s page', object: 'build, invitation', expect: e(303, 403, 403, 200, 404), call: (c, i) => act(c, '/workshop', 'invite', { email: freshEmail('matrix-invitee'), role: 'viewer', buildId: i.build }), guess: ['build'], malformed: { build: 400 } },
-	{ route: 'POST /workshop?/role', object: 'member', expect: e(303, 403, 403, 200, 404), call: (c, i) => act(c, '/workshop', 'role', { userId: i.member, role: 'viewer' }), guess: ['member'], malformed: { member: 400 } },
-	{ route: 'POST /workshop?/remove', object: 'member', expect: e(303, 403, 403, 200, 404), fresh: fresh.member, call: (c, i) => act(c, '/workshop', 'remove', { userId: i.member }), guess: ['member'], malformed: { member: 400 } },
-	{ route: 'POST /workshop?/revoke', object: 'invitation', expect: e(303, 403, 403, 200, 404), fresh: fresh.invitation, call: (c, i) => act(c, '/workshop', 'revoke', { invitationId: i.invitation }), guess: ['invitation'], malformed: { invitation: 400 } },
-	{ route: 'POST /workshop?/switch', object: 'workshop', expect: e(303, 303, 303, 303, 404), call: (c, i) => act(c, '/workshop', 'switch', { workshopId: i.workshop, redirectTo: '/builds' }), to: '/builds', guess: ['workshop'], malformed: { workshop: 400 } },
+	{
+		route: 'POST /builds?/create',
+		object: 'build (in the caller’s current workshop)',
+		expect: e(303, 403, 200, 200, 200),
+		call: (c) => act(c, '/builds', 'create', { name: unique('Form build') })
+	},
+	{
+		route: 'POST /builds?/rename',
+		object: 'build',
+		expect: e(303, 403, 200, 200, 404),
+		fresh: fresh.build,
+		call: (c, i) => act(c, '/builds', 'rename', { buildId: i.build, name: unique('Renamed') }),
+		guess: ['build'],
+		malformed: { build: 400 }
+	},
+	{
+		route: 'POST /builds?/delete',
+		object: 'build',
+		expect: e(303, 403, 200, 200, 404),
+		fresh: fresh.build,
+		call: (c, i) => act(c, '/builds', 'delete', { buildId: i.build }),
+		guess: ['build'],
+		malformed: { build: 400 }
+	},
+	{
+		route: 'POST /workshop?/invite',
+		note: 'into a workshop named by id',
+		object: 'workshop, invitation',
+		expect: e(303, 403, 403, 200, 404),
+		call: (c, i) => act(c, '/workshop', 'invite', { email: freshEmail('matrix-invitee'), role: 'viewer', workshopId: i.workshop }),
+		guess: ['workshop'],
+		malformed: { workshop: 400 }
+	},
+	{
+		route: 'POST /workshop?/invite',
+		note: 'from a build’s page',
+		object: 'build, invitation',
+		expect: e(303, 403, 403, 200, 404),
+		call: (c, i) => act(c, '/workshop', 'invite', { email: freshEmail('matrix-invitee'), role: 'viewer', buildId: i.build }),
+		guess: ['build'],
+		malformed: { build: 400 }
+	},
+	{
+		route: 'POST /workshop?/role',
+		object: 'member',
+		expect: e(303, 403, 403, 200, 404),
+		call: (c, i) => act(c, '/workshop', 'role', { userId: i.member, role: 'viewer' }),
+		guess: ['member'],
+		malformed: { member: 400 }
+	},
+	{
+		route: 'POST /workshop?/remove',
+		object: 'member',
+		expect: e(303, 403, 403, 200, 404),
+		fresh: fresh.member,
+		call: (c, i) => act(c, '/workshop', 'remove', { userId: i.member }),
+		guess: ['member'],
+		malformed: { member: 400 }
+	},
+	{
+		route: 'POST /workshop?/revoke',
+		object: 'invitation',
+		expect: e(303, 403, 403, 200, 404),
+		fresh: fresh.invitation,
+		call: (c, i) => act(c, '/workshop', 'revoke', { invitationId: i.invitation }),
+		guess: ['invitation'],
+		malformed: { invitation: 400 }
+	},
+	{
+		route: 'POST /workshop?/switch',
+		object: 'workshop',
+		expect: e(303, 303, 303, 303, 404),
+		call: (c, i) => act(c, '/workshop', 'switch', { workshopId: i.workshop, redirectTo: '/builds' }),
+		to: '/builds',
+		guess: ['workshop'],
+		malformed: { workshop: 400 }
+	},
 	// Addressed to nobody here: accepting it is refused to every account (403 wrong-account).
-	{ route: 'POST /invite/[token]', object: 'invitation', expect: e(303, 403, 403, 403, 403), call: (c, i) => act(c, `/invite/${i.token}`, '', {}) },
+	{
+		route: 'POST /invite/[token]',
+		object: 'invitation',
+		expect: e(303, 403, 403, 403, 403),
+		call: (c, i) => act(c, `/invite/${i.token}`, '', {})
+	},
 	// Account forms: open to all; blank fields, so each answers its 400 and nothing happens.
-	{ route: 'POST /signin?/password', object: 'none', expect: e(400, 400, 400, 400, 400), call: (c) => act(c, '/signin', 'password', { email: '', password: '' }) },
-	{ route: 'POST /signin?/link', object: 'none', expect: e(400, 400, 400, 400, 400), call: (c) => act(c, '/signin', 'link', { email: '' }) },
-	{ route: 'POST /signup', object: 'none', expect: e(400, 400, 400, 400, 400), call: (c) => act(c, '/signup', '', { name: '', email: '', password: '' }) },
+	{
+		route: 'POST /signin?/password',
+		object: 'none',
+		expect: e(400, 400, 400, 400, 400),
+		call: (c) => act(c, '/signin', 'password', { email: '', password: '' })
+	},
+	{
+		route: 'POST /signin?/link',
+		object: 'none',
+		expect: e(400, 400, 400, 400, 400),
+		call: (c) => act(c, '/signin', 'link', { email: '' })
+	},
+	{
+		route: 'POST /signup',
+		object: 'none',
+		expect: e(400, 400, 400, 400, 400),
+		call: (c) => act(c, '/signup', '', { name: '', email: '', password: '' })
+	},
 	{ route: 'POST /reset', object: 'none', expect: e(400, 400, 400, 400, 400), call: (c) => act(c, '/reset', '', { email: '' }) },
-	{ route: 'POST /reset/[token]', object: 'none (a made-up reset token)', expect: e(400, 400, 400, 400, 400), call: (c) => act(c, `/reset/${randomUUID()}`, '', { password: '', confirm: '' }) },
+	{
+		route: 'POST /reset/[token]',
+		object: 'none (a made-up reset token)',
+		expect: e(400, 400, 400, 400, 400),
+		call: (c) => act(c, `/reset/${randomUUID()}`, '', { password: '', confirm: '' })
+	},
 	// Sign-out ends the session the cookie names, copies of the cookie included: a second session of the same person signs out.
-	{ route: 'POST /signout', object: 'the caller’s session', expect: e(303, 303, 303, 303, 303), call: async (_c, _i, as) => act(await secondSession(as), '/signout', '', {}), to: '/', anonymousTo: '/' },
-	{ route: 'POST /account?/password', note: 'fields left empty', object: 'the caller’s own password', expect: e(303, 400, 400, 400, 400), call: (c) => act(c, '/account', 'password', { current: '', password: '', confirm: '' }) },
-	{ route: 'POST /account?/confirm', note: 'every caller’s address is confirmed', object: 'the caller’s own address', expect: e(303, 409, 409, 409, 409), call: (c) => act(c, '/account', 'confirm', {}) },
+	{
+		route: 'POST /signout',
+		object: 'the caller’s session',
+		expect: e(303, 303, 303, 303, 303),
+		call: async (_c, _i, as) => act(await secondSession(as), '/signout', '', {}),
+		to: '/',
+		anonymousTo: '/'
+	},
+	{
+		route: 'POST /account?/password',
+		note: 'fields left empty',
+		object: 'the caller’s own password',
+		expect: e(303, 400, 400, 400, 400),
+		call: (c) => act(c, '/account', 'password', { current: '', password: '', confirm: '' })
+	},
+	{
+		route: 'POST /account?/confirm',
+		note: 'every caller’s address is confirmed',
+		object: 'the caller’s own address',
+		expect: e(303, 409, 409, 409, 409),
+		call: (c) => act(c, '/account', 'confirm', {})
+	},
 
 	// API: public tools, the same for everyone
-	{ route: 'GET /api/bench/static', object: 'none (the benchmarks’ floor: only in npm run bench’s own build, never in build/)', expect: e(404, 404, 404, 404, 404), call: (c) => getApi(c, '/api/bench/static?bytes=10') },
+	{
+		route: 'GET /api/bench/static',
+		object: 'none (the benchmarks’ floor: only in npm run bench’s own build, never in build/)',
+		expect: e(404, 404, 404, 404, 404),
+		call: (c) => getApi(c, '/api/bench/static?bytes=10')
+	},
 	{ route: 'GET /api/health', object: 'none', expect: e(200, 200, 200, 200, 200), call: (c) => getApi(c, '/api/health') },
 	publicTool('/api/v1/wheel', wheelQuery),
 	publicTool('/api/v1/wheel.dxf', wheelQuery),
@@ -293,45 +579,238 @@ const table: Row[] = [
 	publicTool('/api/v1/build-sheet.pdf', new URLSearchParams({ ...wheel, ...engine, buildName: 'Matrix single' }).toString()),
 
 	// API: a workshop's builds
-	{ route: 'GET /api/v1/builds', object: 'workshop: its builds', expect: e(401, 200, 200, 200, 404), call: (c, i) => getApi(c, `/api/v1/builds?workshop=${i.workshop}`), shows: () => a.names.build, guess: ['workshop'], malformed: { workshop: 400 } },
-	{ route: 'POST /api/v1/builds', object: 'workshop: a new build', expect: e(401, 403, 201, 201, 404), call: (c, i) => send(c, 'POST', `/api/v1/builds?workshop=${i.workshop}`, { name: unique('API build') }), guess: ['workshop'] },
-	{ route: 'GET /api/v1/builds/[buildId]', object: 'build and all it holds', expect: e(401, 200, 200, 200, 404), call: (c, i) => getApi(c, `/api/v1/builds/${i.build}`), shows: () => a.names.photo, guess: ['build'] },
-	{ route: 'PATCH /api/v1/builds/[buildId]', object: 'build', expect: e(401, 403, 200, 200, 404), call: (c, i, as) => send(c, 'PATCH', `/api/v1/builds/${i.build}`, { notes: unique(`notes by ${as}`) }), guess: ['build'] },
-	{ route: 'DELETE /api/v1/builds/[buildId]', object: 'build', expect: e(401, 403, 204, 204, 404), fresh: fresh.build, call: (c, i) => send(c, 'DELETE', `/api/v1/builds/${i.build}`), guess: ['build'] },
-	{ route: 'GET /api/v1/builds/[buildId]/build-sheet.pdf', object: 'build, design, revision, TDC record, tape', expect: e(401, 200, 200, 200, 404), call: (c, i) => getApi(c, `/api/v1/builds/${i.build}/build-sheet.pdf`), guess: ['build'] },
-	{ route: 'GET /api/v1/builds/[buildId]/cutting-packages', object: 'cutting package', expect: e(401, 200, 200, 200, 404), call: (c, i) => getApi(c, `/api/v1/builds/${i.build}/cutting-packages`), shows: () => a.names.fabricator, guess: ['build'] },
-	{ route: 'POST /api/v1/builds/[buildId]/cutting-packages', object: 'cutting package of a revision', expect: e(401, 403, 201, 201, 404), call: (c, i) => send(c, 'POST', `/api/v1/builds/${i.build}/cutting-packages`, { designId: i.design, to: freshEmail('matrix-fabricator'), quantity: 1 }), guess: ['build', 'design'], malformed: { design: 400 } },
-	{ route: 'GET /api/v1/builds/[buildId]/designs', object: 'wheel designs', expect: e(401, 200, 200, 200, 404), call: (c, i) => getApi(c, `/api/v1/builds/${i.build}/designs`), shows: () => a.names.design, guess: ['build'] },
-	{ route: 'POST /api/v1/builds/[buildId]/designs', object: 'a new wheel design', expect: e(401, 403, 201, 201, 404), call: (c, i) => send(c, 'POST', `/api/v1/builds/${i.build}/designs`, { name: unique('API wheel'), params: wheel }), guess: ['build'] },
-	{ route: 'PUT /api/v1/builds/[buildId]/engine', object: 'build: engine profile', expect: e(401, 403, 200, 200, 404), call: (c, i) => send(c, 'PUT', `/api/v1/builds/${i.build}/engine`, { params: engine }), guess: ['build'] },
-	{ route: 'GET /api/v1/builds/[buildId]/photos', object: 'wheel photos', expect: e(401, 200, 200, 200, 404), call: (c, i) => getApi(c, `/api/v1/builds/${i.build}/photos`), shows: () => a.names.photo, guess: ['build'] },
-	{ route: 'POST /api/v1/builds/[buildId]/photos', object: 'a new wheel photo', expect: e(401, 403, 201, 201, 404), call: async (c, i) => send(c, 'POST', `/api/v1/builds/${i.build}/photos`, photoForm(await smallPng(60), 'matrix.png')), guess: ['build'] },
-	{ route: 'POST /api/v1/builds/[buildId]/tapes', object: 'a new degree tape', expect: e(401, 403, 201, 201, 404), call: (c, i) => send(c, 'POST', `/api/v1/builds/${i.build}/tapes`, { params: { units: 'mm', diameter: '100' } }), guess: ['build'] },
-	{ route: 'DELETE /api/v1/builds/[buildId]/tapes/[recordId]', object: 'degree tape', expect: e(401, 403, 204, 204, 404), fresh: fresh.tape, call: (c, i) => send(c, 'DELETE', `/api/v1/builds/${i.build}/tapes/${i.tape}`), guess: ['build', 'tape'] },
-	{ route: 'POST /api/v1/builds/[buildId]/tdc-records', object: 'a new TDC record', expect: e(401, 403, 201, 201, 404), call: (c, i) => send(c, 'POST', `/api/v1/builds/${i.build}/tdc-records`, { params: { a: '-12', b: '12' } }), guess: ['build'] },
-	{ route: 'DELETE /api/v1/builds/[buildId]/tdc-records/[recordId]', object: 'TDC record', expect: e(401, 403, 204, 204, 404), fresh: fresh.tdc, call: (c, i) => send(c, 'DELETE', `/api/v1/builds/${i.build}/tdc-records/${i.tdc}`), guess: ['build', 'tdc'] },
+	{
+		route: 'GET /api/v1/builds',
+		object: 'workshop: its builds',
+		expect: e(401, 200, 200, 200, 404),
+		call: (c, i) => getApi(c, `/api/v1/builds?workshop=${i.workshop}`),
+		shows: () => a.names.build,
+		guess: ['workshop'],
+		malformed: { workshop: 400 }
+	},
+	{
+		route: 'POST /api/v1/builds',
+		object: 'workshop: a new build',
+		expect: e(401, 403, 201, 201, 404),
+		call: (c, i) => send(c, 'POST', `/api/v1/builds?workshop=${i.workshop}`, { name: unique('API build') }),
+		guess: ['workshop']
+	},
+	{
+		route: 'GET /api/v1/builds/[buildId]',
+		object: 'build and all it holds',
+		expect: e(401, 200, 200, 200, 404),
+		call: (c, i) => getApi(c, `/api/v1/builds/${i.build}`),
+		shows: () => a.names.photo,
+		guess: ['build']
+	},
+	{
+		route: 'PATCH /api/v1/builds/[buildId]',
+		object: 'build',
+		expect: e(401, 403, 200, 200, 404),
+		call: (c, i, as) => send(c, 'PATCH', `/api/v1/builds/${i.build}`, { notes: unique(`notes by ${as}`) }),
+		guess: ['build']
+	},
+	{
+		route: 'DELETE /api/v1/builds/[buildId]',
+		object: 'build',
+		expect: e(401, 403, 204, 204, 404),
+		fresh: fresh.build,
+		call: (c, i) => send(c, 'DELETE', `/api/v1/builds/${i.build}`),
+		guess: ['build']
+	},
+	{
+		route: 'GET /api/v1/builds/[buildId]/build-sheet.pdf',
+		object: 'build, design, revision, TDC record, tape',
+		expect: e(401, 200, 200, 200, 404),
+		call: (c, i) => getApi(c, `/api/v1/builds/${i.build}/build-sheet.pdf`),
+		guess: ['build']
+	},
+	{
+		route: 'GET /api/v1/builds/[buildId]/cutting-packages',
+		object: 'cutting package',
+		expect: e(401, 200, 200, 200, 404),
+		call: (c, i) => getApi(c, `/api/v1/builds/${i.build}/cutting-packages`),
+		shows: () => a.names.fabricator,
+		guess: ['build']
+	},
+	{
+		route: 'POST /api/v1/builds/[buildId]/cutting-packages',
+		object: 'cutting package of a revision',
+		expect: e(401, 403, 201, 201, 404),
+		call: (c, i) =>
+			send(c, 'POST', `/api/v1/builds/${i.build}/cutting-packages`, {
+				designId: i.design,
+				to: freshEmail('matrix-fabricator'),
+				quantity: 1
+			}),
+		guess: ['build', 'design'],
+		malformed: { design: 400 }
+	},
+	{
+		route: 'GET /api/v1/builds/[buildId]/designs',
+		object: 'wheel designs',
+		expect: e(401, 200, 200, 200, 404),
+		call: (c, i) => getApi(c, `/api/v1/builds/${i.build}/designs`),
+		shows: () => a.names.design,
+		guess: ['build']
+	},
+	{
+		route: 'POST /api/v1/builds/[buildId]/designs',
+		object: 'a new wheel design',
+		expect: e(401, 403, 201, 201, 404),
+		call: (c, i) => send(c, 'POST', `/api/v1/builds/${i.build}/designs`, { name: unique('API wheel'), params: wheel }),
+		guess: ['build']
+	},
+	{
+		route: 'PUT /api/v1/builds/[buildId]/engine',
+		object: 'build: engine profile',
+		expect: e(401, 403, 200, 200, 404),
+		call: (c, i) => send(c, 'PUT', `/api/v1/builds/${i.build}/engine`, { params: engine }),
+		guess: ['build']
+	},
+	{
+		route: 'GET /api/v1/builds/[buildId]/photos',
+		object: 'wheel photos',
+		expect: e(401, 200, 200, 200, 404),
+		call: (c, i) => getApi(c, `/api/v1/builds/${i.build}/photos`),
+		shows: () => a.names.photo,
+		guess: ['build']
+	},
+	{
+		route: 'POST /api/v1/builds/[buildId]/photos',
+		object: 'a new wheel photo',
+		expect: e(401, 403, 201, 201, 404),
+		call: async (c, i) => send(c, 'POST', `/api/v1/builds/${i.build}/photos`, photoForm(await smallPng(60), 'matrix.png')),
+		guess: ['build']
+	},
+	{
+		route: 'POST /api/v1/builds/[buildId]/tapes',
+		object: 'a new degree tape',
+		expect: e(401, 403, 201, 201, 404),
+		call: (c, i) => send(c, 'POST', `/api/v1/builds/${i.build}/tapes`, { params: { units: 'mm', diameter: '100' } }),
+		guess: ['build']
+	},
+	{
+		route: 'DELETE /api/v1/builds/[buildId]/tapes/[recordId]',
+		object: 'degree tape',
+		expect: e(401, 403, 204, 204, 404),
+		fresh: fresh.tape,
+		call: (c, i) => send(c, 'DELETE', `/api/v1/builds/${i.build}/tapes/${i.tape}`),
+		guess: ['build', 'tape']
+	},
+	{
+		route: 'POST /api/v1/builds/[buildId]/tdc-records',
+		object: 'a new TDC record',
+		expect: e(401, 403, 201, 201, 404),
+		call: (c, i) => send(c, 'POST', `/api/v1/builds/${i.build}/tdc-records`, { params: { a: '-12', b: '12' } }),
+		guess: ['build']
+	},
+	{
+		route: 'DELETE /api/v1/builds/[buildId]/tdc-records/[recordId]',
+		object: 'TDC record',
+		expect: e(401, 403, 204, 204, 404),
+		fresh: fresh.tdc,
+		call: (c, i) => send(c, 'DELETE', `/api/v1/builds/${i.build}/tdc-records/${i.tdc}`),
+		guess: ['build', 'tdc']
+	},
 
 	// API: wheel designs and revisions
-	{ route: 'GET /api/v1/designs/[designId]', object: 'wheel design, revisions', expect: e(401, 200, 200, 200, 404), call: (c, i) => getApi(c, `/api/v1/designs/${i.design}`), shows: () => a.names.design, guess: ['design'] },
-	{ route: 'GET /api/v1/designs/[designId]/compare', object: 'two revisions', expect: e(401, 200, 200, 200, 404), call: (c, i) => getApi(c, `/api/v1/designs/${i.design}/compare?a=1&b=1`), guess: ['design'] },
-	{ route: 'POST /api/v1/designs/[designId]/restore', object: 'a new revision from an old one', expect: e(401, 403, 201, 201, 404), call: async (c, i) => send(c, 'POST', `/api/v1/designs/${i.design}/restore`, { revision: 1, baseRevision: await head(i.design) }), guess: ['design'] },
-	{ route: 'GET /api/v1/designs/[designId]/revisions', object: 'revisions', expect: e(401, 200, 200, 200, 404), call: (c, i) => getApi(c, `/api/v1/designs/${i.design}/revisions`), guess: ['design'] },
-	{ route: 'POST /api/v1/designs/[designId]/revisions', object: 'a new revision', expect: e(401, 403, 201, 201, 404), call: async (c, i, as) => send(c, 'POST', `/api/v1/designs/${i.design}/revisions`, { baseRevision: await head(i.design), params: wheel, message: `saved by ${as}` }), guess: ['design'] },
-	{ route: 'GET /api/v1/designs/[designId]/revisions/[number]', object: 'revision', expect: e(401, 200, 200, 200, 404), call: (c, i) => getApi(c, `/api/v1/designs/${i.design}/revisions/1`), guess: ['design'] },
-	...(['wheel.dxf', 'wheel.svg', 'wheel.pdf'] as const).map((file): Row => ({ route: 'GET /api/v1/designs/[designId]/revisions/[number]/[file]', note: file, object: 'revision as a file', expect: e(401, 200, 200, 200, 404), call: (c, i) => getApi(c, `/api/v1/designs/${i.design}/revisions/1/${file}`), guess: ['design'] })),
+	{
+		route: 'GET /api/v1/designs/[designId]',
+		object: 'wheel design, revisions',
+		expect: e(401, 200, 200, 200, 404),
+		call: (c, i) => getApi(c, `/api/v1/designs/${i.design}`),
+		shows: () => a.names.design,
+		guess: ['design']
+	},
+	{
+		route: 'GET /api/v1/designs/[designId]/compare',
+		object: 'two revisions',
+		expect: e(401, 200, 200, 200, 404),
+		call: (c, i) => getApi(c, `/api/v1/designs/${i.design}/compare?a=1&b=1`),
+		guess: ['design']
+	},
+	{
+		route: 'POST /api/v1/designs/[designId]/restore',
+		object: 'a new revision from an old one',
+		expect: e(401, 403, 201, 201, 404),
+		call: async (c, i) => send(c, 'POST', `/api/v1/designs/${i.design}/restore`, { revision: 1, baseRevision: await head(i.design) }),
+		guess: ['design']
+	},
+	{
+		route: 'GET /api/v1/designs/[designId]/revisions',
+		object: 'revisions',
+		expect: e(401, 200, 200, 200, 404),
+		call: (c, i) => getApi(c, `/api/v1/designs/${i.design}/revisions`),
+		guess: ['design']
+	},
+	{
+		route: 'POST /api/v1/designs/[designId]/revisions',
+		object: 'a new revision',
+		expect: e(401, 403, 201, 201, 404),
+		call: async (c, i, as) =>
+			send(c, 'POST', `/api/v1/designs/${i.design}/revisions`, {
+				baseRevision: await head(i.design),
+				params: wheel,
+				message: `saved by ${as}`
+			}),
+		guess: ['design']
+	},
+	{
+		route: 'GET /api/v1/designs/[designId]/revisions/[number]',
+		object: 'revision',
+		expect: e(401, 200, 200, 200, 404),
+		call: (c, i) => getApi(c, `/api/v1/designs/${i.design}/revisions/1`),
+		guess: ['design']
+	},
+	...(['wheel.dxf', 'wheel.svg', 'wheel.pdf'] as const).map((file): Row => ({
+		route: 'GET /api/v1/designs/[designId]/revisions/[number]/[file]',
+		note: file,
+		object: 'revision as a file',
+		expect: e(401, 200, 200, 200, 404),
+		call: (c, i) => getApi(c, `/api/v1/designs/${i.design}/revisions/1/${file}`),
+		guess: ['design']
+	})),
 
 	// API: wheel photos
-	{ route: 'GET /api/v1/photos/[photoId]', object: 'wheel photo', expect: e(401, 200, 200, 200, 404), call: (c, i) => getApi(c, `/api/v1/photos/${i.photo}`), guess: ['photo'] },
-	{ route: 'DELETE /api/v1/photos/[photoId]', object: 'wheel photo', expect: e(401, 403, 204, 204, 404), fresh: fresh.photo, call: (c, i) => send(c, 'DELETE', `/api/v1/photos/${i.photo}`), guess: ['photo'] },
+	{
+		route: 'GET /api/v1/photos/[photoId]',
+		object: 'wheel photo',
+		expect: e(401, 200, 200, 200, 404),
+		call: (c, i) => getApi(c, `/api/v1/photos/${i.photo}`),
+		guess: ['photo']
+	},
+	{
+		route: 'DELETE /api/v1/photos/[photoId]',
+		object: 'wheel photo',
+		expect: e(401, 403, 204, 204, 404),
+		fresh: fresh.photo,
+		call: (c, i) => send(c, 'DELETE', `/api/v1/photos/${i.photo}`),
+		guess: ['photo']
+	},
 	// Anyone who may read the build may try a reading; only editors and owners store it.
-	{ route: 'POST /api/v1/photos/[photoId]/reading', object: 'photo reading', expect: e(401, 200, 200, 200, 404), call: (c, i) => send(c, 'POST', `/api/v1/photos/${i.photo}/reading`, { ...taps, odMm: 100 }), guess: ['photo'], changesNothingFor: ['viewer'] },
-	{ route: 'GET /api/v1/photos/[photoId]/thumbnail', object: 'wheel photo', expect: e(401, 200, 200, 200, 404), call: (c, i) => getApi(c, `/api/v1/photos/${i.photo}/thumbnail`), guess: ['photo'] }
+	{
+		route: 'POST /api/v1/photos/[photoId]/reading',
+		object: 'photo reading',
+		expect: e(401, 200, 200, 200, 404),
+		call: (c, i) => send(c, 'POST', `/api/v1/photos/${i.photo}/reading`, { ...taps, odMm: 100 }),
+		guess: ['photo'],
+		changesNothingFor: ['viewer']
+	},
+	{
+		route: 'GET /api/v1/photos/[photoId]/thumbnail',
+		object: 'wheel photo',
+		expect: e(401, 200, 200, 200, 404),
+		call: (c, i) => getApi(c, `/api/v1/photos/${i.photo}/thumbnail`),
+		guess: ['photo']
+	}
 ];
 
 /** Routes left out of the table, each with its reason. */
 const notInTable: Record<string, string> = {
 	'POST /account?/everywhere': 'ends every session of the caller, the table’s own callers with it; account-takeover.test.ts tries it',
-	'POST /dev/mail?/clear': 'empties the local mailbox the other tests read; the page exists only where MAILBOX_URL is set, never in production'
+	'POST /dev/mail?/clear':
+		'empties the local mailbox the other tests read; the page exists only where MAILBOX_URL is set, never in production'
 };
 
 // ---- What is compared before and after ----
@@ -369,41 +848,52 @@ function cloneOf(client: Client) {
 
 describe('the access matrix', () => {
 	for (const row of table) {
-		it(rowName(row), async () => {
-			const problems: string[] = [];
-			for (const role of roles) {
-				const ids = row.fresh ? { ...a.ids, ...(await row.fresh(a.ids)) } : a.ids;
-				const [beforeA, beforeB] = await both();
-				const answer = await row.call(clients[role], ids, role);
-				const [afterA, afterB] = await both();
-				const want = row.expect[role];
-				const say = (what: string) => problems.push(`${role}: ${what}`);
-				if (answer.status !== want) say(`expected ${want}, got ${answer.status}: ${answer.body.slice(0, 160)}`);
-				if (answer.status === 303) {
-					const to = role === 'anonymous' ? (row.anonymousTo ?? '/signin?redirectTo=') : row.to;
-					if (to && !answer.location?.startsWith(to)) say(`redirected to ${answer.location}, expected ${to}…`);
+		it(
+			rowName(row),
+			async () => {
+				const problems: string[] = [];
+				for (const role of roles) {
+					const ids = row.fresh ? { ...a.ids, ...(await row.fresh(a.ids)) } : a.ids;
+					const [beforeA, beforeB] = await both();
+					const answer = await row.call(clients[role], ids, role);
+					const [afterA, afterB] = await both();
+					const want = row.expect[role];
+					const say = (what: string) => problems.push(`${role}: ${what}`);
+					if (answer.status !== want) say(`expected ${want}, got ${answer.status}: ${answer.body.slice(0, 160)}`);
+					if (answer.status === 303) {
+						const to = role === 'anonymous' ? (row.anonymousTo ?? '/signin?redirectTo=') : row.to;
+						if (to && !answer.location?.startsWith(to)) say(`redirected to ${answer.location}, expected ${to}…`);
+					}
+					if (role === 'anonymous' && answer.status === 401 && !answer.body.includes('"unauthenticated"'))
+						say('401 without code unauthenticated');
+					// Nothing of the workshop reaches a caller outside it.
+					if ((role === 'stranger' || role === 'anonymous') && !row.openLink) {
+						const leaked = found(answer.body, a.secrets);
+						if (leaked.length) say(`answer shows ${leaked.join(', ')}`);
+					}
+					if (role !== 'stranger' && role !== 'anonymous' && !row.openLink) {
+						const leaked = found(answer.body, b.secrets);
+						if (leaked.length) say(`answer shows the other workshop's ${leaked.join(', ')}`);
+					}
+					// Allowed reads show the object (so the leak check above could catch a leak).
+					if (row.shows && ['viewer', 'editor', 'owner'].includes(role) && answer.status === 200 && !answer.body.includes(row.shows(ids)))
+						say(`answer does not show ${row.shows(ids)}`);
+					// What may change: the caller's own workshop, on an allowed write.
+					const method = row.route.split(' ')[0];
+					const mayChangeA =
+						role !== 'stranger' &&
+						role !== 'anonymous' &&
+						!refused(answer.status) &&
+						method !== 'GET' &&
+						!row.changesNothingFor?.includes(role);
+					if (!mayChangeA && afterA !== beforeA) say(`workshop changed (status ${answer.status})`);
+					const mayChangeB = role === 'stranger' && !refused(answer.status) && method !== 'GET';
+					if (!mayChangeB && afterB !== beforeB) say(`the other workshop changed (status ${answer.status})`);
 				}
-				if (role === 'anonymous' && answer.status === 401 && !answer.body.includes('"unauthenticated"')) say('401 without code unauthenticated');
-				// Nothing of the workshop reaches a caller outside it.
-				if ((role === 'stranger' || role === 'anonymous') && !row.openLink) {
-					const leaked = found(answer.body, a.secrets);
-					if (leaked.length) say(`answer shows ${leaked.join(', ')}`);
-				}
-				if (role !== 'stranger' && role !== 'anonymous' && !row.openLink) {
-					const leaked = found(answer.body, b.secrets);
-					if (leaked.length) say(`answer shows the other workshop's ${leaked.join(', ')}`);
-				}
-				// Allowed reads show the object (so the leak check above could catch a leak).
-				if (row.shows && ['viewer', 'editor', 'owner'].includes(role) && answer.status === 200 && !answer.body.includes(row.shows(ids))) say(`answer does not show ${row.shows(ids)}`);
-				// What may change: the caller's own workshop, on an allowed write.
-				const method = row.route.split(' ')[0];
-				const mayChangeA = role !== 'stranger' && role !== 'anonymous' && !refused(answer.status) && method !== 'GET' && !row.changesNothingFor?.includes(role);
-				if (!mayChangeA && afterA !== beforeA) say(`workshop changed (status ${answer.status})`);
-				const mayChangeB = role === 'stranger' && !refused(answer.status) && method !== 'GET';
-				if (!mayChangeB && afterB !== beforeB) say(`the other workshop changed (status ${answer.status})`);
-			}
-			expect(problems).toEqual([]);
-		}, 120_000);
+				expect(problems).toEqual([]);
+			},
+			120_000
+		);
 	}
 });
 
@@ -411,40 +901,47 @@ describe('guessed and foreign ids', () => {
 	const guessable = table.filter((r) => r.guess?.length);
 
 	for (const row of guessable) {
-		it(rowName(row), async () => {
-			const problems: string[] = [];
-			for (const kind of row.guess!) {
-				const variants: [string, string, number][] = [
-					['a made-up id', randomUUID(), row.guessed ?? 404],
-					['the other workshop’s id', b.ids[kind], row.guessed ?? 404],
-					['a malformed id', 'not-a-uuid', row.malformed?.[kind] ?? row.guessed ?? 404]
-				];
-				for (const role of ['owner', 'viewer'] as const) {
-					const statuses: Record<string, number> = {};
-					for (const [label, value, want] of variants) {
-						const base = row.fresh ? { ...a.ids, ...(await row.fresh(a.ids)) } : a.ids;
-						const ids = { ...base, [kind]: value };
-						const [beforeA, beforeB] = await both();
-						const answer = await row.call(role === 'owner' ? a.owner : clients.viewer, ids, role);
-						const [afterA, afterB] = await both();
-						statuses[label] = answer.status;
-						const say = (what: string) => problems.push(`${role}, ${kind} = ${label}: ${what}`);
-						// The owner may do everything: what it gets is what a guess gets.
-						if (role === 'owner' && answer.status !== want) say(`expected ${want}, got ${answer.status}: ${answer.body.slice(0, 160)}`);
-						if (answer.status === 403 && label !== 'a malformed id' && row.expect.viewer !== 403) say('403 reveals that the object exists');
-						const leaked = found(answer.body, b.secrets);
-						if (leaked.length) say(`answer shows the other workshop's ${leaked.join(', ')}`);
-						if (afterA !== beforeA) say(`workshop changed (status ${answer.status})`);
-						if (afterB !== beforeB) say(`the other workshop changed (status ${answer.status})`);
-					}
-					// The other workshop's id and a made-up one cannot be told apart.
-					if (statuses['a made-up id'] !== statuses['the other workshop’s id']) {
-						problems.push(`${role}, ${kind}: a made-up id answers ${statuses['a made-up id']}, the other workshop's ${statuses['the other workshop’s id']}`);
+		it(
+			rowName(row),
+			async () => {
+				const problems: string[] = [];
+				for (const kind of row.guess!) {
+					const variants: [string, string, number][] = [
+						['a made-up id', randomUUID(), row.guessed ?? 404],
+						['the other workshop’s id', b.ids[kind], row.guessed ?? 404],
+						['a malformed id', 'not-a-uuid', row.malformed?.[kind] ?? row.guessed ?? 404]
+					];
+					for (const role of ['owner', 'viewer'] as const) {
+						const statuses: Record<string, number> = {};
+						for (const [label, value, want] of variants) {
+							const base = row.fresh ? { ...a.ids, ...(await row.fresh(a.ids)) } : a.ids;
+							const ids = { ...base, [kind]: value };
+							const [beforeA, beforeB] = await both();
+							const answer = await row.call(role === 'owner' ? a.owner : clients.viewer, ids, role);
+							const [afterA, afterB] = await both();
+							statuses[label] = answer.status;
+							const say = (what: string) => problems.push(`${role}, ${kind} = ${label}: ${what}`);
+							// The owner may do everything: what it gets is what a guess gets.
+							if (role === 'owner' && answer.status !== want) say(`expected ${want}, got ${answer.status}: ${answer.body.slice(0, 160)}`);
+							if (answer.status === 403 && label !== 'a malformed id' && row.expect.viewer !== 403)
+								say('403 reveals that the object exists');
+							const leaked = found(answer.body, b.secrets);
+							if (leaked.length) say(`answer shows the other workshop's ${leaked.join(', ')}`);
+							if (afterA !== beforeA) say(`workshop changed (status ${answer.status})`);
+							if (afterB !== beforeB) say(`the other workshop changed (status ${answer.status})`);
+						}
+						// The other workshop's id and a made-up one cannot be told apart.
+						if (statuses['a made-up id'] !== statuses['the other workshop’s id']) {
+							problems.push(
+								`${role}, ${kind}: a made-up id answers ${statuses['a made-up id']}, the other workshop's ${statuses['the other workshop’s id']}`
+							);
+						}
 					}
 				}
-			}
-			expect(problems).toEqual([]);
-		}, 120_000);
+				expect(problems).toEqual([]);
+			},
+			120_000
+		);
 	}
 
 	it('mixes no objects across workshops in one request: a build here with a design, photo or record there', async () => {
@@ -453,9 +950,26 @@ describe('guessed and foreign ids', () => {
 			['photo page', () => page(a.owner, `/builds/${a.ids.build}/photos/${b.ids.photo}`)],
 			['tape', () => send(a.owner, 'DELETE', `/api/v1/builds/${a.ids.build}/tapes/${b.ids.tape}`)],
 			['TDC record', () => send(a.owner, 'DELETE', `/api/v1/builds/${a.ids.build}/tdc-records/${b.ids.tdc}`)],
-			['cutting package', () => send(a.owner, 'POST', `/api/v1/builds/${a.ids.build}/cutting-packages`, { designId: b.ids.design, to: freshEmail('mixed'), quantity: 1 })],
+			[
+				'cutting package',
+				() =>
+					send(a.owner, 'POST', `/api/v1/builds/${a.ids.build}/cutting-packages`, {
+						designId: b.ids.design,
+						to: freshEmail('mixed'),
+						quantity: 1
+					})
+			],
 			['build sheet', () => getApi(a.owner, `/api/v1/builds/${a.ids.build}/build-sheet.pdf?design=${b.ids.design}`)],
-			['invite', () => act(a.owner, '/workshop', 'invite', { email: freshEmail('mixed'), role: 'viewer', buildId: b.ids.build, workshopId: a.ids.workshop })]
+			[
+				'invite',
+				() =>
+					act(a.owner, '/workshop', 'invite', {
+						email: freshEmail('mixed'),
+						role: 'viewer',
+						buildId: b.ids.build,
+						workshopId: a.ids.workshop
+					})
+			]
 		];
 		const problems: string[] = [];
 		for (const [what, call] of mixed) {
@@ -480,14 +994,19 @@ describe('the table itself', () => {
 				const path = join(dir, name);
 				if (statSync(path).isDirectory()) walk(path);
 				else if (name === '+page.server.ts' || name === '+server.ts') {
-					const route = `/${relative(root, dir).split(sep).filter((s) => s && !/^\(.*\)$/.test(s)).join('/')}`;
+					const route = `/${relative(root, dir)
+						.split(sep)
+						.filter((s) => s && !/^\(.*\)$/.test(s))
+						.join('/')}`;
 					const text = readFileSync(path, 'utf8');
 					if (name === '+server.ts') {
-						for (const m of text.matchAll(/export\s+(?:async\s+)?(?:function|const)\s+(GET|POST|PUT|PATCH|DELETE)\b/g)) out.push(`${m[1]} ${route}`);
+						for (const m of text.matchAll(/export\s+(?:async\s+)?(?:function|const)\s+(GET|POST|PUT|PATCH|DELETE)\b/g))
+							out.push(`${m[1]} ${route}`);
 					} else {
 						if (/export\s+const\s+load\b|export\s+(?:async\s+)?function\s+load\b/.test(text)) out.push(`GET ${route}`);
 						const actions = /export\s+const\s+actions[^=]*=\s*\{([\s\S]*)\};?\s*$/.exec(text)?.[1] ?? '';
-						for (const m of actions.matchAll(/^\t(\w+)\s*:\s*async/gm)) out.push(m[1] === 'default' ? `POST ${route}` : `POST ${route}?/${m[1]}`);
+						for (const m of actions.matchAll(/^\t(\w+)\s*:\s*async/gm))
+							out.push(m[1] === 'default' ? `POST ${route}` : `POST ${route}?/${m[1]}`);
 					}
 				}
 			}
@@ -499,7 +1018,9 @@ describe('the table itself', () => {
 	it('has a row for every page with a server load, every form action and every API method', () => {
 		const declared = declaredRoutes();
 		// The walk itself finds what it should (so this check cannot pass on an empty list).
-		expect(declared).toEqual(expect.arrayContaining(['GET /builds/[buildId]', 'POST /workshop?/invite', 'POST /invite/[token]', 'DELETE /api/v1/photos/[photoId]']));
+		expect(declared).toEqual(
+			expect.arrayContaining(['GET /builds/[buildId]', 'POST /workshop?/invite', 'POST /invite/[token]', 'DELETE /api/v1/photos/[photoId]'])
+		);
 		const inTable = new Set(table.map((r) => r.route));
 		expect(declared.filter((r) => !inTable.has(r) && !(r in notInTable))).toEqual([]);
 	});
@@ -519,7 +1040,10 @@ describe('form actions a page does not define', () => {
 			for (const role of roles) {
 				for (const name of inherited) {
 					const [beforeA, beforeB] = await both();
-					const answer = await act(role === 'anonymous' ? new Client() : cloneOf(clients[role]), concrete(route), name, { name: 'x', email: 'x@example.test' });
+					const answer = await act(role === 'anonymous' ? new Client() : cloneOf(clients[role]), concrete(route), name, {
+						name: 'x',
+						email: 'x@example.test'
+					});
 					const [afterA, afterB] = await both();
 					if (answer.status !== 404) problems.push(`${role} ${route}?/${name}: ${answer.status} ${answer.body.slice(0, 120)}`);
 					if (afterA !== beforeA || afterB !== beforeB) problems.push(`${role} ${route}?/${name}: something changed`);

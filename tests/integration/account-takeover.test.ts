@@ -18,13 +18,29 @@ const app = new URL(appUrl);
 const mailbox = process.env.MAILBOX_URL!;
 
 /** One request with headers fetch will not let us set (Host), as an attacker's client sends it. */
-function raw(method: string, path: string, headers: Record<string, string>, body?: string): Promise<{ status: number; location?: string; text: string }> {
+function raw(
+	method: string,
+	path: string,
+	headers: Record<string, string>,
+	body?: string
+): Promise<{ status: number; location?: string; text: string }> {
 	return new Promise((resolve, reject) => {
-		const req = request({ host: app.hostname, port: app.port, method, path, headers: { ...headers, ...(body ? { 'content-length': String(Buffer.byteLength(body)) } : {}) } }, (res) => {
-			const chunks: Buffer[] = [];
-			res.on('data', (c: Buffer) => chunks.push(c));
-			res.on('end', () => resolve({ status: res.statusCode!, location: res.headers.location, text: Buffer.concat(chunks).toString('utf8') }));
-		});
+		const req = request(
+			{
+				host: app.hostname,
+				port: app.port,
+				method,
+				path,
+				headers: { ...headers, ...(body ? { 'content-length': String(Buffer.byteLength(body)) } : {}) }
+			},
+			(res) => {
+				const chunks: Buffer[] = [];
+				res.on('data', (c: Buffer) => chunks.push(c));
+				res.on('end', () =>
+					resolve({ status: res.statusCode!, location: res.headers.location, text: Buffer.concat(chunks).toString('utf8') })
+				);
+			}
+		);
 		req.on('error', reject);
 		req.end(body);
 	});
@@ -38,7 +54,9 @@ const formPost = (extra: Record<string, string>) => ({
 	...extra
 });
 
-async function messagesTo(address: string): Promise<{ id: string; subject: string; text: string; attachments: { filename: string; contentType: string }[] }[]> {
+async function messagesTo(
+	address: string
+): Promise<{ id: string; subject: string; text: string; attachments: { filename: string; contentType: string }[] }[]> {
 	return (await fetch(`${mailbox}/messages?to=${encodeURIComponent(address)}`)).json();
 }
 
@@ -154,7 +172,10 @@ describe('2. an address is the account holder’s only once a link mailed to it 
 	it('sends a new confirmation link from the account page, and none to a confirmed account', async () => {
 		const email = freshEmail('resend');
 		const client = await signUp('Resend', email, 'long enough password', { confirm: false });
-		expect(await client.action('/account', 'confirm', { redirectTo: '/account' })).toMatchObject({ type: 'success', data: { sent: email } });
+		expect(await client.action('/account', 'confirm', { redirectTo: '/account' })).toMatchObject({
+			type: 'success',
+			data: { sent: email }
+		});
 		expect((await messagesTo(email)).filter((m) => m.subject.startsWith('Confirm your')).length).toBe(2);
 		await client.follow((await mailTo(email, 'Confirm your')).link);
 		expect((await client.action('/account', 'confirm', {})).status).toBe(409);
@@ -187,7 +208,9 @@ describe('3. sessions end on the server', () => {
 		await phone.action('/signin', 'password', { email, password: 'long enough password' });
 		await new Client().action('/reset', '', { email });
 		const path = new URL((await mailTo(email, 'Reset')).link).pathname;
-		expect((await new Client().action(path, '', { password: 'a brand new password', confirm: 'a brand new password' })).type).toBe('redirect');
+		expect((await new Client().action(path, '', { password: 'a brand new password', confirm: 'a brand new password' })).type).toBe(
+			'redirect'
+		);
 		expect([await signedIn(laptop), await signedIn(phone)]).toEqual([false, false]);
 	});
 
@@ -196,12 +219,20 @@ describe('3. sessions end on the server', () => {
 		const laptop = await signUp('Change', email, 'the old password 1');
 		const phone = new Client();
 		await phone.action('/signin', 'password', { email, password: 'the old password 1' });
-		const wrong = await laptop.action('/account', 'password', { current: 'not it at all', password: 'the new password 1', confirm: 'the new password 1' });
+		const wrong = await laptop.action('/account', 'password', {
+			current: 'not it at all',
+			password: 'the new password 1',
+			confirm: 'the new password 1'
+		});
 		expect(wrong.status).toBe(400);
 		expect(wrong.data!.errors).toEqual({ current: 'current: not the current password' });
 		expect(await signedIn(phone)).toBe(true);
 
-		const done = await laptop.action('/account', 'password', { current: 'the old password 1', password: 'the new password 1', confirm: 'the new password 1' });
+		const done = await laptop.action('/account', 'password', {
+			current: 'the old password 1',
+			password: 'the new password 1',
+			confirm: 'the new password 1'
+		});
 		expect(done).toMatchObject({ type: 'success', data: { changed: true } });
 		expect([await signedIn(laptop), await signedIn(phone)]).toEqual([true, false]);
 		expect((await new Client().action('/signin', 'password', { email, password: 'the old password 1' })).status).toBe(400);
@@ -232,13 +263,18 @@ describe('4. the local mailbox', () => {
 		const owner = await signUp('Attach Owner', email);
 		const buildId = (await owner.send<{ id: string }>('POST', '/api/v1/builds', { name: 'Attachment bench', engine: 'single' })).body.id;
 		const params = { units: 'mm', teeth: '36', missing: '1', od: '100', depth: '5', thickness: '3', bore: '20' };
-		const designId = (await owner.send<{ id: string }>('POST', `/api/v1/builds/${buildId}/designs`, { name: 'Attachment wheel', params })).body.id;
+		const designId = (await owner.send<{ id: string }>('POST', `/api/v1/builds/${buildId}/designs`, { name: 'Attachment wheel', params }))
+			.body.id;
 		const fabricator = freshEmail('attach-fab');
-		expect((await owner.send('POST', `/api/v1/builds/${buildId}/cutting-packages`, { designId, to: fabricator, quantity: 1 })).status).toBe(201);
+		expect((await owner.send('POST', `/api/v1/builds/${buildId}/cutting-packages`, { designId, to: fabricator, quantity: 1 })).status).toBe(
+			201
+		);
 		await mailTo(fabricator, 'Cutting order');
 		const [message] = await messagesTo(fabricator);
 		// The SMTP fake's own parse of the message (mailparser) is the oracle.
-		const full = (await (await fetch(`${mailbox}/messages/${message!.id}`)).json()) as { attachments: { filename: string; contentBase64: string }[] };
+		const full = (await (await fetch(`${mailbox}/messages/${message!.id}`)).json()) as {
+			attachments: { filename: string; contentBase64: string }[];
+		};
 		expect(full.attachments.length).toBeGreaterThanOrEqual(2);
 		for (const [i, a] of full.attachments.entries()) {
 			const res = await new Client().get(`/dev/mail/${message!.id}/${i}`);
@@ -254,7 +290,8 @@ describe('4. the local mailbox', () => {
 describe('5. where a sign-in sends the browser', () => {
 	const password = 'long enough password';
 	let email: string;
-	const signInTo = async (redirectTo: string) => (await new Client().action('/signin', 'password', { email, password, redirectTo })).location;
+	const signInTo = async (redirectTo: string) =>
+		(await new Client().action('/signin', 'password', { email, password, redirectTo })).location;
 
 	it('sends any address off this origin to /builds, however it is written', async () => {
 		email = freshEmail('redirects');

@@ -32,7 +32,10 @@ async function demo(database: Database) {
 }
 
 const script = (name: string, args: string[], url: string) =>
-	run(process.execPath, ['--import', 'tsx', join(root, 'scripts', `${name}.ts`), ...args], { cwd: root, env: { ...process.env, DATABASE_URL: url } });
+	run(process.execPath, ['--import', 'tsx', join(root, 'scripts', `${name}.ts`), ...args], {
+		cwd: root,
+		env: { ...process.env, DATABASE_URL: url }
+	});
 
 describe('database backups', () => {
 	it('round-trips the demo data through db:backup and db:restore into another database', async () => {
@@ -65,6 +68,9 @@ describe('database backups', () => {
 	});
 
 	it('refuses to restore a file that is not there, saying how to name one', async () => {
-		await expect(script('db-restore', ['/nonexistent/backup.dump'], copyUrl)).rejects.toMatchObject({ code: 2, stderr: expect.stringContaining('No such backup file') });
+		await expect(script('db-restore', ['/nonexistent/backup.dump'], copyUrl)).rejects.toMatchObject({
+			code: 2,
+			stderr: expect.stringContaining('No such backup file')
+		});
 	});
 });

@@ -26,7 +26,11 @@ async function newBuild(client: Client, name: string, engine = '') {
 }
 
 async function newDesign(client: Client, buildId: string, name = 'Crank wheel') {
-	const res = await client.send<{ id: string; revision: number }>('POST', `/api/v1/builds/${buildId}/designs`, { name, params: wheel, message: 'as drawn' });
+	const res = await client.send<{ id: string; revision: number }>('POST', `/api/v1/builds/${buildId}/designs`, {
+		name,
+		params: wheel,
+		message: 'as drawn'
+	});
 	expect(res).toMatchObject({ status: 201, body: { revision: 1 } });
 	return res.body.id;
 }
@@ -41,7 +45,8 @@ describe('the builds list from the API', () => {
 			['Cedar kart', '125 cc kart'],
 			['Damson V-twin', '45° V-twin'],
 			['Elm 500', '500 cc single']
-		]) await newBuild(me.client, name!, engine);
+		])
+			await newBuild(me.client, name!, engine);
 	});
 
 	it('searches name and engine, case-insensitively', async () => {
@@ -54,7 +59,9 @@ describe('the builds list from the API', () => {
 	});
 
 	it('sorts and pages, reporting the total', async () => {
-		const first = await me.client.json<{ builds: { name: string }[]; total: number; page: number }>('/api/v1/builds?sort=name&dir=desc&size=2');
+		const first = await me.client.json<{ builds: { name: string }[]; total: number; page: number }>(
+			'/api/v1/builds?sort=name&dir=desc&size=2'
+		);
 		expect(first.body.builds.map((b) => b.name)).toEqual(['Elm 500', 'Damson V-twin']);
 		expect(first.body.total).toBe(5);
 		const third = await me.client.json<{ builds: { name: string }[] }>('/api/v1/builds?sort=name&size=2&page=3');
@@ -89,11 +96,24 @@ describe('wheel design revisions', () => {
 	});
 
 	it('saves a revision on the newest base and refuses a stale base with 409, writing nothing', async () => {
-		const second = await me.client.send<{ revision: Revision }>('POST', `/api/v1/designs/${designId}/revisions`, { baseRevision: 1, params: { ...wheel, teeth: '60', missing: '2' }, message: '60-2 for the new ECU' });
+		const second = await me.client.send<{ revision: Revision }>('POST', `/api/v1/designs/${designId}/revisions`, {
+			baseRevision: 1,
+			params: { ...wheel, teeth: '60', missing: '2' },
+			message: '60-2 for the new ECU'
+		});
 		expect(second.status).toBe(201);
-		expect(second.body.revision).toMatchObject({ number: 2, message: '60-2 for the new ECU', author: me.email, params: { teeth: '60', missing: '2' } });
+		expect(second.body.revision).toMatchObject({
+			number: 2,
+			message: '60-2 for the new ECU',
+			author: me.email,
+			params: { teeth: '60', missing: '2' }
+		});
 
-		const stale = await me.client.send<{ code: string; head: Revision; yours: { params: Record<string, string> } }>('POST', `/api/v1/designs/${designId}/revisions`, { baseRevision: 1, params: { ...wheel, od: '110' } });
+		const stale = await me.client.send<{ code: string; head: Revision; yours: { params: Record<string, string> } }>(
+			'POST',
+			`/api/v1/designs/${designId}/revisions`,
+			{ baseRevision: 1, params: { ...wheel, od: '110' } }
+		);
 		expect(stale.status).toBe(409);
 		expect(stale.body.code).toBe('stale');
 		expect(stale.body.head.number).toBe(2);
@@ -103,30 +123,45 @@ describe('wheel design revisions', () => {
 	});
 
 	it('refuses a wheel the designer would refuse, naming the parameter', async () => {
-		const res = await me.client.send<{ errors: Record<string, string> }>('POST', `/api/v1/designs/${designId}/revisions`, { baseRevision: 2, params: { ...wheel, teeth: '0' } });
+		const res = await me.client.send<{ errors: Record<string, string> }>('POST', `/api/v1/designs/${designId}/revisions`, {
+			baseRevision: 2,
+			params: { ...wheel, teeth: '0' }
+		});
 		expect(res.status).toBe(400);
 		expect(res.body.errors['params.teeth']).toMatch(/^teeth: /);
-		const missing = await me.client.send<{ errors: Record<string, string> }>('POST', `/api/v1/designs/${designId}/revisions`, { params: wheel });
+		const missing = await me.client.send<{ errors: Record<string, string> }>('POST', `/api/v1/designs/${designId}/revisions`, {
+			params: wheel
+		});
 		expect(missing.body.errors.baseRevision).toMatch(/^baseRevision:/);
 	});
 
 	it('lets exactly one of many simultaneous saves from the same base land', async () => {
 		const saves = await Promise.all(
-			Array.from({ length: 12 }, (_, i) => me.client.send('POST', `/api/v1/designs/${designId}/revisions`, { baseRevision: 2, params: { ...wheel, od: String(101 + i) } }))
+			Array.from({ length: 12 }, (_, i) =>
+				me.client.send('POST', `/api/v1/designs/${designId}/revisions`, { baseRevision: 2, params: { ...wheel, od: String(101 + i) } })
+			)
 		);
 		expect(saves.filter((s) => s.status === 201)).toHaveLength(1);
 		expect(saves.filter((s) => s.status === 409)).toHaveLength(11);
-		const { rows } = await database.execute<{ number: number }>(sql`select number from wheel_revision where design_id = ${designId} order by number`);
+		const { rows } = await database.execute<{ number: number }>(
+			sql`select number from wheel_revision where design_id = ${designId} order by number`
+		);
 		expect(rows.map((r) => r.number)).toEqual([1, 2, 3]);
 	});
 
 	it('keeps revision numbers unique and revisions unchangeable in the database itself', async () => {
-		await expect(database.insert(wheelRevision).values({ designId, number: 2, params: wheel })).rejects.toMatchObject({ cause: { code: '23505', constraint: 'wheel_revision_design_number' } });
-		await expect(database.execute(sql`update wheel_revision set message = 'rewritten' where design_id = ${designId}`)).rejects.toMatchObject({ cause: { code: 'P0001' } });
+		await expect(database.insert(wheelRevision).values({ designId, number: 2, params: wheel })).rejects.toMatchObject({
+			cause: { code: '23505', constraint: 'wheel_revision_design_number' }
+		});
+		await expect(
+			database.execute(sql`update wheel_revision set message = 'rewritten' where design_id = ${designId}`)
+		).rejects.toMatchObject({ cause: { code: 'P0001' } });
 	});
 
 	it('compares two revisions parameter by parameter', async () => {
-		const { status, body } = await me.client.json<{ changes: { name: string; from: string; to: string }[] }>(`/api/v1/designs/${designId}/compare?a=1&b=2`);
+		const { status, body } = await me.client.json<{ changes: { name: string; from: string; to: string }[] }>(
+			`/api/v1/designs/${designId}/compare?a=1&b=2`
+		);
 		expect(status).toBe(200);
 		expect(body.changes).toEqual([
 			{ name: 'missing', from: '1', to: '2' },
@@ -138,7 +173,10 @@ describe('wheel design revisions', () => {
 	});
 
 	it('restores an old revision as a new one, leaving history as it was', async () => {
-		const res = await me.client.send<{ revision: Revision }>('POST', `/api/v1/designs/${designId}/restore`, { revision: 1, baseRevision: 3 });
+		const res = await me.client.send<{ revision: Revision }>('POST', `/api/v1/designs/${designId}/restore`, {
+			revision: 1,
+			baseRevision: 3
+		});
 		expect(res.status).toBe(201);
 		expect(res.body.revision).toMatchObject({ number: 4, restoredFrom: 1, params: wheel, message: 'Restores revision 1' });
 		const stale = await me.client.send('POST', `/api/v1/designs/${designId}/restore`, { revision: 2, baseRevision: 3 });
@@ -170,7 +208,9 @@ describe('engine profile and records on a build', () => {
 		expect(res.status).toBe(200);
 		// 36-1, tooth 9 at TDC: 9 × 10° = 90° BTDC (geometry, common practice).
 		expect(res.body.phasing.firstToothOffsetDeg).toBe(90);
-		const bad = await me.client.send<{ errors: Record<string, string> }>('PUT', `/api/v1/builds/${buildId}/engine`, { params: { ...params, rpm: '90000' } });
+		const bad = await me.client.send<{ errors: Record<string, string> }>('PUT', `/api/v1/builds/${buildId}/engine`, {
+			params: { ...params, rpm: '90000' }
+		});
 		expect(bad.status).toBe(400);
 		expect(bad.body.errors.rpm).toMatch(/^rpm: a whole number from 100 to 30000/);
 		const { body } = await me.client.json<{ build: { engineProfile: Record<string, string> } }>(`/api/v1/builds/${buildId}`);
@@ -181,13 +221,22 @@ describe('engine profile and records on a build', () => {
 		// Piston-stop marks 29° apart: TDC half-way (common practice).
 		const ok = await me.client.send('POST', `/api/v1/builds/${buildId}/tdc-records`, { label: 'cold', params: { a: '-14', b: '15' } });
 		expect(ok.status).toBe(201);
-		const bad = await me.client.send<{ errors: Record<string, string> }>('POST', `/api/v1/builds/${buildId}/tdc-records`, { params: { a: '400', b: '15' } });
+		const bad = await me.client.send<{ errors: Record<string, string> }>('POST', `/api/v1/builds/${buildId}/tdc-records`, {
+			params: { a: '400', b: '15' }
+		});
 		expect(bad.status).toBe(400);
 		// A plain number past 180 can only be on a 0–360 wheel, and 400 is past its end.
 		expect(bad.body.errors['params.a']).toMatch(/^a: a reading from 0 to 360 \(10 = 10 ATDC, 350 = 10 BTDC\)/);
-		const tape = await me.client.send('POST', `/api/v1/builds/${buildId}/tapes`, { label: 'pulley', params: { units: 'mm', diameter: '120' } });
+		const tape = await me.client.send('POST', `/api/v1/builds/${buildId}/tapes`, {
+			label: 'pulley',
+			params: { units: 'mm', diameter: '120' }
+		});
 		expect(tape.status).toBe(201);
-		const { body } = await me.client.json<{ tdcRecords: { tdcDeg: string; label: string }[]; tapes: unknown[]; activity: { kind: string; summary: string }[] }>(`/api/v1/builds/${buildId}`);
+		const { body } = await me.client.json<{
+			tdcRecords: { tdcDeg: string; label: string }[];
+			tapes: unknown[];
+			activity: { kind: string; summary: string }[];
+		}>(`/api/v1/builds/${buildId}`);
 		expect(body.tdcRecords).toMatchObject([{ label: 'cold', tdcDeg: '0.5' }]);
 		expect(body.tapes).toHaveLength(1);
 		expect(body.activity.map((a) => a.kind)).toEqual(expect.arrayContaining(['build', 'engine', 'tdc', 'tape']));
@@ -200,19 +249,32 @@ describe('a cutting package', () => {
 		const buildId = await newBuild(me.client, 'Cutting bench');
 		const designId = await newDesign(me.client, buildId);
 		const to = freshEmail('fabricator');
-		const res = await me.client.send<{ files: string[]; revision: number }>('POST', `/api/v1/builds/${buildId}/cutting-packages`, { designId, to, quantity: 2, notes: 'Deburr, no paint' });
+		const res = await me.client.send<{ files: string[]; revision: number }>('POST', `/api/v1/builds/${buildId}/cutting-packages`, {
+			designId,
+			to,
+			quantity: 2,
+			notes: 'Deburr, no paint'
+		});
 		expect(res.status).toBe(201);
 		expect(res.body.files).toEqual(['wheel-36-1-100mm-r1.dxf', 'cutting-spec-36-1-100mm-r1.pdf']);
 		const mail = await mailTo(to, 'Cutting order');
 		expect(mail.text).toContain('Quantity: 2');
-		const list = (await (await fetch(`${process.env.MAILBOX_URL}/messages?to=${encodeURIComponent(to)}`)).json()) as { attachments: { filename: string; contentType: string; size: number }[] }[];
+		const list = (await (await fetch(`${process.env.MAILBOX_URL}/messages?to=${encodeURIComponent(to)}`)).json()) as {
+			attachments: { filename: string; contentType: string; size: number }[];
+		}[];
 		expect(list[0]!.attachments.map((a) => a.filename)).toEqual(res.body.files);
 		expect(list[0]!.attachments.every((a) => a.size > 500)).toBe(true);
-		const { body } = await me.client.json<{ activity: { summary: string }[]; cuttingPackages: { sentTo: string }[] }>(`/api/v1/builds/${buildId}`);
+		const { body } = await me.client.json<{ activity: { summary: string }[]; cuttingPackages: { sentTo: string }[] }>(
+			`/api/v1/builds/${buildId}`
+		);
 		expect(body.cuttingPackages).toMatchObject([{ sentTo: to }]);
 		expect(body.activity[0]!.summary).toContain(`sent to ${to}`);
 
-		const bad = await me.client.send<{ errors: Record<string, string> }>('POST', `/api/v1/builds/${buildId}/cutting-packages`, { designId, to: 'not an address', quantity: 0 });
+		const bad = await me.client.send<{ errors: Record<string, string> }>('POST', `/api/v1/builds/${buildId}/cutting-packages`, {
+			designId,
+			to: 'not an address',
+			quantity: 0
+		});
 		expect(bad.status).toBe(400);
 		expect(Object.keys(bad.body.errors).sort()).toEqual(['quantity', 'to']);
 	});
@@ -248,7 +310,10 @@ describe('access to builds, designs and revisions by role', () => {
 		expect((await viewer.json(`/api/v1/builds/${buildId}`)).status).toBe(200);
 		expect((await viewer.json(`/api/v1/designs/${designId}`)).status).toBe(200);
 		expect((await viewer.get(`/api/v1/designs/${designId}/revisions/1/wheel.svg`)).status).toBe(200);
-		const save = await viewer.send<{ message: string }>('POST', `/api/v1/designs/${designId}/revisions`, { baseRevision: 1, params: wheel });
+		const save = await viewer.send<{ message: string }>('POST', `/api/v1/designs/${designId}/revisions`, {
+			baseRevision: 1,
+			params: wheel
+		});
 		expect(save.status).toBe(403);
 		expect(save.body.message).toMatch(/viewer; this needs editor/);
 		expect((await viewer.send('PUT', `/api/v1/builds/${buildId}/engine`, { params: { teeth: '36', toothAtTdc: '9' } })).status).toBe(403);
@@ -256,19 +321,35 @@ describe('access to builds, designs and revisions by role', () => {
 	});
 
 	it('lets an editor write', async () => {
-		const save = await editor.send('POST', `/api/v1/designs/${designId}/revisions`, { baseRevision: 1, params: { ...wheel, od: '120' }, message: 'bigger' });
+		const save = await editor.send('POST', `/api/v1/designs/${designId}/revisions`, {
+			baseRevision: 1,
+			params: { ...wheel, od: '120' },
+			message: 'bigger'
+		});
 		expect(save.status).toBe(201);
 	});
 
 	it('answers 404 to another workshop’s owner, for real and for guessed ids alike, and 401 when signed out', async () => {
-		const paths = [`/api/v1/builds/${buildId}`, `/api/v1/designs/${designId}`, `/api/v1/designs/${designId}/revisions/1`, `/api/v1/designs/${designId}/revisions/1/wheel.dxf`, `/api/v1/designs/${designId}/compare?a=1&b=2`, `/api/v1/builds/${crypto.randomUUID()}`, '/api/v1/builds/not-a-uuid'];
+		const paths = [
+			`/api/v1/builds/${buildId}`,
+			`/api/v1/designs/${designId}`,
+			`/api/v1/designs/${designId}/revisions/1`,
+			`/api/v1/designs/${designId}/revisions/1/wheel.dxf`,
+			`/api/v1/designs/${designId}/compare?a=1&b=2`,
+			`/api/v1/builds/${crypto.randomUUID()}`,
+			'/api/v1/builds/not-a-uuid'
+		];
 		for (const path of paths) expect((await stranger.client.get(path)).status, path).toBe(404);
-		expect((await stranger.client.send('POST', `/api/v1/designs/${designId}/revisions`, { baseRevision: 2, params: wheel })).status).toBe(404);
+		expect((await stranger.client.send('POST', `/api/v1/designs/${designId}/revisions`, { baseRevision: 2, params: wheel })).status).toBe(
+			404
+		);
 		expect((await stranger.client.send('DELETE', `/api/v1/builds/${buildId}`)).status).toBe(404);
 		const anonymous = new Client();
 		for (const path of paths.slice(0, 4)) expect((await anonymous.get(path)).status, path).toBe(401);
 		// Nothing of the stranger's reached the build.
-		const { rows } = await database.execute<{ n: number }>(sql`select count(*)::int as n from wheel_revision where design_id = ${designId}`);
+		const { rows } = await database.execute<{ n: number }>(
+			sql`select count(*)::int as n from wheel_revision where design_id = ${designId}`
+		);
 		expect(rows[0]!.n).toBe(2);
 	});
 });
@@ -284,7 +365,9 @@ describe('the build sheet of a saved build', () => {
 		const early = await me.client.get(`/api/v1/builds/${buildId}/build-sheet.pdf`);
 		expect(early.status).toBe(422);
 		expect((await early.json()).message).toMatch(/^engineProfile: /);
-		await me.client.send('PUT', `/api/v1/builds/${buildId}/engine`, { params: { teeth: '36', missing: '1', toothAtTdc: '9', layout: 'twin-270' } });
+		await me.client.send('PUT', `/api/v1/builds/${buildId}/engine`, {
+			params: { teeth: '36', missing: '1', toothAtTdc: '9', layout: 'twin-270' }
+		});
 		const designId = await newDesign(me.client, buildId, 'Timing-side wheel');
 		await me.client.send('POST', `/api/v1/designs/${designId}/revisions`, { baseRevision: 1, params: { ...wheel, od: '120' } });
 		await me.client.send('POST', `/api/v1/builds/${buildId}/tdc-records`, { params: { a: '-14', b: '15' } });

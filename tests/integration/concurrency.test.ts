@@ -11,13 +11,20 @@ afterAll(() => database.$client.end());
 
 const wheel = { units: 'mm', teeth: '60', missing: '2', od: '120', depth: '5', thickness: '3', bore: '20' };
 
-type Saved = { status: number; body: { revision?: { number: number; params: Record<string, string> }; head?: { number: number }; code?: string } };
+type Saved = {
+	status: number;
+	body: { revision?: { number: number; params: Record<string, string> }; head?: { number: number }; code?: string };
+};
 
 async function setUp(label: string) {
 	const client = await signUp(`${label} owner`, freshEmail(label));
 	const build = await client.send<{ id: string }>('POST', '/api/v1/builds', { name: `${label} bench` });
 	expect(build.status).toBe(201);
-	const design = await client.send<{ id: string }>('POST', `/api/v1/builds/${build.body.id}/designs`, { name: 'Crank wheel', params: wheel, message: 'as drawn' });
+	const design = await client.send<{ id: string }>('POST', `/api/v1/builds/${build.body.id}/designs`, {
+		name: 'Crank wheel',
+		params: wheel,
+		message: 'as drawn'
+	});
 	expect(design.status).toBe(201);
 	return { client, buildId: build.body.id, designId: design.body.id };
 }
@@ -26,7 +33,9 @@ const save = (client: Client, designId: string, baseRevision: number, params: Re
 	client.send<Saved['body']>('POST', `/api/v1/designs/${designId}/revisions`, { baseRevision, params, message });
 
 async function stored(designId: string) {
-	const { rows } = await database.execute<{ number: number; params: Record<string, string> }>(sql`select number, params from wheel_revision where design_id = ${designId} order by number`);
+	const { rows } = await database.execute<{ number: number; params: Record<string, string> }>(
+		sql`select number, params from wheel_revision where design_id = ${designId} order by number`
+	);
 	return rows;
 }
 
@@ -41,7 +50,10 @@ describe('simultaneous saves of one wheel design', () => {
 		const params = Array.from({ length: 50 }, (_, i) => ({ ...wheel, od: String(121 + i) }));
 		const answers = await Promise.all(params.map((p, i) => save(me.client, me.designId, 1, p, `caller ${i}`)));
 		const won = answers.flatMap((a, i) => (a.status === 201 ? [i] : []));
-		expect(answers.map((a) => a.status).filter((s) => s !== 201 && s !== 409), 'answers other than 201 and 409').toEqual([]);
+		expect(
+			answers.map((a) => a.status).filter((s) => s !== 201 && s !== 409),
+			'answers other than 201 and 409'
+		).toEqual([]);
 		expect(won).toHaveLength(1);
 		expect(answers.filter((a) => a.status === 409)).toHaveLength(49);
 		for (const a of answers.filter((a) => a.status === 409)) expect(a.body).toMatchObject({ code: 'stale', head: { number: 2 } });
@@ -78,7 +90,10 @@ describe('simultaneous saves of one wheel design', () => {
 				}
 			})
 		);
-		expect(statuses.filter((s) => s !== 201 && s !== 409), 'answers other than 201 and 409').toEqual([]);
+		expect(
+			statuses.filter((s) => s !== 201 && s !== 409),
+			'answers other than 201 and 409'
+		).toEqual([]);
 		expect(statuses).toHaveLength(callers * attempts);
 		const rows = await stored(me.designId);
 		const numbers = rows.map((r) => r.number);
@@ -89,8 +104,12 @@ describe('simultaneous saves of one wheel design', () => {
 		expect(wins.size).toBeGreaterThanOrEqual(attempts);
 		for (const row of rows.slice(start)) expect(row.params, `revision ${row.number}`).toEqual(wins.get(row.number));
 		// And each landed save wrote its one log entry (same transaction).
-		const { rows: logged } = await database.execute<{ n: number }>(sql`select count(*)::int as n from activity where build_id = ${me.buildId} and kind = 'revision'`);
+		const { rows: logged } = await database.execute<{ n: number }>(
+			sql`select count(*)::int as n from activity where build_id = ${me.buildId} and kind = 'revision'`
+		);
 		expect(logged[0]!.n).toBe(numbers.length - 1);
-		console.log(`racing saves: ${statuses.length} tries by ${callers} callers, ${wins.size} landed, ${statuses.filter((s) => s === 409).length} answered 409`);
+		console.log(
+			`racing saves: ${statuses.length} tries by ${callers} callers, ${wins.size} landed, ${statuses.filter((s) => s === 409).length} answered 409`
+		);
 	});
 });

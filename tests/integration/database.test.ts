@@ -39,7 +39,10 @@ describe('PostgreSQL through Drizzle', () => {
 	});
 
 	it('refuses a second build of the same name in one workshop', async () => {
-		const [shop] = await database.insert(workshop).values({ slug: `dup-${Date.now()}`, name: 'Twice' }).returning();
+		const [shop] = await database
+			.insert(workshop)
+			.values({ slug: `dup-${Date.now()}`, name: 'Twice' })
+			.returning();
 		await database.insert(build).values({ workshopId: shop!.id, name: 'Same' });
 		await expect(database.insert(build).values({ workshopId: shop!.id, name: 'Same' })).rejects.toThrow();
 		await database.delete(workshop).where(eq(workshop.id, shop!.id));

@@ -27,7 +27,10 @@ function cluster(action: 'stop' | 'start'): Promise<void> {
 		`${action === 'stop' ? 'stop' : 'await start'}(bin, clusterDir());`
 	].join('\n');
 	return new Promise((resolve, reject) => {
-		const child = spawn(process.execPath, ['--import', 'tsx', '--input-type=module', '-e', code], { cwd: root, stdio: ['ignore', 'inherit', 'inherit'] });
+		const child = spawn(process.execPath, ['--import', 'tsx', '--input-type=module', '-e', code], {
+			cwd: root,
+			stdio: ['ignore', 'inherit', 'inherit']
+		});
 		child.once('error', reject);
 		child.once('exit', (status) => (status === 0 ? resolve() : reject(new Error(`PostgreSQL ${action} exited with ${status}`))));
 	});
@@ -68,12 +71,22 @@ async function send(client: Client, probe: Probe): Promise<Answer> {
 		body = JSON.stringify(probe.body());
 	}
 	if (probe.kind === 'action') {
-		Object.assign(headers, { accept: 'application/json', 'x-sveltekit-action': 'true', 'content-type': 'application/x-www-form-urlencoded' });
+		Object.assign(headers, {
+			accept: 'application/json',
+			'x-sveltekit-action': 'true',
+			'content-type': 'application/x-www-form-urlencoded'
+		});
 		body = new URLSearchParams(probe.body!() as Record<string, string>).toString();
 	}
 	const started = performance.now();
 	try {
-		const res = await fetch(new URL(probe.path, appUrl), { method: probe.method, headers, body, redirect: 'manual', signal: AbortSignal.timeout(10_000) });
+		const res = await fetch(new URL(probe.path, appUrl), {
+			method: probe.method,
+			headers,
+			body,
+			redirect: 'manual',
+			signal: AbortSignal.timeout(10_000)
+		});
 		const text = await res.text();
 		return { probe, status: res.status, ms: performance.now() - started, headers: res.headers, text, at: Date.now() };
 	} catch {
@@ -81,7 +94,8 @@ async function send(client: Client, probe: Probe): Promise<Answer> {
 	}
 }
 
-const label = (a: Answer) => `${a.probe.method} ${a.probe.path} (${a.probe.kind}) → ${a.status}${a.status >= 500 ? `: ${a.text.slice(0, 200)}` : ''}`;
+const label = (a: Answer) =>
+	`${a.probe.method} ${a.probe.path} (${a.probe.kind}) → ${a.status}${a.status >= 500 ? `: ${a.text.slice(0, 200)}` : ''}`;
 
 /** What a 503 must carry (RFC 9110 §15.6.4 503 Service Unavailable, §10.2.3 Retry-After as delay-seconds). */
 function expectUnavailable(a: Answer) {
@@ -108,7 +122,11 @@ async function owner(label: string) {
 	const workshopId = (await client.json<{ workshop: { id: string } }>('/api/v1/builds')).body.workshop.id;
 	const build = await client.send<{ id: string }>('POST', '/api/v1/builds', { name: `${label} bench` });
 	expect(build.status).toBe(201);
-	const design = await client.send<{ id: string }>('POST', `/api/v1/builds/${build.body.id}/designs`, { name: 'Crank wheel', params: wheel, message: 'as drawn' });
+	const design = await client.send<{ id: string }>('POST', `/api/v1/builds/${build.body.id}/designs`, {
+		name: 'Crank wheel',
+		params: wheel,
+		message: 'as drawn'
+	});
 	expect(design.status).toBe(201);
 	return { client, workshopId, buildId: build.body.id, designId: design.body.id };
 }
@@ -142,7 +160,12 @@ describe('PostgreSQL stopped and started while requests run', () => {
 			{ method: 'GET', path: `/builds/${me.buildId}`, kind: 'page' },
 			{ method: 'GET', path: `/builds/${me.buildId}/designs/${me.designId}`, kind: 'page' },
 			{ method: 'GET', path: '/wheel', kind: 'page' },
-			{ method: 'POST', path: '/builds?/create', kind: 'action', body: () => ({ name: `Outage build ${Date.now()}-${Math.random()}`, engine: '' }) }
+			{
+				method: 'POST',
+				path: '/builds?/create',
+				kind: 'action',
+				body: () => ({ name: `Outage build ${Date.now()}-${Math.random()}`, engine: '' })
+			}
 		];
 	});
 
@@ -198,7 +221,8 @@ describe('PostgreSQL stopped and started while requests run', () => {
 		for (const a of unavailable) expectUnavailable(a);
 		// Anything else is what the request would get with the database up.
 		const expected = { api: [200, 201, 409], page: [200], action: [200] } as const;
-		for (const a of answers.filter((a) => a.status !== 503)) expect(expected[a.probe.kind] as readonly number[], label(a)).toContain(a.status);
+		for (const a of answers.filter((a) => a.status !== 503))
+			expect(expected[a.probe.kind] as readonly number[], label(a)).toContain(a.status);
 		const after = answers.filter((a) => a.at > startedAt + 500 && a.status !== 503);
 		expect(after.length, 'normal answers after the restart').toBeGreaterThan(0);
 		console.log(
@@ -216,11 +240,15 @@ describe('PostgreSQL stopped and started while requests run', () => {
 		// A save caught by the stop either landed whole or not at all: the revision numbers run
 		// 1..n without a gap, and each later revision has its one log entry. (A commit whose
 		// answer was lost with the connection lands whole yet reads as 503, hence "at least".)
-		const revisions = await database.execute<{ number: number }>(sql`select number from wheel_revision where design_id = ${me.designId} order by number`);
+		const revisions = await database.execute<{ number: number }>(
+			sql`select number from wheel_revision where design_id = ${me.designId} order by number`
+		);
 		const numbers = revisions.rows.map((r) => r.number);
 		expect(numbers).toEqual(Array.from({ length: numbers.length }, (_, i) => i + 1));
 		expect(numbers.length).toBeGreaterThanOrEqual(saved + 1);
-		const logged = await database.execute<{ n: number }>(sql`select count(*)::int as n from activity where build_id = ${me.buildId} and kind = 'revision'`);
+		const logged = await database.execute<{ n: number }>(
+			sql`select count(*)::int as n from activity where build_id = ${me.buildId} and kind = 'revision'`
+		);
 		expect(logged.rows[0]!.n).toBe(numbers.length - 1);
 	});
 });
@@ -237,7 +265,9 @@ async function refuseInsertsInto(table: 'activity' | 'wheel_photo', column: 'sum
 				return new;
 			end $$`)
 	);
-	await database.execute(sql.raw(`create trigger pw_fault_refuse before insert on ${table} for each row execute function pw_fault_refuse()`));
+	await database.execute(
+		sql.raw(`create trigger pw_fault_refuse before insert on ${table} for each row execute function pw_fault_refuse()`)
+	);
 	return async () => {
 		await database.execute(sql.raw(`drop trigger if exists pw_fault_refuse on ${table}`));
 		await database.execute(sql.raw('drop function if exists pw_fault_refuse()'));
@@ -251,9 +281,15 @@ describe('a save that fails half-way leaves nothing half-saved', () => {
 	});
 
 	const state = async () => {
-		const revisions = await database.execute<{ number: number }>(sql`select number from wheel_revision where design_id = ${me.designId} order by number`);
-		const logs = await database.execute<{ summary: string }>(sql`select summary from activity where build_id = ${me.buildId} order by summary`);
-		const design = await database.execute<{ updated: string }>(sql`select updated_at::text as updated from wheel_design where id = ${me.designId}`);
+		const revisions = await database.execute<{ number: number }>(
+			sql`select number from wheel_revision where design_id = ${me.designId} order by number`
+		);
+		const logs = await database.execute<{ summary: string }>(
+			sql`select summary from activity where build_id = ${me.buildId} order by summary`
+		);
+		const design = await database.execute<{ updated: string }>(
+			sql`select updated_at::text as updated from wheel_design where id = ${me.designId}`
+		);
 		const build = await database.execute<{ updated: string }>(sql`select updated_at::text as updated from build where id = ${me.buildId}`);
 		const photos = await database.execute<{ n: number }>(sql`select count(*)::int as n from wheel_photo where build_id = ${me.buildId}`);
 		return {
@@ -270,7 +306,11 @@ describe('a save that fails half-way leaves nothing half-saved', () => {
 		const before = await state();
 		const undo = await refuseInsertsInto('activity', 'summary');
 		try {
-			const res = await me.client.send<{ message: string }>('POST', `/api/v1/designs/${me.designId}/revisions`, { baseRevision: 1, params: { ...wheel, od: '140' }, message: marker });
+			const res = await me.client.send<{ message: string }>('POST', `/api/v1/designs/${me.designId}/revisions`, {
+				baseRevision: 1,
+				params: { ...wheel, od: '140' },
+				message: marker
+			});
 			// A fault inside the server, not a refusal of the input, and not an outage either.
 			expect(res.status).toBe(500);
 		} finally {
@@ -278,7 +318,11 @@ describe('a save that fails half-way leaves nothing half-saved', () => {
 		}
 		expect(await state()).toEqual(before);
 		// The number the failed save would have taken is still free.
-		const retry = await me.client.send<{ revision: { number: number } }>('POST', `/api/v1/designs/${me.designId}/revisions`, { baseRevision: 1, params: { ...wheel, od: '140' }, message: 'second try' });
+		const retry = await me.client.send<{ revision: { number: number } }>('POST', `/api/v1/designs/${me.designId}/revisions`, {
+			baseRevision: 1,
+			params: { ...wheel, od: '140' },
+			message: 'second try'
+		});
 		expect(retry).toMatchObject({ status: 201, body: { revision: { number: 2 } } });
 		const after = await state();
 		expect(after.revisions).toEqual([1, 2]);
@@ -290,7 +334,9 @@ describe('a save that fails half-way leaves nothing half-saved', () => {
 	it('a photo whose row is refused: no row, no log entry, no objects left in the store', async () => {
 		const before = await state();
 		expect(before.objects).toEqual([]);
-		const png = await sharp({ create: { width: 64, height: 48, channels: 3, background: '#777777' } }).png().toBuffer();
+		const png = await sharp({ create: { width: 64, height: 48, channels: 3, background: '#777777' } })
+			.png()
+			.toBuffer();
 		const form = () => {
 			const f = new FormData();
 			f.append('file', new Blob([new Uint8Array(png)], { type: 'image/png' }), `${marker}.png`);

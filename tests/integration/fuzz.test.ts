@@ -26,22 +26,164 @@ afterAll(() => console.log(`fuzz: ${total} requests, seed ${seed}`));
 // ---- Parameter names, as the schemas and the README name them ----
 
 const wheelNames = wheelRegistry.names;
-const tapeNames = ['units', 'diameter', 'circumference', 'paperThickness', 'rotation', 'paper', 'window', 'tick', 'mid', 'label', 'timing', 'tdc2'];
+const tapeNames = [
+	'units',
+	'diameter',
+	'circumference',
+	'paperThickness',
+	'rotation',
+	'paper',
+	'window',
+	'tick',
+	'mid',
+	'label',
+	'timing',
+	'tdc2'
+];
 const tdcNames = ['a', 'b', 'scale', 'arc', 'rotation', 'distance', 'diameter', 'units'];
 const cardNames = ['units', 'diameter', 'circumference', 'paperThickness', 'rotation', 'paper', 'curve'];
-const phasingNames = ['teeth', 'missing', 'duty', 'mount', 'layout', 'vAngle', 'stroke', 'intervals', 'cylinders', 'input', 'toothAtTdc', 'sensorAngle', 'keywayAngle', 'keyAngle', 'edge', 'rpm', 'cranking', 'sensor', 'sensorMaxHz', 'windowFrom', 'windowTo', 'resolution', 'target', 'keyFromSensor'];
+const phasingNames = [
+	'teeth',
+	'missing',
+	'duty',
+	'mount',
+	'layout',
+	'vAngle',
+	'stroke',
+	'intervals',
+	'cylinders',
+	'input',
+	'toothAtTdc',
+	'sensorAngle',
+	'keywayAngle',
+	'keyAngle',
+	'edge',
+	'rpm',
+	'cranking',
+	'sensor',
+	'sensorMaxHz',
+	'windowFrom',
+	'windowTo',
+	'resolution',
+	'target',
+	'keyFromSensor'
+];
 const sheetNames = [...new Set([...wheelNames, ...phasingNames, ...buildSheetKeys])];
 /** Every name any route takes, for requests sent to routes at random. */
-const everyName = [...new Set([...sheetNames, ...tapeNames, ...tdcNames, ...cardNames, 'workshop', 'q', 'sort', 'dir', 'page', 'size', 'name', 'engine', 'notes', 'params', 'baseRevision', 'revision', 'message', 'centre', 'tips', 'odMm', 'image', 'designId', 'to', 'quantity', 'file', 'design'])];
+const everyName = [
+	...new Set([
+		...sheetNames,
+		...tapeNames,
+		...tdcNames,
+		...cardNames,
+		'workshop',
+		'q',
+		'sort',
+		'dir',
+		'page',
+		'size',
+		'name',
+		'engine',
+		'notes',
+		'params',
+		'baseRevision',
+		'revision',
+		'message',
+		'centre',
+		'tips',
+		'odMm',
+		'image',
+		'designId',
+		'to',
+		'quantity',
+		'file',
+		'design'
+	])
+];
 
 // ---- Values ----
 
 const edgeTexts = [
-	'', ' ', '0', '-0', '-1', '1', '2', '0.5', '36', '100', '720', '721', '1e308', '1e309', '-1e309', '1e-320', '4.9e-324', '9007199254740993',
-	'NaN', 'nan', 'Infinity', '-Infinity', '+Infinity', '3 1/2', '3-1/2', '7/8', '1/0', '0/0', '-1/2', '1,5', '1.5.5', '1..5', '0x1F', '0b11', '0o7', '1_000',
-	'+7', '.5', '5.', '1e', 'e1', '٣', '１２', '½', 'null', 'undefined', 'true', 'false', '[]', '{}', '[object Object]', 'none', 'custom', 'mm', 'in',
-	'%', '%00', '\u0000', 'a\u0000b', '\n', '\r\n', '\t', '\u202e', '\ufeff', '\ud800', '\udfff', '😀', 'é', 'e\u0301', '<script>alert(1)</script>',
-	"'; drop table build;--", '../../etc/passwd', 'C:\\x\\y', '$(id)', 'x'.repeat(5000), '9'.repeat(400), '-'.repeat(100), ' 36 ', '36abc', 'abc36'
+	'',
+	' ',
+	'0',
+	'-0',
+	'-1',
+	'1',
+	'2',
+	'0.5',
+	'36',
+	'100',
+	'720',
+	'721',
+	'1e308',
+	'1e309',
+	'-1e309',
+	'1e-320',
+	'4.9e-324',
+	'9007199254740993',
+	'NaN',
+	'nan',
+	'Infinity',
+	'-Infinity',
+	'+Infinity',
+	'3 1/2',
+	'3-1/2',
+	'7/8',
+	'1/0',
+	'0/0',
+	'-1/2',
+	'1,5',
+	'1.5.5',
+	'1..5',
+	'0x1F',
+	'0b11',
+	'0o7',
+	'1_000',
+	'+7',
+	'.5',
+	'5.',
+	'1e',
+	'e1',
+	'٣',
+	'１２',
+	'½',
+	'null',
+	'undefined',
+	'true',
+	'false',
+	'[]',
+	'{}',
+	'[object Object]',
+	'none',
+	'custom',
+	'mm',
+	'in',
+	'%',
+	'%00',
+	'\u0000',
+	'a\u0000b',
+	'\n',
+	'\r\n',
+	'\t',
+	'\u202e',
+	'\ufeff',
+	'\ud800',
+	'\udfff',
+	'😀',
+	'é',
+	'e\u0301',
+	'<script>alert(1)</script>',
+	"'; drop table build;--",
+	'../../etc/passwd',
+	'C:\\x\\y',
+	'$(id)',
+	'x'.repeat(5000),
+	'9'.repeat(400),
+	'-'.repeat(100),
+	' 36 ',
+	'36abc',
+	'abc36'
 ];
 const edgeText = fc.constantFrom(...edgeTexts);
 const numberText = fc.oneof(
@@ -55,7 +197,11 @@ const numberText = fc.oneof(
 );
 /** Text with one character that storage, headers or parsers trip over, somewhere inside. */
 const awkwardText = fc
-	.tuple(fc.string({ maxLength: 10 }), fc.constantFrom('\u0000', '\ud800', '\udfff', '\u202e', '\r\n', '\u2028', '\ufffe', '%00', '\\', '"'), fc.string({ maxLength: 10 }))
+	.tuple(
+		fc.string({ maxLength: 10 }),
+		fc.constantFrom('\u0000', '\ud800', '\udfff', '\u202e', '\r\n', '\u2028', '\ufffe', '%00', '\\', '"'),
+		fc.string({ maxLength: 10 })
+	)
 	.map(([a, c, b]) => a + c + b);
 const textValue = fc.oneof(
 	{ weight: 4, arbitrary: edgeText },
@@ -66,12 +212,49 @@ const textValue = fc.oneof(
 	{ weight: 1, arbitrary: fc.string({ unit: 'binary', maxLength: 20 }) },
 	{ weight: 1, arbitrary: fc.integer({ min: 50, max: 3000 }).map((n) => '7'.repeat(n)) }
 );
-const oddNames = ['__proto__', 'constructor', 'toString', 'hasOwnProperty', 'prototype', 'TEETH', 'teeth ', ' od', 'od[]', 'a[b]', '', '.', 'params.teeth', '0'];
-const rawBits = ['%', '%zz', '%ff', '%fe%ff', '%00', '%c0%af', '&&', '=', '==x', 'teeth', '%E2%80%AE', '+', 'od=%', 'teeth=%ZZ', ';', 'a=1;b=2', '%u0041'];
+const oddNames = [
+	'__proto__',
+	'constructor',
+	'toString',
+	'hasOwnProperty',
+	'prototype',
+	'TEETH',
+	'teeth ',
+	' od',
+	'od[]',
+	'a[b]',
+	'',
+	'.',
+	'params.teeth',
+	'0'
+];
+const rawBits = [
+	'%',
+	'%zz',
+	'%ff',
+	'%fe%ff',
+	'%00',
+	'%c0%af',
+	'&&',
+	'=',
+	'==x',
+	'teeth',
+	'%E2%80%AE',
+	'+',
+	'od=%',
+	'teeth=%ZZ',
+	';',
+	'a=1;b=2',
+	'%u0041'
+];
 
 /** A query string: a valid base, some of it kept, names set to edge values, names repeated, raw bytes appended. */
 function queryArb(known: readonly string[], base: Record<string, string>) {
-	const name = fc.oneof({ weight: 6, arbitrary: fc.constantFrom(...known) }, { weight: 1, arbitrary: fc.string({ maxLength: 12 }) }, { weight: 1, arbitrary: fc.constantFrom(...oddNames) });
+	const name = fc.oneof(
+		{ weight: 6, arbitrary: fc.constantFrom(...known) },
+		{ weight: 1, arbitrary: fc.string({ maxLength: 12 }) },
+		{ weight: 1, arbitrary: fc.constantFrom(...oddNames) }
+	);
 	const keys = Object.keys(base);
 	return fc
 		.record({
@@ -99,14 +282,24 @@ const jsonLeaf = fc.oneof(
 	fc.constant({}),
 	fc.constant([])
 );
-const jsonValue = fc.oneof({ weight: 3, arbitrary: jsonLeaf }, { weight: 1, arbitrary: fc.jsonValue({ maxDepth: 3, stringUnit: 'binary' }) });
+const jsonValue = fc.oneof(
+	{ weight: 3, arbitrary: jsonLeaf },
+	{ weight: 1, arbitrary: fc.jsonValue({ maxDepth: 3, stringUnit: 'binary' }) }
+);
 /** Flat tool parameters as a JSON object: the tool's names and others, values of any JSON type. */
 const paramsArb = (names: readonly string[], base: Record<string, string>) =>
 	fc.oneof(
 		// A valid set with one awkward name or value added: what reaches storage when the rest passes.
-		fc.tuple(fc.oneof(fc.constantFrom(...names), fc.string({ maxLength: 12 }), awkwardText), awkwardText).map(([k, v]) => ({ ...base, [k]: v })),
+		fc
+			.tuple(fc.oneof(fc.constantFrom(...names), fc.string({ maxLength: 12 }), awkwardText), awkwardText)
+			.map(([k, v]) => ({ ...base, [k]: v })),
 		fc.tuple(awkwardText, textValue).map(([k, v]) => ({ ...base, [k]: v })),
-		fc.record({ keep: fc.subarray(Object.keys(base)), set: fc.dictionary(fc.constantFrom(...names), fc.oneof(textValue, jsonValue), { maxKeys: 4 }) }).map(({ keep, set }) => ({ ...Object.fromEntries(keep.map((k) => [k, base[k]])), ...set })),
+		fc
+			.record({
+				keep: fc.subarray(Object.keys(base)),
+				set: fc.dictionary(fc.constantFrom(...names), fc.oneof(textValue, jsonValue), { maxKeys: 4 })
+			})
+			.map(({ keep, set }) => ({ ...Object.fromEntries(keep.map((k) => [k, base[k]])), ...set })),
 		fc.dictionary(fc.oneof(fc.constantFrom(...names), fc.string({ maxLength: 50 })), jsonValue, { maxKeys: 6 }),
 		fc.constant(Object.fromEntries(Array.from({ length: 200 }, (_, i) => [`p${i}`, '1']))),
 		fc.constant({ ...base, teeth: 'x'.repeat(600) }),
@@ -137,14 +330,44 @@ const hugeBodies = [
 	new Big('a name of a million characters', JSON.stringify({ name: 'n'.repeat(1_000_000) })),
 	new Big('params with 20000 names', JSON.stringify({ params: Object.fromEntries(Array.from({ length: 20_000 }, (_, i) => [`k${i}`, i])) }))
 ];
-const rawTexts = ['', '{', '{"a":', 'NaN', "{'a':1}", '{"a":1}{"b":2}', '\u0000', 'null', '[]', '"text"', '123', 'true', '{"__proto__":{"x":1}}', '\ufeff{}', 'name=x&engine=y', '--x\r\nContent-Disposition: form-data; name="name"\r\n\r\nx\r\n--x--'];
-const contentType = fc.constantFrom('application/json', 'application/json', 'application/json', 'text/plain', 'application/x-www-form-urlencoded', 'multipart/form-data; boundary=x', 'application/xml', undefined, 'application/json; charset=utf-16');
+const rawTexts = [
+	'',
+	'{',
+	'{"a":',
+	'NaN',
+	"{'a':1}",
+	'{"a":1}{"b":2}',
+	'\u0000',
+	'null',
+	'[]',
+	'"text"',
+	'123',
+	'true',
+	'{"__proto__":{"x":1}}',
+	'\ufeff{}',
+	'name=x&engine=y',
+	'--x\r\nContent-Disposition: form-data; name="name"\r\n\r\nx\r\n--x--'
+];
+const contentType = fc.constantFrom(
+	'application/json',
+	'application/json',
+	'application/json',
+	'text/plain',
+	'application/x-www-form-urlencoded',
+	'multipart/form-data; boundary=x',
+	'application/xml',
+	undefined,
+	'application/json; charset=utf-16'
+);
 
 /** A JSON request body: a valid one with fields swapped for values of other types, any JSON, raw text, or a huge one. */
 function bodyArb(fields: Record<string, fc.Arbitrary<unknown>>, base: Record<string, unknown>) {
 	const keys = Object.keys(base);
 	const mutated = fc
-		.record({ keep: fc.subarray(keys), set: fc.record(Object.fromEntries(Object.entries(fields).map(([k, a]) => [k, fc.oneof(a, jsonValue)])), { requiredKeys: [] }) })
+		.record({
+			keep: fc.subarray(keys),
+			set: fc.record(Object.fromEntries(Object.entries(fields).map(([k, a]) => [k, fc.oneof(a, jsonValue)])), { requiredKeys: [] })
+		})
 		.map(({ keep, set }) => JSON.stringify({ ...Object.fromEntries(keep.map((k) => [k, base[k]])), ...set }));
 	return fc.record({
 		body: fc.oneof(
@@ -162,7 +385,24 @@ const madeUpId = fc.oneof(
 	fc.uuid().map(String),
 	// Not '..' or '%2e%2e': the client resolves dot segments before sending (WHATWG URL), so they
 	// reach other routes, not this one with an odd id.
-	fc.constantFrom('', 'abc', '0', '-1', '00000000-0000-0000-0000-000000000000', 'ffffffff-ffff-ffff-ffff-ffffffffffff', '...', '%00', '%2F', '%5C', '%252F', 'x'.repeat(300), 'null', 'undefined', "1'or'1'='1", '😀'),
+	fc.constantFrom(
+		'',
+		'abc',
+		'0',
+		'-1',
+		'00000000-0000-0000-0000-000000000000',
+		'ffffffff-ffff-ffff-ffff-ffffffffffff',
+		'...',
+		'%00',
+		'%2F',
+		'%5C',
+		'%252F',
+		'x'.repeat(300),
+		'null',
+		'undefined',
+		"1'or'1'='1",
+		'😀'
+	),
 	fc.string({ maxLength: 40 }).map(encodeURIComponent)
 );
 
@@ -190,7 +430,12 @@ async function send(request: Request, signedIn = true): Promise<Answer> {
 	const headers: Record<string, string> = { origin, accept: 'application/json' };
 	if (signedIn && cookie) headers.cookie = cookie;
 	if (request.type) headers['content-type'] = request.type;
-	const res = await fetch(new URL(request.path, appUrl), { method: request.method, headers, body: request.body === undefined ? undefined : bodyText(request.body), redirect: 'manual' });
+	const res = await fetch(new URL(request.path, appUrl), {
+		method: request.method,
+		headers,
+		body: request.body === undefined ? undefined : bodyText(request.body),
+		redirect: 'manual'
+	});
 	const contentType = res.headers.get('content-type') ?? '';
 	const bytes = Buffer.from(await res.arrayBuffer());
 	const text = /json|text|html/.test(contentType) ? bytes.toString('utf8') : `<${bytes.length} bytes of ${contentType}>`;
@@ -206,7 +451,8 @@ async function send(request: Request, signedIn = true): Promise<Answer> {
 }
 
 const clip = (s: string) => (s.length > 300 ? `${s.slice(0, 300)}… (${s.length} chars)` : s);
-const shown = (r: Request) => `${r.method} ${clip(r.path)}${r.body !== undefined ? ` [${r.type ?? 'no type'}] ${r.body instanceof Big ? r.body[fc.toStringMethod]() : clip(r.body)}` : ''}`;
+const shown = (r: Request) =>
+	`${r.method} ${clip(r.path)}${r.body !== undefined ? ` [${r.type ?? 'no type'}] ${r.body instanceof Big ? r.body[fc.toStringMethod]() : clip(r.body)}` : ''}`;
 const escape = (s: string) => s.replace(/[.*+?^${}()|[\]\\]/g, '\\$&');
 
 /** Whether a message names a field of the key: `teeth: …` for `teeth`, `params: …` or `teeth: …` for `params.teeth`. */
@@ -242,10 +488,7 @@ function expectSound(a: Answer, known: readonly string[], tool: readonly string[
 }
 
 const run = <T>(arb: fc.Arbitrary<T>, numRuns: number, check: (value: T) => Promise<void>, offset = 0) =>
-	fc.assert(
-		fc.asyncProperty(arb, check),
-		{ numRuns, seed: seed + offset }
-	);
+	fc.assert(fc.asyncProperty(arb, check), { numRuns, seed: seed + offset });
 
 // ---- The routes ----
 
@@ -289,7 +532,12 @@ describe('the stateless tool routes', () => {
 		await run(queryArb(wheelNames, wheelBase), 250, check, 1);
 		// Specs over the valid ranges, as a user would type them: about half are buildable, so the
 		// outline check sees real wheels (the edge values above are nearly all refused).
-		await run(wheelParams.map((p) => new URLSearchParams(p as Record<string, string>).toString()), 150, check, 2);
+		await run(
+			wheelParams.map((p) => new URLSearchParams(p as Record<string, string>).toString()),
+			150,
+			check,
+			2
+		);
 		expect(accepted).toBeGreaterThan(50);
 	}, 120_000);
 
@@ -312,7 +560,12 @@ describe('the stateless tool routes', () => {
 
 	for (const [i, route] of statelessRoutes.entries()) {
 		it(`GET ${route.path}: no 5xx, refusals name the field (${route.runs} runs)`, async () => {
-			await run(queryArb(route.names, route.base), route.runs, async (query) => expectSound(await send({ method: 'GET', path: `${route.path}?${query}` }), route.names), 10 + i);
+			await run(
+				queryArb(route.names, route.base),
+				route.runs,
+				async (query) => expectSound(await send({ method: 'GET', path: `${route.path}?${query}` }), route.names),
+				10 + i
+			);
 		}, 120_000);
 	}
 });
@@ -328,11 +581,14 @@ describe('the signed-in routes', () => {
 		client = await signUp('fuzz owner', freshEmail('fuzz'));
 		cookie = [...client.cookies].map(([k, v]) => `${k}=${v}`).join('; ');
 		buildId = (await client.send<{ id: string }>('POST', '/api/v1/builds', { name: 'Fuzz bench', engine: '500 single' })).body.id;
-		designId = (await client.send<{ id: string }>('POST', `/api/v1/builds/${buildId}/designs`, { name: 'Fuzz wheel', params: wheel })).body.id;
+		designId = (await client.send<{ id: string }>('POST', `/api/v1/builds/${buildId}/designs`, { name: 'Fuzz wheel', params: wheel })).body
+			.id;
 		expect((await client.send('PUT', `/api/v1/builds/${buildId}/engine`, { params: phasingBase })).status).toBe(200);
 		expect((await client.send('POST', `/api/v1/builds/${buildId}/tdc-records`, { label: 'first', params: tdcBase })).status).toBe(201);
 		expect((await client.send('POST', `/api/v1/builds/${buildId}/tapes`, { label: 'hub', params: tapeBase })).status).toBe(201);
-		const png = await sharp({ create: { width: 64, height: 64, channels: 3, background: '#808080' } }).png().toBuffer();
+		const png = await sharp({ create: { width: 64, height: 64, channels: 3, background: '#808080' } })
+			.png()
+			.toBuffer();
 		const form = new FormData();
 		form.append('file', new Blob([new Uint8Array(png)], { type: 'image/png' }), 'bench.png');
 		photoId = (await client.send<{ photos: { id: string }[] }>('POST', `/api/v1/builds/${buildId}/photos`, form)).body.photos[0]!.id;
@@ -342,75 +598,233 @@ describe('the signed-in routes', () => {
 	const text = fc.oneof(textValue, fc.string({ maxLength: 200 }), awkwardText);
 
 	it('GET /api/v1/builds: the list query', async () => {
-		await run(queryArb(buildFields, { q: 'fuzz', sort: 'name', page: '1', size: '20' }), 200, async (q) => expectSound(await send({ method: 'GET', path: `/api/v1/builds?${q}` }), buildFields), 30);
+		await run(
+			queryArb(buildFields, { q: 'fuzz', sort: 'name', page: '1', size: '20' }),
+			200,
+			async (q) => expectSound(await send({ method: 'GET', path: `/api/v1/builds?${q}` }), buildFields),
+			30
+		);
 	}, 120_000);
 
 	it('POST /api/v1/builds and PATCH /api/v1/builds/:id: bodies of any shape', async () => {
-		await run(bodyArb({ name: text, engine: text }, { name: 'Fuzz build', engine: 'twin' }), 80, async ({ body, type }) => expectSound(await send({ method: 'POST', path: '/api/v1/builds', body, type }), ['name', 'engine']), 31);
-		await run(bodyArb({ name: text, engine: text, notes: text }, { name: 'Fuzz bench', engine: 'single', notes: 'n' }), 80, async ({ body, type }) => expectSound(await send({ method: 'PATCH', path: `/api/v1/builds/${buildId}`, body, type }), ['name', 'engine', 'notes']), 32);
+		await run(
+			bodyArb({ name: text, engine: text }, { name: 'Fuzz build', engine: 'twin' }),
+			80,
+			async ({ body, type }) => expectSound(await send({ method: 'POST', path: '/api/v1/builds', body, type }), ['name', 'engine']),
+			31
+		);
+		await run(
+			bodyArb({ name: text, engine: text, notes: text }, { name: 'Fuzz bench', engine: 'single', notes: 'n' }),
+			80,
+			async ({ body, type }) =>
+				expectSound(await send({ method: 'PATCH', path: `/api/v1/builds/${buildId}`, body, type }), ['name', 'engine', 'notes']),
+			32
+		);
 	}, 120_000);
 
 	it('PUT /api/v1/builds/:id/engine: the phasing parameters', async () => {
-		await run(bodyArb({ params: paramsArb(phasingNames, phasingBase) }, { params: phasingBase }), 100, async ({ body, type }) => expectSound(await send({ method: 'PUT', path: `/api/v1/builds/${buildId}/engine`, body, type }), ['params', ...phasingNames], phasingNames), 33);
+		await run(
+			bodyArb({ params: paramsArb(phasingNames, phasingBase) }, { params: phasingBase }),
+			100,
+			async ({ body, type }) =>
+				expectSound(
+					await send({ method: 'PUT', path: `/api/v1/builds/${buildId}/engine`, body, type }),
+					['params', ...phasingNames],
+					phasingNames
+				),
+			33
+		);
 	}, 120_000);
 
 	it('POST /api/v1/builds/:id/designs: a new design with wheel parameters', async () => {
 		const fields = { name: text, params: paramsArb(wheelNames, wheel), message: text };
-		await run(bodyArb(fields, { name: 'Fuzz design', params: wheel, message: 'm' }), 100, async ({ body, type }) => {
-			const a = await send({ method: 'POST', path: `/api/v1/builds/${buildId}/designs`, body, type });
-			expectSound(a, ['name', 'params', 'message'], wheelNames);
-		}, 34);
+		await run(
+			bodyArb(fields, { name: 'Fuzz design', params: wheel, message: 'm' }),
+			100,
+			async ({ body, type }) => {
+				const a = await send({ method: 'POST', path: `/api/v1/builds/${buildId}/designs`, body, type });
+				expectSound(a, ['name', 'params', 'message'], wheelNames);
+			},
+			34
+		);
 	}, 120_000);
 
 	it('POST /api/v1/designs/:id/revisions and /restore: saves on a base revision', async () => {
 		const base = fc.oneof(fc.integer({ min: 0, max: 5 }), fc.constantFrom(2 ** 31, 2 ** 31 - 1, 2 ** 53, 1e300, -1, 0.5));
-		await run(bodyArb({ baseRevision: base, params: paramsArb(wheelNames, wheel), message: text }, { baseRevision: 1, params: wheel, message: 'm' }), 100, async ({ body, type }) => {
-			expectSound(await send({ method: 'POST', path: `/api/v1/designs/${designId}/revisions`, body, type }), ['baseRevision', 'params', 'message'], wheelNames);
-		}, 35);
-		await run(bodyArb({ revision: base, baseRevision: base, message: text }, { revision: 1, baseRevision: 1 }), 80, async ({ body, type }) => {
-			expectSound(await send({ method: 'POST', path: `/api/v1/designs/${designId}/restore`, body, type }), ['revision', 'baseRevision', 'message']);
-		}, 36);
+		await run(
+			bodyArb(
+				{ baseRevision: base, params: paramsArb(wheelNames, wheel), message: text },
+				{ baseRevision: 1, params: wheel, message: 'm' }
+			),
+			100,
+			async ({ body, type }) => {
+				expectSound(
+					await send({ method: 'POST', path: `/api/v1/designs/${designId}/revisions`, body, type }),
+					['baseRevision', 'params', 'message'],
+					wheelNames
+				);
+			},
+			35
+		);
+		await run(
+			bodyArb({ revision: base, baseRevision: base, message: text }, { revision: 1, baseRevision: 1 }),
+			80,
+			async ({ body, type }) => {
+				expectSound(await send({ method: 'POST', path: `/api/v1/designs/${designId}/restore`, body, type }), [
+					'revision',
+					'baseRevision',
+					'message'
+				]);
+			},
+			36
+		);
 	}, 120_000);
 
 	it('GET compare, revisions and revision files: queries and path segments', async () => {
-		await run(queryArb(['a', 'b'], { a: '1', b: '1' }), 100, async (q) => expectSound(await send({ method: 'GET', path: `/api/v1/designs/${designId}/compare?${q}` }), ['a', 'b']), 37);
-		const number = fc.oneof(fc.constantFrom('1', '2', '0', '-1', '1.5', '1e3', '1e400', 'NaN', 'Infinity', '2147483648', '99999999999999999999', '%20', '+1', '0x1', ' 1'), numberText.map(encodeURIComponent));
-		const file = fc.oneof(fc.constantFrom('wheel.dxf', 'wheel.svg', 'wheel.pdf', 'wheel.', 'wheel', 'wheel.exe', 'WHEEL.DXF', 'wheel.dxf.pdf', '..', '%2e%2e', 'wheel.%00'), fc.string({ maxLength: 20 }).map(encodeURIComponent));
-		await run(fc.tuple(number, file), 100, async ([n, f]) => {
-			expectSound(await send({ method: 'GET', path: `/api/v1/designs/${designId}/revisions/${n}` }), []);
-			expectSound(await send({ method: 'GET', path: `/api/v1/designs/${designId}/revisions/${n}/${f}` }), []);
-		}, 38);
+		await run(
+			queryArb(['a', 'b'], { a: '1', b: '1' }),
+			100,
+			async (q) => expectSound(await send({ method: 'GET', path: `/api/v1/designs/${designId}/compare?${q}` }), ['a', 'b']),
+			37
+		);
+		const number = fc.oneof(
+			fc.constantFrom(
+				'1',
+				'2',
+				'0',
+				'-1',
+				'1.5',
+				'1e3',
+				'1e400',
+				'NaN',
+				'Infinity',
+				'2147483648',
+				'99999999999999999999',
+				'%20',
+				'+1',
+				'0x1',
+				' 1'
+			),
+			numberText.map(encodeURIComponent)
+		);
+		const file = fc.oneof(
+			fc.constantFrom(
+				'wheel.dxf',
+				'wheel.svg',
+				'wheel.pdf',
+				'wheel.',
+				'wheel',
+				'wheel.exe',
+				'WHEEL.DXF',
+				'wheel.dxf.pdf',
+				'..',
+				'%2e%2e',
+				'wheel.%00'
+			),
+			fc.string({ maxLength: 20 }).map(encodeURIComponent)
+		);
+		await run(
+			fc.tuple(number, file),
+			100,
+			async ([n, f]) => {
+				expectSound(await send({ method: 'GET', path: `/api/v1/designs/${designId}/revisions/${n}` }), []);
+				expectSound(await send({ method: 'GET', path: `/api/v1/designs/${designId}/revisions/${n}/${f}` }), []);
+			},
+			38
+		);
 	}, 120_000);
 
 	it('POST tdc-records and tapes: records with the tools’ parameters', async () => {
-		await run(bodyArb({ label: text, params: paramsArb(tdcNames, tdcBase) }, { label: 'l', params: tdcBase }), 80, async ({ body, type }) => {
-			expectSound(await send({ method: 'POST', path: `/api/v1/builds/${buildId}/tdc-records`, body, type }), ['label', 'params'], tdcNames);
-		}, 39);
-		await run(bodyArb({ label: text, params: paramsArb(tapeNames, tapeBase) }, { label: 'l', params: tapeBase }), 80, async ({ body, type }) => {
-			expectSound(await send({ method: 'POST', path: `/api/v1/builds/${buildId}/tapes`, body, type }), ['label', 'params'], tapeNames);
-		}, 40);
+		await run(
+			bodyArb({ label: text, params: paramsArb(tdcNames, tdcBase) }, { label: 'l', params: tdcBase }),
+			80,
+			async ({ body, type }) => {
+				expectSound(
+					await send({ method: 'POST', path: `/api/v1/builds/${buildId}/tdc-records`, body, type }),
+					['label', 'params'],
+					tdcNames
+				);
+			},
+			39
+		);
+		await run(
+			bodyArb({ label: text, params: paramsArb(tapeNames, tapeBase) }, { label: 'l', params: tapeBase }),
+			80,
+			async ({ body, type }) => {
+				expectSound(await send({ method: 'POST', path: `/api/v1/builds/${buildId}/tapes`, body, type }), ['label', 'params'], tapeNames);
+			},
+			40
+		);
 	}, 120_000);
 
 	it('POST /api/v1/photos/:id/reading: taps of any shape', async () => {
-		const point = fc.oneof(fc.record({ x: fc.oneof(fc.double(), fc.integer({ min: -10, max: 80 })), y: fc.oneof(fc.double(), fc.integer({ min: -10, max: 80 })) }), jsonValue);
+		const point = fc.oneof(
+			fc.record({
+				x: fc.oneof(fc.double(), fc.integer({ min: -10, max: 80 })),
+				y: fc.oneof(fc.double(), fc.integer({ min: -10, max: 80 }))
+			}),
+			jsonValue
+		);
 		const tips = fc.oneof(fc.array(point, { maxLength: 30 }), jsonValue);
 		const od = fc.oneof(fc.double(), fc.constantFrom('3 1/2', '100', '1/0', '', '9'.repeat(400)), jsonValue);
 		const units = fc.oneof(fc.constantFrom('mm', 'in', 'cm', ''), jsonValue);
-		await run(bodyArb({ centre: point, tips, od, units, odMm: fc.oneof(fc.double(), jsonValue) }, { centre: { x: 32, y: 32 }, tips: [{ x: 60, y: 32 }], odMm: 100 }), 80, async ({ body, type }) => {
-			// `image` is the photo itself: the reading's refusal when the taps find no teeth in it.
-			expectSound(await send({ method: 'POST', path: `/api/v1/photos/${photoId}/reading`, body, type }), ['centre', 'tips', 'od', 'units', 'odMm', 'image']);
-		}, 41);
+		await run(
+			bodyArb(
+				{ centre: point, tips, od, units, odMm: fc.oneof(fc.double(), jsonValue) },
+				{ centre: { x: 32, y: 32 }, tips: [{ x: 60, y: 32 }], odMm: 100 }
+			),
+			80,
+			async ({ body, type }) => {
+				// `image` is the photo itself: the reading's refusal when the taps find no teeth in it.
+				expectSound(await send({ method: 'POST', path: `/api/v1/photos/${photoId}/reading`, body, type }), [
+					'centre',
+					'tips',
+					'od',
+					'units',
+					'odMm',
+					'image'
+				]);
+			},
+			41
+		);
 	}, 120_000);
 
 	it('POST /api/v1/builds/:id/cutting-packages: the package request', async () => {
-		const fields = { designId: fc.oneof(fc.constant(designId), fc.uuid().map(String), text), revision: fc.oneof(fc.integer({ min: -2, max: 3 }), fc.constantFrom(2 ** 31, 1e300, 0.5)), to: fc.oneof(fc.emailAddress(), text), quantity: fc.oneof(fc.integer({ min: -5, max: 20_000 }), fc.constantFrom(1e300, 0.5)), notes: text };
-		await run(bodyArb(fields, { designId, revision: 1, to: 'cutter@example.test', quantity: 2, notes: '' }), 80, async ({ body, type }) => {
-			expectSound(await send({ method: 'POST', path: `/api/v1/builds/${buildId}/cutting-packages`, body, type }), ['designId', 'revision', 'to', 'quantity', 'notes']);
-		}, 42);
+		const fields = {
+			designId: fc.oneof(fc.constant(designId), fc.uuid().map(String), text),
+			revision: fc.oneof(fc.integer({ min: -2, max: 3 }), fc.constantFrom(2 ** 31, 1e300, 0.5)),
+			to: fc.oneof(fc.emailAddress(), text),
+			quantity: fc.oneof(fc.integer({ min: -5, max: 20_000 }), fc.constantFrom(1e300, 0.5)),
+			notes: text
+		};
+		await run(
+			bodyArb(fields, { designId, revision: 1, to: 'cutter@example.test', quantity: 2, notes: '' }),
+			80,
+			async ({ body, type }) => {
+				expectSound(await send({ method: 'POST', path: `/api/v1/builds/${buildId}/cutting-packages`, body, type }), [
+					'designId',
+					'revision',
+					'to',
+					'quantity',
+					'notes'
+				]);
+			},
+			42
+		);
 	}, 120_000);
 
 	it('GET /api/v1/builds/:id/build-sheet.pdf: design and revision', async () => {
-		await run(queryArb(['design', 'revision'], { revision: '1' }), 60, async (q) => expectSound(await send({ method: 'GET', path: `/api/v1/builds/${buildId}/build-sheet.pdf?${q}` }), ['design', 'revision', ...sheetNames]), 43);
+		await run(
+			queryArb(['design', 'revision'], { revision: '1' }),
+			60,
+			async (q) =>
+				expectSound(await send({ method: 'GET', path: `/api/v1/builds/${buildId}/build-sheet.pdf?${q}` }), [
+					'design',
+					'revision',
+					...sheetNames
+				]),
+			43
+		);
 	}, 120_000);
 
 	it('made-up ids in every path answer 4xx, never touching real objects', async () => {
@@ -439,36 +853,89 @@ describe('the signed-in routes', () => {
 			['GET', `/api/v1/photos/${id}/thumbnail`],
 			['POST', `/api/v1/photos/${id}/reading`]
 		];
-		await run(madeUpId, 20, async (id) => {
-			for (const [method, path] of paths(id)) {
-				const a = await send({ method: method!, path: path!, ...(method === 'GET' || method === 'DELETE' ? {} : { body: '{"name":"x","params":{}}', type: 'application/json' }) });
-				expectSound(a, []);
-				// A made-up id finds nothing: never a success (the real ids are not among the generated
-				// ones). An empty or dot segment may be answered by the router's redirect, not followed.
-				expect(a.status >= 200 && a.status < 300, `${shown(a.request)} → ${a.status}`).toBe(false);
-			}
-		}, 44);
+		await run(
+			madeUpId,
+			20,
+			async (id) => {
+				for (const [method, path] of paths(id)) {
+					const a = await send({
+						method: method!,
+						path: path!,
+						...(method === 'GET' || method === 'DELETE' ? {} : { body: '{"name":"x","params":{}}', type: 'application/json' })
+					});
+					expectSound(a, []);
+					// A made-up id finds nothing: never a success (the real ids are not among the generated
+					// ones). An empty or dot segment may be answered by the router's redirect, not followed.
+					expect(a.status >= 200 && a.status < 300, `${shown(a.request)} → ${a.status}`).toBe(false);
+				}
+			},
+			44
+		);
 		// And the real objects are all still there.
-		for (const path of [`/api/v1/builds/${buildId}`, `/api/v1/designs/${designId}`, `/api/v1/photos/${photoId}`]) expect((await send({ method: 'GET', path })).status, path).toBe(200);
+		for (const path of [`/api/v1/builds/${buildId}`, `/api/v1/designs/${designId}`, `/api/v1/photos/${photoId}`])
+			expect((await send({ method: 'GET', path })).status, path).toBe(200);
 	}, 120_000);
 
 	it('unexpected methods and bodies on every route answer 4xx or a success, never 5xx', async () => {
 		const routes = () => [
-			'/api/health', '/api/v1/wheel?teeth=36&od=100&depth=5', '/api/v1/wheel.dxf', '/api/v1/wheel.svg', '/api/v1/wheel.pdf', '/api/v1/tape', '/api/v1/tape.pdf', '/api/v1/tdc',
-			'/api/v1/timing-card.pdf', '/api/v1/phasing', '/api/v1/build-sheet.pdf', '/api/v1/builds', `/api/v1/builds/${buildId}`, `/api/v1/builds/${buildId}/engine`,
-			`/api/v1/builds/${buildId}/designs`, `/api/v1/builds/${buildId}/photos`, `/api/v1/builds/${buildId}/cutting-packages`, `/api/v1/builds/${buildId}/tdc-records`,
-			`/api/v1/builds/${buildId}/tapes`, `/api/v1/builds/${buildId}/build-sheet.pdf`, `/api/v1/designs/${designId}`, `/api/v1/designs/${designId}/revisions`,
-			`/api/v1/designs/${designId}/revisions/1`, `/api/v1/designs/${designId}/revisions/1/wheel.svg`, `/api/v1/designs/${designId}/restore`, `/api/v1/designs/${designId}/compare`,
-			`/api/v1/photos/${photoId}`, `/api/v1/photos/${photoId}/thumbnail`, `/api/v1/photos/${photoId}/reading`
+			'/api/health',
+			'/api/v1/wheel?teeth=36&od=100&depth=5',
+			'/api/v1/wheel.dxf',
+			'/api/v1/wheel.svg',
+			'/api/v1/wheel.pdf',
+			'/api/v1/tape',
+			'/api/v1/tape.pdf',
+			'/api/v1/tdc',
+			'/api/v1/timing-card.pdf',
+			'/api/v1/phasing',
+			'/api/v1/build-sheet.pdf',
+			'/api/v1/builds',
+			`/api/v1/builds/${buildId}`,
+			`/api/v1/builds/${buildId}/engine`,
+			`/api/v1/builds/${buildId}/designs`,
+			`/api/v1/builds/${buildId}/photos`,
+			`/api/v1/builds/${buildId}/cutting-packages`,
+			`/api/v1/builds/${buildId}/tdc-records`,
+			`/api/v1/builds/${buildId}/tapes`,
+			`/api/v1/builds/${buildId}/build-sheet.pdf`,
+			`/api/v1/designs/${designId}`,
+			`/api/v1/designs/${designId}/revisions`,
+			`/api/v1/designs/${designId}/revisions/1`,
+			`/api/v1/designs/${designId}/revisions/1/wheel.svg`,
+			`/api/v1/designs/${designId}/restore`,
+			`/api/v1/designs/${designId}/compare`,
+			`/api/v1/photos/${photoId}`,
+			`/api/v1/photos/${photoId}/thumbnail`,
+			`/api/v1/photos/${photoId}/reading`
 		];
 		// DELETE only on made-up ids (above): here it would remove the bench itself.
 		const method = fc.constantFrom('GET', 'HEAD', 'POST', 'PUT', 'PATCH', 'OPTIONS');
-		await run(fc.tuple(fc.nat(), method, fc.option(fc.oneof(fc.constantFrom(...rawTexts), jsonValue.map((v) => JSON.stringify(v))), { nil: undefined }), contentType), 150, async ([n, m, body, type]) => {
-			const list = routes();
-			const withBody = m !== 'GET' && m !== 'HEAD';
-			expectSound(await send({ method: m, path: list[n % list.length]!, ...(withBody && body !== undefined ? { body, type } : {}) }), everyName);
-		}, 45);
-		for (const path of [`/api/v1/builds/${buildId}`, `/api/v1/designs/${designId}`, `/api/v1/photos/${photoId}`]) expect((await send({ method: 'GET', path })).status, path).toBe(200);
+		await run(
+			fc.tuple(
+				fc.nat(),
+				method,
+				fc.option(
+					fc.oneof(
+						fc.constantFrom(...rawTexts),
+						jsonValue.map((v) => JSON.stringify(v))
+					),
+					{ nil: undefined }
+				),
+				contentType
+			),
+			150,
+			async ([n, m, body, type]) => {
+				const list = routes();
+				const withBody = m !== 'GET' && m !== 'HEAD';
+				expectSound(
+					await send({ method: m, path: list[n % list.length]!, ...(withBody && body !== undefined ? { body, type } : {}) }),
+					everyName
+				);
+			},
+			45
+		);
+		for (const path of [`/api/v1/builds/${buildId}`, `/api/v1/designs/${designId}`, `/api/v1/photos/${photoId}`])
+			expect((await send({ method: 'GET', path })).status, path).toBe(200);
 	}, 120_000);
 
 	// Found by the fuzz or by what it pointed at (PostgreSQL refuses NUL in text, NUL and unpaired
@@ -479,12 +946,36 @@ describe('the signed-in routes', () => {
 			['POST', '/api/v1/builds', { name: 'a\u0000b' }, 'name', /^name: one line of text without control/],
 			['PATCH', `/api/v1/builds/${buildId}`, { notes: 'lone \ud800 surrogate' }, 'notes', /^notes: text without NUL or unpaired surrogate/],
 			['GET', '/api/v1/builds?q=%00', undefined, 'q', /^q: /],
-			['POST', `/api/v1/builds/${buildId}/designs`, { name: 'n', params: { ...wheel, label: 'x\u0000' } }, 'params', /^params: names and values without NUL/],
+			[
+				'POST',
+				`/api/v1/builds/${buildId}/designs`,
+				{ name: 'n', params: { ...wheel, label: 'x\u0000' } },
+				'params',
+				/^params: names and values without NUL/
+			],
 			['POST', `/api/v1/builds/${buildId}/tapes`, { params: { diameter: '150', timing: '\udfff' } }, 'params', /^params: /],
-			['PUT', `/api/v1/builds/${buildId}/engine`, { params: { ...phasingBase, layout: null } }, 'params.layout', /^params: each value text, a number or true\/false/],
-			['POST', `/api/v1/designs/${designId}/restore`, { revision: 2 ** 31, baseRevision: 1 }, 'revision', /^revision: a whole number from 1 to 1000000/],
+			[
+				'PUT',
+				`/api/v1/builds/${buildId}/engine`,
+				{ params: { ...phasingBase, layout: null } },
+				'params.layout',
+				/^params: each value text, a number or true\/false/
+			],
+			[
+				'POST',
+				`/api/v1/designs/${designId}/restore`,
+				{ revision: 2 ** 31, baseRevision: 1 },
+				'revision',
+				/^revision: a whole number from 1 to 1000000/
+			],
 			['POST', `/api/v1/designs/${designId}/revisions`, { baseRevision: 2 ** 31, params: wheel }, 'baseRevision', /^baseRevision: /],
-			['POST', `/api/v1/builds/${buildId}/cutting-packages`, { designId, revision: 2 ** 31, to: 'cutter@example.test', quantity: 1 }, 'revision', /^revision: /],
+			[
+				'POST',
+				`/api/v1/builds/${buildId}/cutting-packages`,
+				{ designId, revision: 2 ** 31, to: 'cutter@example.test', quantity: 1 },
+				'revision',
+				/^revision: /
+			],
 			['GET', `/api/v1/designs/${designId}/compare?a=&b=Infinity`, undefined, 'b', /^b: a whole number from 1/]
 		];
 		for (const [method, path, body, field, says] of cases) {
@@ -502,45 +993,97 @@ describe('the signed-in routes', () => {
 		// keep-alive connection used to hang until the server's keep-alive timeout reset them.
 		const body = JSON.stringify({ name: 'x', engine: 'e'.repeat(300_000) });
 		for (let i = 0; i < 4; i++) {
-			const a = await send({ method: i % 2 ? 'PATCH' : 'POST', path: i % 2 ? `/api/v1/builds/${buildId}` : '/api/v1/builds', body, type: 'application/json' }, false);
+			const a = await send(
+				{ method: i % 2 ? 'PATCH' : 'POST', path: i % 2 ? `/api/v1/builds/${buildId}` : '/api/v1/builds', body, type: 'application/json' },
+				false
+			);
 			expect(a.status, `request ${i}`).toBe(413);
 		}
 		// Under the cap, the refusal is still the sign-in's.
 		const small = JSON.stringify({ name: 'x', engine: 'e'.repeat(60_000) });
-		for (let i = 0; i < 4; i++) expect((await send({ method: 'POST', path: '/api/v1/builds', body: small, type: 'application/json' }, false)).status, `request ${i}`).toBe(401);
+		for (let i = 0; i < 4; i++)
+			expect(
+				(await send({ method: 'POST', path: '/api/v1/builds', body: small, type: 'application/json' }, false)).status,
+				`request ${i}`
+			).toBe(401);
 	});
 
 	it('names with control, line-break or direction-override characters anywhere are refused naming the field, and never stored', async () => {
 		// The characters: Unicode general category Cc (C0, DEL, C1), U+2028/U+2029, and UAX #9's explicit
 		// embeddings, overrides and isolates (U+202A–U+202E, U+2066–U+2069).
-		const refusedChars = [...Array.from({ length: 0x20 }, (_, i) => i), 0x7f, 0x85, 0x9f, 0x2028, 0x2029, 0x202a, 0x202c, 0x202e, 0x2066, 0x2069].map((cp) => String.fromCodePoint(cp));
-		const named = fc.tuple(fc.string({ minLength: 1, maxLength: 12 }), fc.constantFrom(...refusedChars), fc.string({ minLength: 1, maxLength: 12 })).map(([a, c, b]) => `x${a}${c}${b}x`);
+		const refusedChars = [
+			...Array.from({ length: 0x20 }, (_, i) => i),
+			0x7f,
+			0x85,
+			0x9f,
+			0x2028,
+			0x2029,
+			0x202a,
+			0x202c,
+			0x202e,
+			0x2066,
+			0x2069
+		].map((cp) => String.fromCodePoint(cp));
+		const named = fc
+			.tuple(fc.string({ minLength: 1, maxLength: 12 }), fc.constantFrom(...refusedChars), fc.string({ minLength: 1, maxLength: 12 }))
+			.map(([a, c, b]) => `x${a}${c}${b}x`);
 		const routes: { method: string; path: () => string; body: (name: string) => unknown; field: string }[] = [
 			{ method: 'POST', path: () => '/api/v1/builds', body: (name) => ({ name }), field: 'name' },
 			{ method: 'PATCH', path: () => `/api/v1/builds/${buildId}`, body: (name) => ({ name }), field: 'name' },
 			{ method: 'POST', path: () => `/api/v1/builds/${buildId}/designs`, body: (name) => ({ name, params: wheel }), field: 'name' },
 			{ method: 'POST', path: () => `/api/v1/builds/${buildId}/tapes`, body: (label) => ({ label, params: tapeBase }), field: 'label' },
-			{ method: 'POST', path: () => `/api/v1/designs/${designId}/revisions`, body: (message) => ({ baseRevision: 1, params: wheel, message }), field: 'message' }
+			{
+				method: 'POST',
+				path: () => `/api/v1/designs/${designId}/revisions`,
+				body: (message) => ({ baseRevision: 1, params: wheel, message }),
+				field: 'message'
+			}
 		];
-		await run(fc.tuple(fc.nat(), named), 120, async ([n, name]) => {
-			const route = routes[n % routes.length]!;
-			const a = await send({ method: route.method, path: route.path(), body: JSON.stringify(route.body(name)), type: 'application/json' });
-			expect(a.status, shown(a.request)).toBe(400);
-			expect(String(a.json?.errors?.[route.field]), shown(a.request)).toMatch(new RegExp(`^${route.field}: one line of text`));
-		}, 47);
-		const { body } = await (async () => ({ body: (await send({ method: 'GET', path: `/api/v1/builds/${buildId}` })).json as unknown as { build: { name: string }; designs: { name: string }[]; tapes: { label: string }[] } }))();
+		await run(
+			fc.tuple(fc.nat(), named),
+			120,
+			async ([n, name]) => {
+				const route = routes[n % routes.length]!;
+				const a = await send({
+					method: route.method,
+					path: route.path(),
+					body: JSON.stringify(route.body(name)),
+					type: 'application/json'
+				});
+				expect(a.status, shown(a.request)).toBe(400);
+				expect(String(a.json?.errors?.[route.field]), shown(a.request)).toMatch(new RegExp(`^${route.field}: one line of text`));
+			},
+			47
+		);
+		const { body } = await (async () => ({
+			body: (await send({ method: 'GET', path: `/api/v1/builds/${buildId}` })).json as unknown as {
+				build: { name: string };
+				designs: { name: string }[];
+				tapes: { label: string }[];
+			}
+		}))();
 		const stored = [body.build.name, ...body.designs.map((d) => d.name), ...body.tapes.map((t) => t.label)];
 		expect(stored.filter((s) => /[\p{Cc}\u2028\u2029\u202a-\u202e\u2066-\u2069]/u.test(s))).toEqual([]);
 	}, 120_000);
 
 	it('signed out, the signed-in routes refuse any input with 4xx, never 5xx', async () => {
-		await run(fc.tuple(queryArb(buildFields, {}), bodyArb({ name: text }, { name: 'x' })), 40, async ([q, { body, type }]) => {
-			for (const [method, path] of [['GET', `/api/v1/builds?${q}`], ['POST', '/api/v1/builds'], ['PATCH', `/api/v1/builds/${buildId}`], ['POST', `/api/v1/designs/${designId}/revisions`]]) {
-				const a = await send({ method: method!, path: path!, ...(method === 'GET' ? {} : { body, type }) }, false);
-				expectSound(a, buildFields);
-				// A bad list query may be refused before the sign-in is looked at; nothing else gets through.
-				expect([400, 401, 403, 404], shown(a.request)).toContain(a.status);
-			}
-		}, 46);
+		await run(
+			fc.tuple(queryArb(buildFields, {}), bodyArb({ name: text }, { name: 'x' })),
+			40,
+			async ([q, { body, type }]) => {
+				for (const [method, path] of [
+					['GET', `/api/v1/builds?${q}`],
+					['POST', '/api/v1/builds'],
+					['PATCH', `/api/v1/builds/${buildId}`],
+					['POST', `/api/v1/designs/${designId}/revisions`]
+				]) {
+					const a = await send({ method: method!, path: path!, ...(method === 'GET' ? {} : { body, type }) }, false);
+					expectSound(a, buildFields);
+					// A bad list query may be refused before the sign-in is looked at; nothing else gets through.
+					expect([400, 401, 403, 404], shown(a.request)).toContain(a.status);
+				}
+			},
+			46
+		);
 	}, 120_000);
 });

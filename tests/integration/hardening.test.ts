@@ -51,9 +51,20 @@ async function freePort(): Promise<number> {
 async function startBehindProxy(): Promise<Instance> {
 	const port = await freePort();
 	const url = `http://127.0.0.1:${port}`;
-	const env: NodeJS.ProcessEnv = { ...process.env, NODE_ENV: 'production', HOST: '127.0.0.1', PORT: String(port), ORIGIN: url, ADDRESS_HEADER: 'x-forwarded-for', XFF_DEPTH: '1' };
+	const env: NodeJS.ProcessEnv = {
+		...process.env,
+		NODE_ENV: 'production',
+		HOST: '127.0.0.1',
+		PORT: String(port),
+		ORIGIN: url,
+		ADDRESS_HEADER: 'x-forwarded-for',
+		XFF_DEPTH: '1'
+	};
 	delete env.MAIL_LIMIT_PER_CLIENT;
-	const child = spawn(process.execPath, [join(import.meta.dirname, '..', '..', 'build', 'index.js')], { env, stdio: ['ignore', 'ignore', 'inherit'] });
+	const child = spawn(process.execPath, [join(import.meta.dirname, '..', '..', 'build', 'index.js')], {
+		env,
+		stdio: ['ignore', 'ignore', 'inherit']
+	});
 	for (let i = 0; i < 150; i++) {
 		if (child.exitCode !== null) throw new Error(`the second server exited with code ${child.exitCode}`);
 		try {
@@ -85,10 +96,21 @@ let farCounter = 0;
 const farAddress = () => `10.${Math.floor(farCounter / 250) % 250}.${farCounter++ % 250}.7`;
 
 /** A form action posted the way `enhance` posts it, to an instance, from a client address. */
-async function actionVia(instance: { url: string }, path: string, fields: Record<string, string>, from: string): Promise<{ status: number; data: string }> {
+async function actionVia(
+	instance: { url: string },
+	path: string,
+	fields: Record<string, string>,
+	from: string
+): Promise<{ status: number; data: string }> {
 	const res = await fetch(`${instance.url}${path}`, {
 		method: 'POST',
-		headers: { origin: instance.url, accept: 'application/json', 'x-sveltekit-action': 'true', 'content-type': 'application/x-www-form-urlencoded', 'x-forwarded-for': from },
+		headers: {
+			origin: instance.url,
+			accept: 'application/json',
+			'x-sveltekit-action': 'true',
+			'content-type': 'application/x-www-form-urlencoded',
+			'x-forwarded-for': from
+		},
 		body: new URLSearchParams(fields)
 	});
 	const body = (await res.json()) as { type: string; status?: number; data?: string; error?: { message: string } };
@@ -122,10 +144,14 @@ const wheel = { units: 'mm', teeth: '36', missing: '1', od: '100', depth: '5', t
 describe('e-mail throttle', () => {
 	it('sends at most five sign-in links to one address, however many parallel requests from however many clients', async () => {
 		const victim = freshEmail('flood-link');
-		const answers = await Promise.all(Array.from({ length: 30 }, () => actionVia(proxied, '/signin?/link', { email: victim }, clientAddress())));
+		const answers = await Promise.all(
+			Array.from({ length: 30 }, () => actionVia(proxied, '/signin?/link', { email: victim }, clientAddress()))
+		);
 		// Counted before sending, atomically: exactly the limit gets through, as with the sign-in throttle.
 		expect(tally(answers.map((a) => a.status)), JSON.stringify(answers.slice(0, 3))).toEqual({ 303: perAddress, 429: 30 - perAddress });
-		expect(answers.find((a) => a.status === 429)!.data).toMatch(/Too many e-mails were asked for this address; nothing was sent\. Try again in \d+ minutes?\./);
+		expect(answers.find((a) => a.status === 429)!.data).toMatch(
+			/Too many e-mails were asked for this address; nothing was sent\. Try again in \d+ minutes?\./
+		);
 		expect(await messagesTo(victim)).toHaveLength(perAddress);
 	}, 60_000);
 
@@ -167,7 +193,9 @@ describe('e-mail throttle', () => {
 	it('sign-up and reset: at most five messages to one address; the refusal is the same whether the address has an account', async () => {
 		const taken = freshEmail('flood-taken');
 		await signUp('Taken', taken, password);
-		const signUps = await Promise.all(Array.from({ length: 12 }, () => actionVia(proxied, '/signup', { name: 'Flooder', email: taken, password }, clientAddress())));
+		const signUps = await Promise.all(
+			Array.from({ length: 12 }, () => actionVia(proxied, '/signup', { name: 'Flooder', email: taken, password }, clientAddress()))
+		);
 		// The sign-up that made the account counted too: four more get through.
 		expect(tally(signUps.map((a) => a.status))).toEqual({ 200: perAddress - 1, 429: 12 - perAddress + 1 });
 		expect((await messagesTo(taken)).filter((m) => /already have/.test(m.subject))).toHaveLength(perAddress - 1);
@@ -178,7 +206,9 @@ describe('e-mail throttle', () => {
 
 		// An address without an account meets the same limit at the same count.
 		const unknown = freshEmail('flood-unknown');
-		const unknownResets = await Promise.all(Array.from({ length: 12 }, () => actionVia(proxied, '/reset', { email: unknown }, clientAddress())));
+		const unknownResets = await Promise.all(
+			Array.from({ length: 12 }, () => actionVia(proxied, '/reset', { email: unknown }, clientAddress()))
+		);
 		expect(tally(unknownResets.map((a) => a.status))).toEqual({ 200: perAddress, 429: 12 - perAddress });
 		expect(await messagesTo(unknown, 0)).toHaveLength(0);
 	}, 60_000);
@@ -187,25 +217,38 @@ describe('e-mail throttle', () => {
 		const shop = await owner('flood-invite');
 		const invitee = freshEmail('flood-invitee');
 		const answers = [];
-		for (let i = 0; i < perAddress + 2; i++) answers.push(await shop.client.action('/workshop', 'invite', { email: invitee, role: 'viewer' }));
+		for (let i = 0; i < perAddress + 2; i++)
+			answers.push(await shop.client.action('/workshop', 'invite', { email: invitee, role: 'viewer' }));
 		expect(answers.map((a) => a.status)).toEqual([...Array(perAddress).fill(200), 429, 429]);
-		expect(answers.at(-1)!.data).toMatchObject({ action: 'invite', message: expect.stringMatching(/Too many e-mails were asked for this address/) });
+		expect(answers.at(-1)!.data).toMatchObject({
+			action: 'invite',
+			message: expect.stringMatching(/Too many e-mails were asked for this address/)
+		});
 		expect(await messagesTo(invitee)).toHaveLength(perAddress);
 	}, 60_000);
 
 	it('cutting packages: at most twenty per workshop per hour, whatever the fabricators; 429 says when to try again', async () => {
 		const shop = await owner('flood-package');
 		const buildId = (await shop.client.send<{ id: string }>('POST', '/api/v1/builds', { name: 'Package flood' })).body.id;
-		const designId = (await shop.client.send<{ id: string }>('POST', `/api/v1/builds/${buildId}/designs`, { name: 'Flood wheel', params: wheel })).body.id;
+		const designId = (
+			await shop.client.send<{ id: string }>('POST', `/api/v1/builds/${buildId}/designs`, { name: 'Flood wheel', params: wheel })
+		).body.id;
 		const statuses: number[] = [];
 		let refusal: { status: number; body: { message?: string; code?: string } } | undefined;
 		for (let i = 0; i < 21; i++) {
-			const res = await shop.client.send<{ message?: string; code?: string }>('POST', `/api/v1/builds/${buildId}/cutting-packages`, { designId, to: freshEmail(`cutter-${i}`), quantity: 1 });
+			const res = await shop.client.send<{ message?: string; code?: string }>('POST', `/api/v1/builds/${buildId}/cutting-packages`, {
+				designId,
+				to: freshEmail(`cutter-${i}`),
+				quantity: 1
+			});
 			statuses.push(res.status);
 			if (res.status === 429) refusal = res;
 		}
 		expect(tally(statuses)).toEqual({ 201: 20, 429: 1 });
-		expect(refusal!.body).toMatchObject({ code: 'throttled', message: expect.stringMatching(/This workshop has sent as many cutting packages as it may in an hour; nothing was sent/) });
+		expect(refusal!.body).toMatchObject({
+			code: 'throttled',
+			message: expect.stringMatching(/This workshop has sent as many cutting packages as it may in an hour; nothing was sent/)
+		});
 		const { body } = await shop.client.json<{ cuttingPackages: unknown[] }>(`/api/v1/builds/${buildId}`);
 		expect(body.cuttingPackages).toHaveLength(20);
 	}, 120_000);
@@ -219,7 +262,11 @@ describe('e-mail throttle', () => {
 		expect(await shop.client.action('/workshop', 'invite', { email: invitee, role: 'viewer' })).toMatchObject({ type: 'success' });
 		const mail = await mailTo(invitee, 'Invitation');
 		const lines = mail.text.split('\n');
-		expect(lines.filter((l) => l.includes('evil.example'))).toEqual([expect.stringMatching(/^A Phasewright user named “Eve Your account is locked\. Unlock it at http:\/\/evil\.example\/unlock” invites you/)]);
+		expect(lines.filter((l) => l.includes('evil.example'))).toEqual([
+			expect.stringMatching(
+				/^A Phasewright user named “Eve Your account is locked\. Unlock it at http:\/\/evil\.example\/unlock” invites you/
+			)
+		]);
 		expect(lines.some((l) => l.startsWith('Your account is locked'))).toBe(false);
 	}, 60_000);
 });
@@ -254,7 +301,10 @@ describe('password reset timing', () => {
 		}
 		const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)]!;
 		const [known, unknownMedian] = [median(times.known), median(times.unknown)];
-		expect(Math.abs(known - unknownMedian), `median ${known.toFixed(1)} ms registered, ${unknownMedian.toFixed(1)} ms unknown`).toBeLessThan(25);
+		expect(
+			Math.abs(known - unknownMedian),
+			`median ${known.toFixed(1)} ms registered, ${unknownMedian.toFixed(1)} ms unknown`
+		).toBeLessThan(25);
 		// The work was done: registered addresses got their link, unknown ones nothing.
 		expect((await mailTo(registered[5]!, 'Reset')).link).toMatch(/\/reset\/[\w-]{20,}/);
 		expect(await messagesTo(unknown[5]!, 0)).toHaveLength(0);
@@ -265,7 +315,12 @@ describe('password reset timing', () => {
 
 describe('request body limits', () => {
 	const origin = new URL(appUrl).origin;
-	const formHeaders = { origin, accept: 'application/json', 'x-sveltekit-action': 'true', 'content-type': 'application/x-www-form-urlencoded' };
+	const formHeaders = {
+		origin,
+		accept: 'application/json',
+		'x-sveltekit-action': 'true',
+		'content-type': 'application/x-www-form-urlencoded'
+	};
 
 	it('refuses a form body over 64 KB with 413 naming the limit, declared or streamed, before anything parses it', async () => {
 		const big = new URLSearchParams({ email: 'x@example.test', password: 'p'.repeat(2 * 1024 * 1024) }).toString();
@@ -293,11 +348,15 @@ describe('request body limits', () => {
 	it('refuses a JSON body over 64 KB on the API with 413, and still reads one under it', async () => {
 		const me = await owner('body-json');
 		const buildId = (await me.client.send<{ id: string }>('POST', '/api/v1/builds', { name: 'Body limit' })).body.id;
-		const over = await me.client.send<{ message: string; code: string }>('PATCH', `/api/v1/builds/${buildId}`, { notes: 'n'.repeat(70 * 1024) });
+		const over = await me.client.send<{ message: string; code: string }>('PATCH', `/api/v1/builds/${buildId}`, {
+			notes: 'n'.repeat(70 * 1024)
+		});
 		expect(over.status).toBe(413);
 		expect(over.body).toMatchObject({ code: 'too-large', message: expect.stringMatching(/^body: at most 64 KB/) });
 		// Just under the cap: read and judged by the field's own rule (notes: at most 5000 characters).
-		const under = await me.client.send<{ errors: Record<string, string> }>('PATCH', `/api/v1/builds/${buildId}`, { notes: 'n'.repeat(60 * 1024) });
+		const under = await me.client.send<{ errors: Record<string, string> }>('PATCH', `/api/v1/builds/${buildId}`, {
+			notes: 'n'.repeat(60 * 1024)
+		});
 		expect(under.status).toBe(400);
 		expect(under.body.errors.notes).toMatch(/^notes: at most 5000 characters/);
 		expect((await me.client.send('PATCH', `/api/v1/builds/${buildId}`, { notes: 'fits' })).status).toBe(200);
@@ -308,7 +367,9 @@ describe('request body limits', () => {
 		const buildId = (await me.client.send<{ id: string }>('POST', '/api/v1/builds', { name: 'Big photo' })).body.id;
 		// Random bytes do not compress: 400 x 400 x 3 of them make a PNG of about 480 KB.
 		const noise = randomBytes(400 * 400 * 3);
-		const png = await sharp(noise, { raw: { width: 400, height: 400, channels: 3 } }).png().toBuffer();
+		const png = await sharp(noise, { raw: { width: 400, height: 400, channels: 3 } })
+			.png()
+			.toBuffer();
 		expect(png.length).toBeGreaterThan(256 * 1024);
 		const form = new FormData();
 		form.append('file', new Blob([new Uint8Array(png)], { type: 'image/png' }), 'noise.png');
@@ -323,7 +384,9 @@ describe('request body limits', () => {
 describe('deleting a build', () => {
 	async function buildWithPhoto(me: Awaited<ReturnType<typeof owner>>, name: string) {
 		const buildId = (await me.client.send<{ id: string }>('POST', '/api/v1/builds', { name })).body.id;
-		const png = await sharp({ create: { width: 40, height: 30, channels: 3, background: '#446688' } }).png().toBuffer();
+		const png = await sharp({ create: { width: 40, height: 30, channels: 3, background: '#446688' } })
+			.png()
+			.toBuffer();
 		const form = new FormData();
 		form.append('file', new Blob([new Uint8Array(png)], { type: 'image/png' }), 'wheel.png');
 		expect((await me.client.send('POST', `/api/v1/builds/${buildId}/photos`, form)).status).toBe(201);
@@ -343,7 +406,9 @@ describe('deleting a build', () => {
 		expect(await objects(byPage)).toEqual([]);
 		expect((await me.client.send('DELETE', `/api/v1/builds/${byApi}`)).status).toBe(204);
 		expect(await objects(byApi)).toEqual([]);
-		const { rows } = await database.execute<{ n: number }>(sql`select count(*)::int as n from wheel_photo where build_id in (${byPage}, ${byApi})`);
+		const { rows } = await database.execute<{ n: number }>(
+			sql`select count(*)::int as n from wheel_photo where build_id in (${byPage}, ${byApi})`
+		);
 		expect(rows[0]!.n).toBe(0);
 	}, 60_000);
 });
@@ -359,16 +424,19 @@ describe('names with control characters', () => {
 		for (const c of bad) {
 			const result = await new Client().action('/signup', '', { name: `Mallory${c}Admin`, email: freshEmail('ctl-signup'), password });
 			expect(result.status, JSON.stringify(c)).toBe(400);
-			expect((result.data as { errors: Record<string, string> }).errors.name).toMatch(/^name: one line of text without control, line-break or direction-override characters \(found U\+/);
+			expect((result.data as { errors: Record<string, string> }).errors.name).toMatch(
+				/^name: one line of text without control, line-break or direction-override characters \(found U\+/
+			);
 		}
 	}, 60_000);
 
 	it('the API refuses them in build, design, record and revision names, naming each field', async () => {
 		const me = await owner('ctl-api');
 		const buildId = (await me.client.send<{ id: string }>('POST', '/api/v1/builds', { name: 'Control' })).body.id;
-		const designId = (await me.client.send<{ id: string }>('POST', `/api/v1/builds/${buildId}/designs`, { name: 'Clean', params: wheel })).body.id;
+		const designId = (await me.client.send<{ id: string }>('POST', `/api/v1/builds/${buildId}/designs`, { name: 'Clean', params: wheel }))
+			.body.id;
 		for (const c of bad) {
-			const cases: [('POST' | 'PATCH'), string, Record<string, unknown>, string][] = [
+			const cases: ['POST' | 'PATCH', string, Record<string, unknown>, string][] = [
 				['POST', '/api/v1/builds', { name: `Build${c}2` }, 'name'],
 				['PATCH', `/api/v1/builds/${buildId}`, { name: `Build${c}3` }, 'name'],
 				['POST', `/api/v1/builds/${buildId}/designs`, { name: `Wheel${c}r2`, params: wheel }, 'name'],
@@ -385,11 +453,15 @@ describe('names with control characters', () => {
 		const form = await me.client.action('/builds', 'create', { name: 'Form\u202ebuild' });
 		expect(form.status).toBe(400);
 		expect((form.data as { errors: Record<string, string> }).errors.name).toMatch(/^name: one line/);
-		const sheet = await me.client.json<{ errors: Record<string, string> }>(`/api/v1/build-sheet.pdf?${new URLSearchParams({ ...wheel, toothAtTdc: '9', buildName: 'Sheet\nline two' })}`);
+		const sheet = await me.client.json<{ errors: Record<string, string> }>(
+			`/api/v1/build-sheet.pdf?${new URLSearchParams({ ...wheel, toothAtTdc: '9', buildName: 'Sheet\nline two' })}`
+		);
 		expect(sheet.status).toBe(400);
 		expect(sheet.body.errors.buildName).toMatch(/^buildName: one line/);
 		// The wheel's etched label keeps its rule and now refuses a direction override too.
-		const label = await me.client.json<{ errors: Record<string, string> }>(`/api/v1/wheel?${new URLSearchParams({ ...wheel, label: 'ABC\u202eDEF' })}`);
+		const label = await me.client.json<{ errors: Record<string, string> }>(
+			`/api/v1/wheel?${new URLSearchParams({ ...wheel, label: 'ABC\u202eDEF' })}`
+		);
 		expect(label.status).toBe(400);
 		expect(label.body.errors.label).toMatch(/^label: one line of text/);
 		// Letters of other scripts and emoji are names like any other.
@@ -400,8 +472,13 @@ describe('names with control characters', () => {
 describe('names the PDF font cannot print', () => {
 	/** The code points a font covers, read by fontconfig (`fc-query`), not by the code under test. */
 	function coverage(file: string): (cp: number) => boolean {
-		const charset = execFileSync('fc-query', ['--format=%{charset}', join(import.meta.dirname, '..', '..', 'static', 'fonts', file)], { encoding: 'utf8' });
-		const ranges = charset.trim().split(/\s+/).map((r) => r.split('-').map((h) => parseInt(h, 16)));
+		const charset = execFileSync('fc-query', ['--format=%{charset}', join(import.meta.dirname, '..', '..', 'static', 'fonts', file)], {
+			encoding: 'utf8'
+		});
+		const ranges = charset
+			.trim()
+			.split(/\s+/)
+			.map((r) => r.split('-').map((h) => parseInt(h, 16)));
 		return (cp) => ranges.some(([from, to]) => cp >= from! && cp <= (to ?? from!));
 	}
 
@@ -426,12 +503,28 @@ describe('names the PDF font cannot print', () => {
 // ---- 11. Form actions a page does not define ----
 
 describe('form action names', () => {
-	const inherited = ['constructor', 'valueOf', '__proto__', 'toString', 'hasOwnProperty', 'isPrototypeOf', 'toLocaleString', 'default', 'nope'];
+	const inherited = [
+		'constructor',
+		'valueOf',
+		'__proto__',
+		'toString',
+		'hasOwnProperty',
+		'isPrototypeOf',
+		'toLocaleString',
+		'default',
+		'nope'
+	];
 
 	it('answers 404 for every name a page does not define, signed in or not; the page’s own actions still work', async () => {
 		const me = await owner('actions');
 		const problems: string[] = [];
-		for (const [path, who] of [['/signin', new Client()], ['/signup', new Client()], ['/reset', new Client()], ['/builds', me.client], ['/workshop', me.client]] as const) {
+		for (const [path, who] of [
+			['/signin', new Client()],
+			['/signup', new Client()],
+			['/reset', new Client()],
+			['/builds', me.client],
+			['/workshop', me.client]
+		] as const) {
 			for (const name of inherited) {
 				const res = await who.action(path, name, { email: 'x@example.test' });
 				if (res.status !== 404) problems.push(`${path}?/${name}: ${res.status} ${JSON.stringify(res.error ?? res.data)}`);
@@ -443,7 +536,11 @@ describe('form action names', () => {
 		expect((await new Client().action('/signin', 'link', { email: 'not an address' })).status).toBe(400);
 		expect((await me.client.action('/builds', 'create', { name: 'Real action' })).type).toBe('success');
 		// A browser's plain form post (no enhance) gets the 404 as well.
-		const plain = await fetch(`${appUrl}/builds?/constructor`, { method: 'POST', headers: { origin: new URL(appUrl).origin, 'content-type': 'application/x-www-form-urlencoded' }, body: 'x=1' });
+		const plain = await fetch(`${appUrl}/builds?/constructor`, {
+			method: 'POST',
+			headers: { origin: new URL(appUrl).origin, 'content-type': 'application/x-www-form-urlencoded' },
+			body: 'x=1'
+		});
 		expect(plain.status).toBe(404);
 	}, 60_000);
 });

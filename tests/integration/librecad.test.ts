@@ -43,7 +43,22 @@ describe('LibreCAD opens the DXF and prints it at true size', () => {
 		// Rendered at 254 dpi, 10 px are 1 mm (1 pt = 1/72 in): a square of OD + 20 mm round the page centre.
 		const px = (pt: number) => Math.round((pt / 72) * 254);
 		const box = Math.round((odMm + 20) * 10);
-		execFileSync('pdftoppm', ['-r', '254', '-gray', '-singlefile', '-x', String(px(Number(size[1]) / 2) - box / 2), '-y', String(px(Number(size[2]) / 2) - box / 2), '-W', String(box), '-H', String(box), pdf, join(dir, `wheel-${units}`)]);
+		execFileSync('pdftoppm', [
+			'-r',
+			'254',
+			'-gray',
+			'-singlefile',
+			'-x',
+			String(px(Number(size[1]) / 2) - box / 2),
+			'-y',
+			String(px(Number(size[2]) / 2) - box / 2),
+			'-W',
+			String(box),
+			'-H',
+			String(box),
+			pdf,
+			join(dir, `wheel-${units}`)
+		]);
 		const extent = inkExtent(readFileSync(join(dir, `wheel-${units}.pgm`)));
 		expect(extent.width / 10).toBeCloseTo(odMm, 0);
 		expect(extent.height / 10).toBeCloseTo(odMm, 0);
@@ -58,17 +73,40 @@ describe('LibreCAD draws the etched label the size the font file gives', () => {
 		expect(res.status).toBe(200);
 		const dxf = join(dir, 'label.dxf');
 		writeFileSync(dxf, Buffer.from(await res.arrayBuffer()));
-		execFileSync('librecad', ['dxf2pdf', '-s', '1', '-c', dxf], { cwd: dir, env: { ...process.env, QT_QPA_PLATFORM: 'offscreen', XDG_RUNTIME_DIR: dir }, stdio: 'pipe' });
+		execFileSync('librecad', ['dxf2pdf', '-s', '1', '-c', dxf], {
+			cwd: dir,
+			env: { ...process.env, QT_QPA_PLATFORM: 'offscreen', XDG_RUNTIME_DIR: dir },
+			stdio: 'pipe'
+		});
 		const pdf = join(dir, 'label.pdf');
 		const size = /Page size:\s+([\d.]+) x ([\d.]+) pts/.exec(execFileSync('pdfinfo', [pdf], { encoding: 'utf8' }))!;
 		const px = (pt: number) => Math.round((pt / 72) * 254);
 		// The label sits below the centre, across the web between the 10 mm bore and the 45 mm roots:
 		// a window 40 mm wide, 14 to 38 mm below the centre, holds it and nothing else (10 px per mm).
 		const [cx, cy] = [px(Number(size[1]) / 2), px(Number(size[2]) / 2)];
-		execFileSync('pdftoppm', ['-r', '254', '-gray', '-singlefile', '-x', String(cx - 200), '-y', String(cy + 140), '-W', '400', '-H', '240', pdf, join(dir, 'label')]);
+		execFileSync('pdftoppm', [
+			'-r',
+			'254',
+			'-gray',
+			'-singlefile',
+			'-x',
+			String(cx - 200),
+			'-y',
+			String(cy + 140),
+			'-W',
+			'400',
+			'-H',
+			'240',
+			pdf,
+			join(dir, 'label')
+		]);
 		const extent = inkExtent(readFileSync(join(dir, 'label.pgm')));
 		const font = join(import.meta.dirname, '..', '..', 'static', 'fonts', 'Inter-Regular.otf');
-		const ink = JSON.parse(execFileSync('/usr/bin/python3', [join(import.meta.dirname, '..', 'support', 'label_metrics.py'), font, label, '4'], { encoding: 'utf8' }));
+		const ink = JSON.parse(
+			execFileSync('/usr/bin/python3', [join(import.meta.dirname, '..', 'support', 'label_metrics.py'), font, label, '4'], {
+				encoding: 'utf8'
+			})
+		);
 		// Within LibreCAD's line width and a pixel either side (0.3 mm); a TEXT entity in its own font came out about 40% wider.
 		expect(Math.abs(extent.width / 10 - ink.width)).toBeLessThan(0.3);
 		expect(Math.abs(extent.height / 10 - ink.height)).toBeLessThan(0.3);

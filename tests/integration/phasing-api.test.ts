@@ -11,7 +11,12 @@ describe('GET /api/v1/phasing', () => {
 		const res = await get({ teeth: '36', missing: '1', toothAtTdc: '9', rpm: '12000', cylinders: '1', stroke: '4' });
 		expect(res.status).toBe(200);
 		const body = await res.json();
-		expect(body).toMatchObject({ pitchDeg: 10, firstToothOffsetDeg: 90, pitchFrequencyHz: 7200, gapClearanceDeg: [{ cylinder: 1, tdcDeg: 0, clearanceDeg: 45 }] });
+		expect(body).toMatchObject({
+			pitchDeg: 10,
+			firstToothOffsetDeg: 90,
+			pitchFrequencyHz: 7200,
+			gapClearanceDeg: [{ cylinder: 1, tdcDeg: 0, clearanceDeg: 45 }]
+		});
 		expect(body.warnings.map((w: { code: string }) => w.code)).toContain('no-cam-phase');
 	});
 
@@ -25,10 +30,23 @@ describe('GET /api/v1/phasing', () => {
 	});
 
 	it('takes the wheel’s other patterns with the wheel’s names: every gap of 36-1-1, no gap on 24+1 (model: tests/support/phasing-model.ts)', async () => {
-		const model = modelClearances({ pattern: { kind: 'custom', teeth: 36, missingPositions: [17, 35] }, duty: 0.5, mount: 'crank', stroke: 4, intervals: [180, 540], toothAtTdc: 9, windowFromBtdc: 45, windowToBtdc: 0 });
+		const model = modelClearances({
+			pattern: { kind: 'custom', teeth: 36, missingPositions: [17, 35] },
+			duty: 0.5,
+			mount: 'crank',
+			stroke: 4,
+			intervals: [180, 540],
+			toothAtTdc: 9,
+			windowFromBtdc: 45,
+			windowToBtdc: 0
+		});
 		const twoGaps = await (await get({ pattern: 'custom', teeth: '36', gaps: '17,35', toothAtTdc: '9', layout: 'twin-180' })).json();
-		twoGaps.gapClearanceDeg.forEach((c: { clearanceDeg: number }, k: number) => expect(Math.abs(c.clearanceDeg - model.clearances[k]!)).toBeLessThanOrEqual(0.05));
-		const cam = await (await get({ pattern: 'extra', teeth: '24', extraAfter: '3', duty: '0.4', mount: 'cam', toothAtTdc: '2', layout: 'four-inline' })).json();
+		twoGaps.gapClearanceDeg.forEach((c: { clearanceDeg: number }, k: number) =>
+			expect(Math.abs(c.clearanceDeg - model.clearances[k]!)).toBeLessThanOrEqual(0.05)
+		);
+		const cam = await (
+			await get({ pattern: 'extra', teeth: '24', extraAfter: '3', duty: '0.4', mount: 'cam', toothAtTdc: '2', layout: 'four-inline' })
+		).json();
 		expect(cam.gapAtCrankingMs).toBeNull();
 		const bad = await get({ pattern: 'custom', teeth: '36', gaps: '17,40', toothAtTdc: '9' });
 		expect(bad.status).toBe(400);
@@ -65,12 +83,18 @@ describe('GET /api/v1/phasing', () => {
 			measured: { sensorAngleDeg: 90, keywayAngleDeg: 0, keyAngleDeg: 0 }
 		});
 		// The tooth input answers the tooth it was given.
-		expect(await (await get({ teeth: '36', missing: '1', toothAtTdc: '4.5' })).json()).toMatchObject({ input: 'tooth', toothAtTdc: 4.5, measured: null });
+		expect(await (await get({ teeth: '36', missing: '1', toothAtTdc: '4.5' })).json()).toMatchObject({
+			input: 'tooth',
+			toothAtTdc: 4.5,
+			measured: null
+		});
 	});
 
 	it('input=angles on the cam, and round the wrap', async () => {
 		// Cam: crank degrees halve into wheel degrees: (180 − 60) / 2 + 30 = 90° of wheel, tooth 9, 180 crank degrees BTDC.
-		const cam = await (await get({ teeth: '36', missing: '1', mount: 'cam', input: 'angles', sensorAngle: '180', keyAngle: '60', keywayAngle: '30' })).json();
+		const cam = await (
+			await get({ teeth: '36', missing: '1', mount: 'cam', input: 'angles', sensorAngle: '180', keyAngle: '60', keywayAngle: '30' })
+		).json();
 		expect(cam).toMatchObject({ toothAtTdc: 9, firstToothOffsetDeg: 180 });
 		// Sensor 30° after the mark: tooth 0 passed it 330° ago, tooth 33.
 		const wrap = await (await get({ teeth: '36', missing: '1', input: 'angles', sensorAngle: '-30' })).json();
@@ -110,7 +134,9 @@ describe('GET /api/v1/phasing', () => {
 		};
 		expect(await errorsOf({ toothAtTdc: '9', layout: 'v-twin', vAngle: '200' })).toEqual({ vAngle: 'vAngle: a number from 15 to 120°' });
 		expect(await errorsOf({ toothAtTdc: '9', layout: 'v-twin', vAngle: 'wide' })).toEqual({ vAngle: 'vAngle: a number from 15 to 120°' });
-		expect(await errorsOf({ toothAtTdc: '9', layout: 'v-twin' })).toEqual({ vAngle: 'vAngle: required with layout=v-twin, a number from 15 to 120°' });
+		expect(await errorsOf({ toothAtTdc: '9', layout: 'v-twin' })).toEqual({
+			vAngle: 'vAngle: required with layout=v-twin, a number from 15 to 120°'
+		});
 		expect(await errorsOf({ toothAtTdc: '9', layout: 'twin-270', vAngle: '52' })).toEqual({ vAngle: 'vAngle: only with layout=v-twin' });
 		expect(await errorsOf({ toothAtTdc: '9', layout: 'v-twin-52' })).toEqual({
 			layout: 'layout: one of single-4, single-2, twin-180, twin-270, twin-360, v-twin, twin-2-180, four-inline'
@@ -126,7 +152,9 @@ describe('GET /api/v1/phasing', () => {
 			toothAtTdc: 'toothAtTdc: not with input=angles (it is worked out from sensorAngle, keywayAngle and keyAngle)',
 			keyFromSensor: 'keyFromSensor: not with input=angles (it follows from sensorAngle and keyAngle)'
 		});
-		expect(await errorsOf({ toothAtTdc: '9', sensorAngle: '90' })).toEqual({ sensorAngle: 'sensorAngle: only with input=angles (or give toothAtTdc alone)' });
+		expect(await errorsOf({ toothAtTdc: '9', sensorAngle: '90' })).toEqual({
+			sensorAngle: 'sensorAngle: only with input=angles (or give toothAtTdc alone)'
+		});
 	});
 });
 
@@ -135,8 +163,14 @@ describe('the page’s check and GET /api/v1/phasing', () => {
 	// on a 36-position wheel the teeth are 0 to 35 (tooth 0 the first after the gap).
 	it('give the same first refusal for the same bad query', async () => {
 		const cases = [
-			{ query: { teeth: '36', missing: '1', toothAtTdc: '9', windowFrom: '100' }, first: { field: 'windowFrom', message: 'a number from -30 to 90° BTDC' } },
-			{ query: { teeth: '36', missing: '1', toothAtTdc: '40', windowFrom: '45' }, first: { field: 'toothAtTdc', message: '0 up to 36 (tooth 0 is the first after the gap)' } }
+			{
+				query: { teeth: '36', missing: '1', toothAtTdc: '9', windowFrom: '100' },
+				first: { field: 'windowFrom', message: 'a number from -30 to 90° BTDC' }
+			},
+			{
+				query: { teeth: '36', missing: '1', toothAtTdc: '40', windowFrom: '45' },
+				first: { field: 'toothAtTdc', message: '0 up to 36 (tooth 0 is the first after the gap)' }
+			}
 		];
 		for (const { query, first } of cases) {
 			// What the page runs: the form's fields as it sends them, through the one check.
@@ -158,7 +192,20 @@ describe('GET /api/v1/build-sheet.pdf', () => {
 		const { mkdtempSync, writeFileSync } = await import('node:fs');
 		const { join } = await import('node:path');
 		const { tmpdir } = await import('node:os');
-		const params = { build: 'Trail single 500', revision: '3', teeth: '36', missing: '1', od: '100', depth: '5', bore: '20', toothAtTdc: '9', rpm: '7000', tdcA: '-10', tdcB: '19', tapeDiameter: '76.2' };
+		const params = {
+			build: 'Trail single 500',
+			revision: '3',
+			teeth: '36',
+			missing: '1',
+			od: '100',
+			depth: '5',
+			bore: '20',
+			toothAtTdc: '9',
+			rpm: '7000',
+			tdcA: '-10',
+			tdcB: '19',
+			tapeDiameter: '76.2'
+		};
 		const res = await fetch(`${process.env.APP_URL}/api/v1/build-sheet.pdf?${new URLSearchParams(params)}`);
 		expect(res.status).toBe(200);
 		expect(res.headers.get('content-disposition')).toBe('attachment; filename="build-sheet-trail-single-500.pdf"');
@@ -181,7 +228,20 @@ describe('GET /api/v1/build-sheet.pdf', () => {
 		const { mkdtempSync, writeFileSync } = await import('node:fs');
 		const { join } = await import('node:path');
 		const { tmpdir } = await import('node:os');
-		const params = { buildName: 'V 52', teeth: '36', missing: '1', od: '120', depth: '6', input: 'angles', sensorAngle: '90', keywayAngle: '15', keyAngle: '5', layout: 'v-twin', vAngle: '52', target: '60' };
+		const params = {
+			buildName: 'V 52',
+			teeth: '36',
+			missing: '1',
+			od: '120',
+			depth: '6',
+			input: 'angles',
+			sensorAngle: '90',
+			keywayAngle: '15',
+			keyAngle: '5',
+			layout: 'v-twin',
+			vAngle: '52',
+			target: '60'
+		};
 		const res = await fetch(`${process.env.APP_URL}/api/v1/build-sheet.pdf?${new URLSearchParams(params)}`);
 		expect(res.status).toBe(200);
 		// buildName is the name (build, its earlier spelling, is read too: see the test above).
@@ -216,9 +276,28 @@ describe('GET /api/v1/build-sheet.pdf', () => {
 	it('a two-gap wheel: the sheet clears every gap, and names the one inside the spark window (model: tests/support/phasing-model.ts)', async () => {
 		// 36-1-1, gaps at positions 17 and 35, tooth 19 at the sensor at TDC, single four-stroke,
 		// window 45° to 0° BTDC. The model walks the wheel: the gap at 17 passes inside the window.
-		const model = modelClearances({ pattern: { kind: 'custom', teeth: 36, missingPositions: [17, 35] }, duty: 0.5, mount: 'crank', stroke: 4, intervals: [720], toothAtTdc: 19, windowFromBtdc: 45, windowToBtdc: 0 });
+		const model = modelClearances({
+			pattern: { kind: 'custom', teeth: 36, missingPositions: [17, 35] },
+			duty: 0.5,
+			mount: 'crank',
+			stroke: 4,
+			intervals: [720],
+			toothAtTdc: 19,
+			windowFromBtdc: 45,
+			windowToBtdc: 0
+		});
 		expect(model.clearances).toEqual([0]);
-		const text = await sheetText({ buildName: 'Two gaps', pattern: 'custom', teeth: '36', gaps: '17,35', od: '100', depth: '5', bore: '20', toothAtTdc: '19', layout: 'single-4' });
+		const text = await sheetText({
+			buildName: 'Two gaps',
+			pattern: 'custom',
+			teeth: '36',
+			gaps: '17,35',
+			od: '100',
+			depth: '5',
+			bore: '20',
+			toothAtTdc: '19',
+			layout: 'single-4'
+		});
 		expect(text).toContain('Gaps in the pattern 2: missing position 17, position 35');
 		expect(text).toContain(`cyl 1 (TDC at 0°): ${model.clearances[0]}° (inside) from the 45°–0° BTDC spark window, nearest of the 2 gaps`);
 		expect(text).toContain('inside cylinder 1');
@@ -227,15 +306,55 @@ describe('GET /api/v1/build-sheet.pdf', () => {
 	});
 
 	it('the same wheel clocked clear of the window shows the model’s clearance', async () => {
-		const model = modelClearances({ pattern: { kind: 'custom', teeth: 36, missingPositions: [17, 35] }, duty: 0.5, mount: 'crank', stroke: 4, intervals: [720], toothAtTdc: 9, windowFromBtdc: 45, windowToBtdc: 0 });
-		const text = await sheetText({ pattern: 'custom', teeth: '36', gaps: '17,35', od: '100', depth: '5', bore: '20', toothAtTdc: '9', layout: 'single-4' });
+		const model = modelClearances({
+			pattern: { kind: 'custom', teeth: 36, missingPositions: [17, 35] },
+			duty: 0.5,
+			mount: 'crank',
+			stroke: 4,
+			intervals: [720],
+			toothAtTdc: 9,
+			windowFromBtdc: 45,
+			windowToBtdc: 0
+		});
+		const text = await sheetText({
+			pattern: 'custom',
+			teeth: '36',
+			gaps: '17,35',
+			od: '100',
+			depth: '5',
+			bore: '20',
+			toothAtTdc: '9',
+			layout: 'single-4'
+		});
 		expect(model.clearances[0]).toBeGreaterThan(0);
 		expect(text).toContain(`cyl 1 (TDC at 0°): ${Math.round(model.clearances[0]!)}° from the`);
 	});
 
 	it('an N+1 cam wheel has no gap: the sheet says so instead of a cranking time', async () => {
-		expect(modelClearances({ pattern: { kind: 'extra', teeth: 24, extraAfter: 3 }, duty: 0.4, mount: 'cam', stroke: 4, intervals: [180, 180, 180, 180], toothAtTdc: 2, windowFromBtdc: 45, windowToBtdc: 0 }).gapRuns).toBe(0);
-		const text = await sheetText({ pattern: 'extra', teeth: '24', extraAfter: '3', duty: '0.4', mount: 'cam', od: '100', depth: '5', bore: '20', toothAtTdc: '2', layout: 'four-inline' });
+		expect(
+			modelClearances({
+				pattern: { kind: 'extra', teeth: 24, extraAfter: 3 },
+				duty: 0.4,
+				mount: 'cam',
+				stroke: 4,
+				intervals: [180, 180, 180, 180],
+				toothAtTdc: 2,
+				windowFromBtdc: 45,
+				windowToBtdc: 0
+			}).gapRuns
+		).toBe(0);
+		const text = await sheetText({
+			pattern: 'extra',
+			teeth: '24',
+			extraAfter: '3',
+			duty: '0.4',
+			mount: 'cam',
+			od: '100',
+			depth: '5',
+			bore: '20',
+			toothAtTdc: '2',
+			layout: 'four-inline'
+		});
 		expect(text).toContain('Gaps in the pattern none');
 		expect(text).toContain('Gap at cranking no gap on this wheel (it keeps its cam sync by the extra tooth)');
 		expect(text).toContain('Gap clearance no gap on this wheel');
@@ -243,13 +362,17 @@ describe('GET /api/v1/build-sheet.pdf', () => {
 	});
 
 	it('refuses bad parameters of either part, naming them all at once', async () => {
-		const res = await fetch(`${process.env.APP_URL}/api/v1/build-sheet.pdf?${new URLSearchParams({ teeth: '36', od: '100', depth: '5', tdcA: '5', tdcB: '5' })}`);
+		const res = await fetch(
+			`${process.env.APP_URL}/api/v1/build-sheet.pdf?${new URLSearchParams({ teeth: '36', od: '100', depth: '5', tdcA: '5', tdcB: '5' })}`
+		);
 		expect(res.status).toBe(400);
 		expect((await res.json()).errors).toEqual({
 			toothAtTdc: 'toothAtTdc: a number from 0 to 720',
 			tdcB: 'tdcB: must differ from tdcA; a piston stop leaves one mark each side of TDC'
 		});
-		const more = await fetch(`${process.env.APP_URL}/api/v1/build-sheet.pdf?${new URLSearchParams({ buildName: 'x'.repeat(81), teeth: '36', depth: '5', input: 'angles', sensorAngle: '90', layout: 'v-twin', tapeDiameter: '2' })}`);
+		const more = await fetch(
+			`${process.env.APP_URL}/api/v1/build-sheet.pdf?${new URLSearchParams({ buildName: 'x'.repeat(81), teeth: '36', depth: '5', input: 'angles', sensorAngle: '90', layout: 'v-twin', tapeDiameter: '2' })}`
+		);
 		expect(more.status).toBe(400);
 		expect((await more.json()).errors).toEqual({
 			buildName: 'buildName: at most 80 characters',

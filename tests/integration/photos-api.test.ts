@@ -14,7 +14,11 @@ afterAll(() => database.$client.end());
 const upload = (client: Client, buildId: string, files: { bytes: Uint8Array; name: string; type?: string }[]) => {
 	const form = new FormData();
 	for (const f of files) form.append('file', new Blob([new Uint8Array(f.bytes)], { type: f.type ?? 'application/octet-stream' }), f.name);
-	return client.send<{ photos: { id: string; name: string; width: number; height: number }[]; errors: Record<string, string> }>('POST', `/api/v1/builds/${buildId}/photos`, form);
+	return client.send<{ photos: { id: string; name: string; width: number; height: number }[]; errors: Record<string, string> }>(
+		'POST',
+		`/api/v1/builds/${buildId}/photos`,
+		form
+	);
 };
 
 describe('wheel photos', () => {
@@ -34,7 +38,11 @@ describe('wheel photos', () => {
 
 	it('stores a photo upright without its metadata, with a thumbnail', async () => {
 		// A 60 x 40 JPEG tagged orientation 6 (EXIF 2.3: rotate 90° clockwise to view) and a camera make.
-		const jpeg = await sharp({ create: { width: 60, height: 40, channels: 3, background: '#808080' } }).jpeg().withExif({ IFD0: { Make: 'BenchCam' } }).withMetadata({ orientation: 6 }).toBuffer();
+		const jpeg = await sharp({ create: { width: 60, height: 40, channels: 3, background: '#808080' } })
+			.jpeg()
+			.withExif({ IFD0: { Make: 'BenchCam' } })
+			.withMetadata({ orientation: 6 })
+			.toBuffer();
 		const res = await upload(client, buildId, [{ bytes: jpeg, name: '../../wheel.jpg', type: 'image/jpeg' }]);
 		expect(res.status).toBe(201);
 		expect(res.body.photos).toMatchObject([{ name: 'wheel.jpg', width: 40, height: 60 }]);
@@ -52,8 +60,18 @@ describe('wheel photos', () => {
 		const before = await stored();
 		const cases = [
 			{ bytes: new TextEncoder().encode('just some text, not a photo'), name: 'wheel.jpg', type: 'image/jpeg' },
-			{ bytes: new TextEncoder().encode('<svg xmlns="http://www.w3.org/2000/svg"><circle r="5"/></svg>'), name: 'wheel.svg', type: 'image/svg+xml' },
-			{ bytes: await sharp({ create: { width: 8, height: 8, channels: 3, background: 'red' } }).gif().toBuffer(), name: 'wheel.png', type: 'image/png' }
+			{
+				bytes: new TextEncoder().encode('<svg xmlns="http://www.w3.org/2000/svg"><circle r="5"/></svg>'),
+				name: 'wheel.svg',
+				type: 'image/svg+xml'
+			},
+			{
+				bytes: await sharp({ create: { width: 8, height: 8, channels: 3, background: 'red' } })
+					.gif()
+					.toBuffer(),
+				name: 'wheel.png',
+				type: 'image/png'
+			}
 		];
 		for (const file of cases) {
 			const res = await upload(client, buildId, [file]);
@@ -61,7 +79,9 @@ describe('wheel photos', () => {
 			expect(res.body.errors.file).toMatch(/^file: /);
 		}
 		// One bad file among good ones: none of them is stored.
-		const png = await sharp({ create: { width: 8, height: 8, channels: 3, background: 'blue' } }).png().toBuffer();
+		const png = await sharp({ create: { width: 8, height: 8, channels: 3, background: 'blue' } })
+			.png()
+			.toBuffer();
 		expect((await upload(client, buildId, [{ bytes: png, name: 'good.png' }, cases[0]!])).status).toBe(400);
 		expect(await stored()).toEqual(before);
 	});
@@ -75,25 +95,58 @@ describe('wheel photos', () => {
 	});
 
 	it('reads N and M from a photo of a wheel rendered from the SVG export, and hands the designer its parameters', async () => {
-		const shot = await syntheticWheelPhoto({ teeth: 36, missing: 1, width: 1600, height: 1200, rotationDeg: 37, noise: 6, blur: 1, tips: 3, jitterPx: 3, seed: 7 });
+		const shot = await syntheticWheelPhoto({
+			teeth: 36,
+			missing: 1,
+			width: 1600,
+			height: 1200,
+			rotationDeg: 37,
+			noise: 6,
+			blur: 1,
+			tips: 3,
+			jitterPx: 3,
+			seed: 7
+		});
 		const res = await upload(client, buildId, [{ bytes: shot.image, name: 'bench-wheel.jpg' }]);
 		expect(res.status).toBe(201);
 		const id = res.body.photos[0]!.id;
-		const read = await client.send<{ reading: { teeth: number; missing: number; confidence: number }; design: Record<string, string>; stored: boolean }>('POST', `/api/v1/photos/${id}/reading`, { ...shot.taps, odMm: 100 });
+		const read = await client.send<{
+			reading: { teeth: number; missing: number; confidence: number };
+			design: Record<string, string>;
+			stored: boolean;
+		}>('POST', `/api/v1/photos/${id}/reading`, { ...shot.taps, odMm: 100 });
 		expect(read.status).toBe(200);
 		expect(read.body.reading).toMatchObject({ teeth: 36, missing: 1 });
 		expect(read.body.design).toMatchObject({ teeth: '36', missing: '1', pattern: 'missing', od: '100' });
 		expect(read.body.stored).toBe(true);
-		const outside = await client.send<{ errors: Record<string, string> }>('POST', `/api/v1/photos/${id}/reading`, { centre: { x: -5, y: 10 }, tips: [{ x: 10, y: 10 }] });
+		const outside = await client.send<{ errors: Record<string, string> }>('POST', `/api/v1/photos/${id}/reading`, {
+			centre: { x: -5, y: 10 },
+			tips: [{ x: 10, y: 10 }]
+		});
 		expect(outside.status).toBe(400);
 		expect(outside.body.errors.centre).toMatch(/^centre: inside the photo/);
 	});
 
 	it('takes the known diameter as od with units, fractions of an inch too, or as the older odMm, to the same reading', async () => {
 		// A 3 1/2 in wheel, drawn from the SVG export at 3.5 × 25.4 = 88.9 mm across the tips (1 in = 25.4 mm exactly).
-		const shot = await syntheticWheelPhoto({ teeth: 24, missing: 2, odMm: 88.9, width: 1200, height: 900, rotationDeg: 80, noise: 4, tips: 3, seed: 5 });
+		const shot = await syntheticWheelPhoto({
+			teeth: 24,
+			missing: 2,
+			odMm: 88.9,
+			width: 1200,
+			height: 900,
+			rotationDeg: 80,
+			noise: 4,
+			tips: 3,
+			seed: 5
+		});
 		const id = (await upload(client, buildId, [{ bytes: shot.image, name: 'three-and-a-half-inch.jpg' }])).body.photos[0]!.id;
-		type Answer = { reading: Record<string, number>; design: Record<string, string>; errors: Record<string, string>; refusals: { field: string; message: string }[] };
+		type Answer = {
+			reading: Record<string, number>;
+			design: Record<string, string>;
+			errors: Record<string, string>;
+			refusals: { field: string; message: string }[];
+		};
 		const read = (body: Record<string, unknown>) => client.send<Answer>('POST', `/api/v1/photos/${id}/reading`, body);
 		const inch = await read({ ...shot.taps, od: '3 1/2', units: 'in' });
 		const older = await read({ ...shot.taps, odMm: 88.9 });

@@ -47,7 +47,15 @@ async function startBehindProxy(): Promise<Instance> {
 	const port = await freePort();
 	const url = `http://127.0.0.1:${port}`;
 	const child = spawn(process.execPath, [join(import.meta.dirname, '..', '..', 'build', 'index.js')], {
-		env: { ...process.env, NODE_ENV: 'production', HOST: '127.0.0.1', PORT: String(port), ORIGIN: `https://127.0.0.1:${port}`, ADDRESS_HEADER: 'x-forwarded-for', XFF_DEPTH: '1' },
+		env: {
+			...process.env,
+			NODE_ENV: 'production',
+			HOST: '127.0.0.1',
+			PORT: String(port),
+			ORIGIN: `https://127.0.0.1:${port}`,
+			ADDRESS_HEADER: 'x-forwarded-for',
+			XFF_DEPTH: '1'
+		},
 		stdio: ['ignore', 'ignore', 'inherit']
 	});
 	for (let i = 0; i < 150; i++) {
@@ -109,7 +117,9 @@ describe('sign-in throttling over HTTP', () => {
 		const email = freshEmail('burst');
 		await signUp('Burst', email, password);
 		const from = clientAddress();
-		const guesses = await Promise.all(Array.from({ length: 25 }, (_, i) => signInVia(proxied, email, `wrong guess ${i}`, from).then(actionStatus)));
+		const guesses = await Promise.all(
+			Array.from({ length: 25 }, (_, i) => signInVia(proxied, email, `wrong guess ${i}`, from).then(actionStatus))
+		);
 		const counts = tally(guesses);
 		// Ten failures lock the address (throttle.ts; OWASP: lock or slow after a small number).
 		// Exactly the limit is checked, however the 25 interleave; every other guess is refused unchecked.
@@ -123,7 +133,9 @@ describe('sign-in throttling over HTTP', () => {
 
 	it('checks at most fifty passwords from one client address, spread over many addresses, then refuses that client', async () => {
 		const from = clientAddress();
-		const guesses = await Promise.all(Array.from({ length: 60 }, (_, i) => signInVia(proxied, freshEmail(`spray${i}`), 'a guessed password', from).then(actionStatus)));
+		const guesses = await Promise.all(
+			Array.from({ length: 60 }, (_, i) => signInVia(proxied, freshEmail(`spray${i}`), 'a guessed password', from).then(actionStatus))
+		);
 		const counts = tally(guesses);
 		expect(counts, JSON.stringify(counts)).toEqual({ 400: throttlePolicy.lockAfter.client, 429: 60 - throttlePolicy.lockAfter.client });
 		const email = freshEmail('sprayed');
@@ -136,7 +148,9 @@ describe('sign-in throttling over HTTP', () => {
 	it('says it is throttled in the answer, not with a generic failure', async () => {
 		const email = freshEmail('told');
 		const from = clientAddress();
-		await Promise.all(Array.from({ length: throttlePolicy.lockAfter.email }, () => signInVia(proxied, email, 'nope', from).then(actionStatus)));
+		await Promise.all(
+			Array.from({ length: throttlePolicy.lockAfter.email }, () => signInVia(proxied, email, 'nope', from).then(actionStatus))
+		);
 		const res = await signInVia(proxied, email, 'nope', from);
 		const body = (await res.json()) as { status: number; data: string };
 		expect(body.status).toBe(429);
@@ -150,7 +164,12 @@ function cookieNamed(lines: string[], name: RegExp) {
 	const line = lines.find((l) => name.test(l.split('=')[0]!));
 	if (!line) throw new Error(`no Set-Cookie for ${name} among: ${lines.map((l) => l.split('=')[0]).join(', ')}`);
 	const [pair, ...attrs] = line.split(';').map((s) => s.trim());
-	const attributes = new Map(attrs.map((a) => { const [k, v] = a.split('='); return [k!.toLowerCase(), v ?? true] as const; }));
+	const attributes = new Map(
+		attrs.map((a) => {
+			const [k, v] = a.split('=');
+			return [k!.toLowerCase(), v ?? true] as const;
+		})
+	);
 	return { name: pair!.split('=')[0]!, attributes };
 }
 
@@ -179,18 +198,31 @@ describe('session cookies', () => {
 		expect(String(session.attributes.get('samesite')).toLowerCase()).toMatch(/^(lax|strict)$/);
 
 		// The workshop switcher's cookie, set by a signed-in form post.
-		const cookie = res.headers.getSetCookie().map((l) => l.split(';')[0]).join('; ');
+		const cookie = res.headers
+			.getSetCookie()
+			.map((l) => l.split(';')[0])
+			.join('; ');
 		const builds = await fetch(`${proxied.url}/api/v1/builds`, { headers: { cookie } });
 		expect(builds.status).toBe(200);
 		const workshopId = ((await builds.json()) as { workshop: { id: string } }).workshop.id;
 		const switched = await fetch(`${proxied.url}/workshop?/switch`, {
 			method: 'POST',
-			headers: { cookie, origin: proxied.origin, accept: 'application/json', 'x-sveltekit-action': 'true', 'content-type': 'application/x-www-form-urlencoded' },
+			headers: {
+				cookie,
+				origin: proxied.origin,
+				accept: 'application/json',
+				'x-sveltekit-action': 'true',
+				'content-type': 'application/x-www-form-urlencoded'
+			},
 			body: new URLSearchParams({ workshopId })
 		});
 		expect(await actionStatus(switched.clone())).toBe(303);
 		const choice = cookieNamed(switched.headers.getSetCookie(), /^pw-workshop$/);
-		expect([choice.attributes.get('secure'), choice.attributes.get('httponly'), String(choice.attributes.get('samesite')).toLowerCase()]).toEqual([true, true, 'lax']);
+		expect([
+			choice.attributes.get('secure'),
+			choice.attributes.get('httponly'),
+			String(choice.attributes.get('samesite')).toLowerCase()
+		]).toEqual([true, true, 'lax']);
 	});
 });
 
@@ -209,7 +241,16 @@ function expectCommonHeaders(res: Response, what: string) {
 }
 
 function directives(policy: string) {
-	return new Map(policy.split(';').map((d) => d.trim()).filter(Boolean).map((d) => { const [name, ...values] = d.split(/\s+/); return [name!, values] as const; }));
+	return new Map(
+		policy
+			.split(';')
+			.map((d) => d.trim())
+			.filter(Boolean)
+			.map((d) => {
+				const [name, ...values] = d.split(/\s+/);
+				return [name!, values] as const;
+			})
+	);
 }
 
 /** A page's policy: scripts only from the site or with this response's nonce, never inline at large. */
@@ -220,7 +261,10 @@ async function expectPagePolicy(res: Response, what: string) {
 	const scripts = d.get('script-src') ?? d.get('default-src') ?? [];
 	expect(scripts, what).not.toContain("'unsafe-inline'");
 	expect(scripts, what).not.toContain("'unsafe-eval'");
-	expect(scripts.every((s) => s === "'self'" || /^'nonce-[A-Za-z0-9+/=]+'$/.test(s) || /^'sha256-/.test(s)), `${what}: ${scripts.join(' ')}`).toBe(true);
+	expect(
+		scripts.every((s) => s === "'self'" || /^'nonce-[A-Za-z0-9+/=]+'$/.test(s) || /^'sha256-/.test(s)),
+		`${what}: ${scripts.join(' ')}`
+	).toBe(true);
 	expect(d.get('object-src'), what).toEqual(["'none'"]);
 	expect(d.get('base-uri'), what).toEqual(["'self'"]);
 	expect(d.get('frame-ancestors'), what).toEqual(["'none'"]);
@@ -247,7 +291,15 @@ describe('security headers', () => {
 
 	it('pages: a nonce-based CSP without unsafe-inline scripts, a new nonce each time, and the common headers', async () => {
 		const seen = new Set<string>();
-		for (const [client, path] of [[new Client(), '/'], [new Client(), '/wheel'], [new Client(), '/tape'], [new Client(), '/signin'], [signedIn, '/builds'], [signedIn, `/builds/${buildId}`], [new Client(), '/no-such-page']] as const) {
+		for (const [client, path] of [
+			[new Client(), '/'],
+			[new Client(), '/wheel'],
+			[new Client(), '/tape'],
+			[new Client(), '/signin'],
+			[signedIn, '/builds'],
+			[signedIn, `/builds/${buildId}`],
+			[new Client(), '/no-such-page']
+		] as const) {
 			const res = await client.get(path);
 			expect([200, 404], path).toContain(res.status);
 			expectCommonHeaders(res, path);
@@ -310,16 +362,51 @@ describe('security headers', () => {
 			const context = await contextFor(browser, signedIn.cookies);
 			await context.addInitScript(() => {
 				(window as unknown as { violations: string[] }).violations = [];
-				document.addEventListener('securitypolicyviolation', (e) => (window as unknown as { violations: string[] }).violations.push(`${e.violatedDirective} ${e.blockedURI}`));
+				document.addEventListener('securitypolicyviolation', (e) =>
+					(window as unknown as { violations: string[] }).violations.push(`${e.violatedDirective} ${e.blockedURI}`)
+				);
 			});
 			const page = await context.newPage();
 			const errors: string[] = [];
-			page.on('console', (m) => { if (m.type() === 'error') errors.push(m.text()); });
-			const designId = (await signedIn.send<{ id: string }>('POST', `/api/v1/builds/${buildId}/designs`, { name: 'Header wheel', params: { teeth: '36', missing: '1', od: '100', depth: '5' } })).body.id;
+			page.on('console', (m) => {
+				if (m.type() === 'error') errors.push(m.text());
+			});
+			const designId = (
+				await signedIn.send<{ id: string }>('POST', `/api/v1/builds/${buildId}/designs`, {
+					name: 'Header wheel',
+					params: { teeth: '36', missing: '1', od: '100', depth: '5' }
+				})
+			).body.id;
 			const form = new FormData();
-			form.append('file', new Blob([new Uint8Array(await sharp({ create: { width: 40, height: 30, channels: 3, background: 'grey' } }).png().toBuffer())], { type: 'image/png' }), 'header.png');
-			const photoId = (await signedIn.send<{ photos: { id: string }[] }>('POST', `/api/v1/builds/${buildId}/photos`, form)).body.photos[0]!.id;
-			const pages = ['/', '/wheel', '/tape', '/tdc', '/phasing', '/builds', `/builds/${buildId}`, `/builds/${buildId}/designs/${designId}`, `/builds/${buildId}/photos/${photoId}`, `/wheel?design=${designId}`, '/workshop'];
+			form.append(
+				'file',
+				new Blob(
+					[
+						new Uint8Array(
+							await sharp({ create: { width: 40, height: 30, channels: 3, background: 'grey' } })
+								.png()
+								.toBuffer()
+						)
+					],
+					{ type: 'image/png' }
+				),
+				'header.png'
+			);
+			const photoId = (await signedIn.send<{ photos: { id: string }[] }>('POST', `/api/v1/builds/${buildId}/photos`, form)).body.photos[0]!
+				.id;
+			const pages = [
+				'/',
+				'/wheel',
+				'/tape',
+				'/tdc',
+				'/phasing',
+				'/builds',
+				`/builds/${buildId}`,
+				`/builds/${buildId}/designs/${designId}`,
+				`/builds/${buildId}/photos/${photoId}`,
+				`/wheel?design=${designId}`,
+				'/workshop'
+			];
 			for (const path of pages) {
 				const res = await page.goto(`${appUrl}${path}`);
 				expect(res?.status(), path).toBe(200);
@@ -327,10 +414,13 @@ describe('security headers', () => {
 				const before = await page.locator('html').getAttribute('data-theme');
 				// Pressed until it answers: a press before hydration does nothing.
 				await expect
-					.poll(async () => {
-						await page.getByTestId('theme-switch').click();
-						return page.locator('html').getAttribute('data-theme');
-					}, { message: path, timeout: 10_000 })
+					.poll(
+						async () => {
+							await page.getByTestId('theme-switch').click();
+							return page.locator('html').getAttribute('data-theme');
+						},
+						{ message: path, timeout: 10_000 }
+					)
 					.not.toBe(before);
 				expect(await page.evaluate(() => (window as unknown as { violations: string[] }).violations), path).toEqual([]);
 			}
@@ -348,7 +438,8 @@ describe('writes from another origin', () => {
 	let workshopId: string;
 	let buildId: string;
 	const cookieOf = (c: Client) => [...c.cookies].map(([k, v]) => `${k}=${v}`).join('; ');
-	const builds = async () => (await database.execute<{ n: number }>(sql`select count(*)::int as n from build where workshop_id = ${workshopId}`)).rows[0]!.n;
+	const builds = async () =>
+		(await database.execute<{ n: number }>(sql`select count(*)::int as n from build where workshop_id = ${workshopId}`)).rows[0]!.n;
 	const photos = async () => ({
 		rows: (await database.execute<{ n: number }>(sql`select count(*)::int as n from wheel_photo where build_id = ${buildId}`)).rows[0]!.n,
 		objects: (await listKeys(`photos/${workshopId}/${buildId}/`)).length
@@ -368,16 +459,29 @@ describe('writes from another origin', () => {
 		const form = { 'content-type': 'application/x-www-form-urlencoded' };
 		expect((await post('/builds?/create', new URLSearchParams({ name: 'From evil' }), { ...form, origin: evil })).status).toBe(403);
 		expect((await post('/builds?/create', new URLSearchParams({ name: 'From nowhere' }), form)).status).toBe(403);
-		expect((await post('/signin?/password', new URLSearchParams({ email: 'a@example.test', password: 'x' }), { ...form, origin: evil })).status).toBe(403);
+		expect(
+			(await post('/signin?/password', new URLSearchParams({ email: 'a@example.test', password: 'x' }), { ...form, origin: evil })).status
+		).toBe(403);
 		expect(await builds()).toBe(before);
 		// The same post from the site itself goes through: the origin is what was refused.
-		expect(await actionStatus(await post('/builds?/create', new URLSearchParams({ name: 'From the site' }), { ...form, origin: new URL(appUrl).origin, accept: 'application/json', 'x-sveltekit-action': 'true' }))).toBe(200);
+		expect(
+			await actionStatus(
+				await post('/builds?/create', new URLSearchParams({ name: 'From the site' }), {
+					...form,
+					origin: new URL(appUrl).origin,
+					accept: 'application/json',
+					'x-sveltekit-action': 'true'
+				})
+			)
+		).toBe(200);
 		expect(await builds()).toBe(before + 1);
 	});
 
 	it('refuses a multipart photo upload from another origin, storing nothing', async () => {
 		const before = await photos();
-		const png = await sharp({ create: { width: 8, height: 8, channels: 3, background: 'white' } }).png().toBuffer();
+		const png = await sharp({ create: { width: 8, height: 8, channels: 3, background: 'white' } })
+			.png()
+			.toBuffer();
 		const form = new FormData();
 		form.append('file', new Blob([new Uint8Array(png)], { type: 'image/png' }), 'evil.png');
 		const res = await post(`/api/v1/builds/${buildId}/photos`, form, { origin: evil });
@@ -390,19 +494,36 @@ describe('writes from another origin', () => {
 		const body = JSON.stringify({ name: 'Posted as text' });
 		expect((await post('/api/v1/builds', body, { origin: evil, 'content-type': 'text/plain' })).status).toBe(403);
 		expect((await post('/api/v1/builds', body, { origin: evil, 'content-type': 'application/json' })).status).toBe(403);
-		const patch = await fetch(`${appUrl}/api/v1/builds/${buildId}`, { method: 'PATCH', headers: { cookie: cookieOf(client), origin: evil, 'content-type': 'application/json' }, body: JSON.stringify({ notes: 'evil' }) });
+		const patch = await fetch(`${appUrl}/api/v1/builds/${buildId}`, {
+			method: 'PATCH',
+			headers: { cookie: cookieOf(client), origin: evil, 'content-type': 'application/json' },
+			body: JSON.stringify({ notes: 'evil' })
+		});
 		expect(patch.status).toBe(403);
-		const del = await fetch(`${appUrl}/api/v1/builds/${buildId}`, { method: 'DELETE', headers: { cookie: cookieOf(client), origin: evil } });
+		const del = await fetch(`${appUrl}/api/v1/builds/${buildId}`, {
+			method: 'DELETE',
+			headers: { cookie: cookieOf(client), origin: evil }
+		});
 		expect(del.status).toBe(403);
 		expect(await builds()).toBe(before);
 		const { rows } = await database.execute<{ notes: string }>(sql`select notes from build where id = ${buildId}`);
 		expect(rows[0]!.notes).toBe('');
 		// The site's own pages send their origin and get through.
-		expect((await post('/api/v1/builds', JSON.stringify({ name: 'Posted by the site' }), { origin: new URL(appUrl).origin, 'content-type': 'application/json' })).status).toBe(201);
+		expect(
+			(
+				await post('/api/v1/builds', JSON.stringify({ name: 'Posted by the site' }), {
+					origin: new URL(appUrl).origin,
+					'content-type': 'application/json'
+				})
+			).status
+		).toBe(201);
 	});
 
 	it('grants no other origin CORS access: a preflight gets no Access-Control-Allow-Origin (Fetch standard, CORS protocol)', async () => {
-		const res = await fetch(`${appUrl}/api/v1/builds`, { method: 'OPTIONS', headers: { origin: evil, 'access-control-request-method': 'POST', 'access-control-request-headers': 'content-type' } });
+		const res = await fetch(`${appUrl}/api/v1/builds`, {
+			method: 'OPTIONS',
+			headers: { origin: evil, 'access-control-request-method': 'POST', 'access-control-request-headers': 'content-type' }
+		});
 		expect(res.headers.get('access-control-allow-origin')).toBeNull();
 		expect(res.headers.get('access-control-allow-credentials')).toBeNull();
 		const get = await fetch(`${appUrl}/api/v1/builds`, { headers: { cookie: cookieOf(client), origin: evil } });
@@ -416,8 +537,12 @@ describe('uploaded photos as served', () => {
 	it('come back with the type their bytes were stored as, nosniff, inline, and a policy that runs nothing', async () => {
 		const client = await signUp('Served', freshEmail('served'));
 		const buildId = (await client.send<{ id: string }>('POST', '/api/v1/builds', { name: 'Served bench' })).body.id;
-		const png = await sharp({ create: { width: 12, height: 10, channels: 3, background: 'grey' } }).png().toBuffer();
-		const webp = await sharp({ create: { width: 12, height: 10, channels: 3, background: 'grey' } }).webp().toBuffer();
+		const png = await sharp({ create: { width: 12, height: 10, channels: 3, background: 'grey' } })
+			.png()
+			.toBuffer();
+		const webp = await sharp({ create: { width: 12, height: 10, channels: 3, background: 'grey' } })
+			.webp()
+			.toBuffer();
 		const form = new FormData();
 		// Names and declared types that say otherwise: the bytes decide (photos/intake.ts).
 		form.append('file', new Blob([new Uint8Array(png)], { type: 'text/html' }), 'wheel.html');

@@ -52,9 +52,12 @@ describe('demo designs and profiles', () => {
 			expect(checkPhasing(demo.engineProfile), demo.name).toMatchObject({ ok: true });
 			// The stored TDC is half-way between the piston-stop marks (common practice): 16 BTDC and 13
 			// ATDC are 29° apart, 14.5° each side: −16 + 14.5 = −1.5, 1.5° BTDC (by hand).
-			if (demo.tdc) expect(findTdc(demo.tdc.params)).toMatchObject({ ok: true, value: { result: { tdcDeg: Number(demo.tdc.tdcDeg), spreadDeg: 29 } } });
+			if (demo.tdc)
+				expect(findTdc(demo.tdc.params)).toMatchObject({ ok: true, value: { result: { tdcDeg: Number(demo.tdc.tdcDeg), spreadDeg: 29 } } });
 		}
-		const { rows } = await database.execute<{ n: number }>(sql`select count(*)::int as n from wheel_revision r join wheel_design d on d.id = r.design_id join build b on b.id = d.build_id join workshop w on w.id = b.workshop_id where w.slug = ${demoWorkshop.slug}`);
+		const { rows } = await database.execute<{ n: number }>(
+			sql`select count(*)::int as n from wheel_revision r join wheel_design d on d.id = r.design_id join build b on b.id = d.build_id join workshop w on w.id = b.workshop_id where w.slug = ${demoWorkshop.slug}`
+		);
 		expect(rows[0]!.n).toBe(demoBuilds.reduce((n, b) => n + b.revisions.length, 0));
 	});
 });

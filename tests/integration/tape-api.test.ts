@@ -19,10 +19,10 @@ function labels(pdf: string) {
 		[...page.matchAll(/<word xMin="([\d.]+)" yMin="([\d.]+)" xMax="([\d.]+)" yMax="([\d.]+)">(\d+)<\/word>/g)]
 			.filter((m) => Number(m[4]) < Number(/height="([\d.]+)"/.exec(page)![1]) - (40 * 72) / 25.4)
 			.map((m) => ({
-			x: (Number(m[1]) + Number(m[3])) / 2,
-			y: Number(m[2]),
-			value: Number(m[5])
-		}))
+				x: (Number(m[1]) + Number(m[3])) / 2,
+				y: Number(m[2]),
+				value: Number(m[5])
+			}))
 	);
 }
 
@@ -77,7 +77,13 @@ describe('degree tape PDF, read back with poppler', () => {
 describe('GET /api/v1/tdc', () => {
 	// Seed document (fact of the trade): two marks 29° apart put TDC 14.5° from each.
 	it('two readings on a signed scale', async () => {
-		expect(await (await get('/api/v1/tdc', { a: '-10', b: '19' })).json()).toMatchObject({ scale: 'signed', arc: 'shorter', tdcDeg: 4.5, spreadDeg: 29, halfSpreadDeg: 14.5 });
+		expect(await (await get('/api/v1/tdc', { a: '-10', b: '19' })).json()).toMatchObject({
+			scale: 'signed',
+			arc: 'shorter',
+			tdcDeg: 4.5,
+			spreadDeg: 29,
+			halfSpreadDeg: 14.5
+		});
 	});
 
 	it('two readings on a 0–360 wheel, across zero', async () => {

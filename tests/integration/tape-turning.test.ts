@@ -18,7 +18,13 @@ const MM_PER_PT = 25.4 / 72;
 
 async function download(path: string, params: Record<string, string>, name: string): Promise<string> {
 	const res = await get(path, params);
-	expect(res.status, await res.clone().text().catch(() => '')).toBe(200);
+	expect(
+		res.status,
+		await res
+			.clone()
+			.text()
+			.catch(() => '')
+	).toBe(200);
 	const file = join(dir, name);
 	writeFileSync(file, Buffer.from(await res.arrayBuffer()));
 	return file;
@@ -35,7 +41,13 @@ interface Word {
 /** Words per page, in poppler's reading order, from `pdftotext -bbox` (points, y down). */
 function wordsOf(pdf: string): Word[][] {
 	const html = execFileSync('pdftotext', ['-bbox', pdf, '-'], { encoding: 'utf8' });
-	const unescape = (s: string) => s.replace(/&amp;/g, '&').replace(/&lt;/g, '<').replace(/&gt;/g, '>').replace(/&quot;/g, '"').replace(/&#39;/g, "'");
+	const unescape = (s: string) =>
+		s
+			.replace(/&amp;/g, '&')
+			.replace(/&lt;/g, '<')
+			.replace(/&gt;/g, '>')
+			.replace(/&quot;/g, '"')
+			.replace(/&#39;/g, "'");
 	return html
 		.split('<page ')
 		.slice(1)
@@ -66,7 +78,16 @@ interface PrintedLabel {
  */
 function readTape(pdf: string) {
 	const pages = wordsOf(pdf);
-	const strips = new Map<number, { page: number; y: number; labels: { x: number; value: number; side: string }[]; joins: Map<number, number>; named: { text: string; x0: number }[] }>();
+	const strips = new Map<
+		number,
+		{
+			page: number;
+			y: number;
+			labels: { x: number; value: number; side: string }[];
+			joins: Map<number, number>;
+			named: { text: string; x0: number }[];
+		}
+	>();
 	const joins: { page: number; join: number; x: number; y: number }[] = [];
 	const named: { page: number; text: string; x0: number; y: number }[] = [];
 	pages.forEach((words, p) => {
@@ -75,7 +96,8 @@ function readTape(pdf: string) {
 			if (w.text === 'strip' && next[1]?.text === 'of' && /^\d+$/.test(next[0]?.text ?? '')) {
 				strips.set(Number(next[0]!.text), { page: p, y: w.y0, labels: [], joins: new Map(), named: [] });
 			}
-			if (w.text === 'join' && /^\d+$/.test(next[0]?.text ?? '')) joins.push({ page: p, join: Number(next[0]!.text), x: (w.x0 + next[0]!.x1) / 2, y: w.y0 });
+			if (w.text === 'join' && /^\d+$/.test(next[0]?.text ?? ''))
+				joins.push({ page: p, join: Number(next[0]!.text), x: (w.x0 + next[0]!.x1) / 2, y: w.y0 });
 			if (w.text === 'idle' || w.text === 'cyl') named.push({ page: p, text: w.text, x0: w.x0, y: w.y0 });
 		});
 	});
@@ -91,7 +113,13 @@ function readTape(pdf: string) {
 	pages.forEach((words, p) => {
 		for (const w of words) {
 			if (!/^\d+(\.\d+)?$/.test(w.text)) continue;
-			const under = words.find((s) => ['BTDC', 'ATDC', 'TDC'].includes(s.text) && Math.abs(centre(s) - centre(w)) < 1.5 && s.y0 > w.y1 - 0.5 && s.y0 - w.y1 < 6 / MM_PER_PT);
+			const under = words.find(
+				(s) =>
+					['BTDC', 'ATDC', 'TDC'].includes(s.text) &&
+					Math.abs(centre(s) - centre(w)) < 1.5 &&
+					s.y0 > w.y1 - 0.5 &&
+					s.y0 - w.y1 < 6 / MM_PER_PT
+			);
 			const n = under ? stripOf(p, w.y0) : null;
 			if (under && n !== null) strips.get(n)!.labels.push({ x: centre(w), value: Number(w.text), side: under.text });
 		}
@@ -112,7 +140,7 @@ function readTape(pdf: string) {
 		if (tdc) anchor.set(n, { x: tdc.x, tapeMm: 0 });
 	}
 	expect(anchor.size, 'one printed TDC label').toBeGreaterThanOrEqual(1);
-	for (let changed = true; changed; ) {
+	for (let changed = true; changed;) {
 		changed = false;
 		for (const [n, s] of strips) {
 			const a = anchor.get(n);
@@ -128,7 +156,9 @@ function readTape(pdf: string) {
 	}
 	expect(anchor.size, 'every strip placed along the tape through its join marks').toBe(strips.size);
 	const at = (n: number, x: number) => anchor.get(n)!.tapeMm + (x - anchor.get(n)!.x) * MM_PER_PT;
-	const labels: PrintedLabel[] = [...strips].flatMap(([n, s]) => s.labels.map((l) => ({ tapeMm: at(n, l.x), value: l.value, side: l.side })));
+	const labels: PrintedLabel[] = [...strips].flatMap(([n, s]) =>
+		s.labels.map((l) => ({ tapeMm: at(n, l.x), value: l.value, side: l.side }))
+	);
 	const marks = [...strips].flatMap(([n, s]) => s.named.map((m) => ({ text: m.text, tapeMm: at(n, m.x0) })));
 	return { strips: strips.size, pages: pages.length, labels, marks };
 }
@@ -145,13 +175,76 @@ interface TapeCase {
 }
 
 const cases: TapeCase[] = [
-	{ name: 'cw, 76.2 mm hub, ±60°, mm, A4', params: { diameter: '76.2', window: '60', rotation: 'cw', units: 'mm', paper: 'a4' }, hubDiameterMm: 76.2, rotation: 'cw', windowDeg: 60, labelDeg: 10, pointerAtDeg: 90, minStrips: 1 },
-	{ name: 'ccw, 76.2 mm hub, full circle, mm, A4', params: { diameter: '76.2', rotation: 'ccw', units: 'mm', paper: 'a4' }, hubDiameterMm: 76.2, rotation: 'ccw', windowDeg: 180, labelDeg: 10, pointerAtDeg: 30, minStrips: 2 },
-	{ name: 'cw, 3 in hub, full circle, in, Letter', params: { diameter: '3', rotation: 'cw', units: 'in', paper: 'letter' }, hubDiameterMm: 76.2, rotation: 'cw', windowDeg: 180, labelDeg: 10, pointerAtDeg: 200, minStrips: 2 },
-	{ name: 'ccw, 2 1/2 in hub, ±90°, in, Letter', params: { diameter: '2 1/2', window: '90', rotation: 'ccw', units: 'in', paper: 'letter' }, hubDiameterMm: 63.5, rotation: 'ccw', windowDeg: 90, labelDeg: 10, pointerAtDeg: 90, minStrips: 1 },
-	{ name: 'cw, 40 mm hub, ±90°, labels every 20°, A4', params: { diameter: '40', window: '90', tick: '2', mid: '10', label: '20', rotation: 'cw', units: 'mm', paper: 'a4' }, hubDiameterMm: 40, rotation: 'cw', windowDeg: 90, labelDeg: 20, pointerAtDeg: 330, minStrips: 1 },
-	{ name: 'cw, 1200 mm round a flywheel, full circle, A4, tiled over pages, with marks', params: { circumference: '1200', rotation: 'cw', units: 'mm', paper: 'a4', timing: 'idle:15', tdc2: 'cyl 2:270' }, hubDiameterMm: 1200 / Math.PI, rotation: 'cw', windowDeg: 180, labelDeg: 10, pointerAtDeg: 90, minStrips: 7 },
-	{ name: 'ccw, 20 in flywheel, full circle, in, Letter, tiled over pages', params: { diameter: '20', rotation: 'ccw', units: 'in', paper: 'letter' }, hubDiameterMm: 508, rotation: 'ccw', windowDeg: 180, labelDeg: 10, pointerAtDeg: 270, minStrips: 9 }
+	{
+		name: 'cw, 76.2 mm hub, ±60°, mm, A4',
+		params: { diameter: '76.2', window: '60', rotation: 'cw', units: 'mm', paper: 'a4' },
+		hubDiameterMm: 76.2,
+		rotation: 'cw',
+		windowDeg: 60,
+		labelDeg: 10,
+		pointerAtDeg: 90,
+		minStrips: 1
+	},
+	{
+		name: 'ccw, 76.2 mm hub, full circle, mm, A4',
+		params: { diameter: '76.2', rotation: 'ccw', units: 'mm', paper: 'a4' },
+		hubDiameterMm: 76.2,
+		rotation: 'ccw',
+		windowDeg: 180,
+		labelDeg: 10,
+		pointerAtDeg: 30,
+		minStrips: 2
+	},
+	{
+		name: 'cw, 3 in hub, full circle, in, Letter',
+		params: { diameter: '3', rotation: 'cw', units: 'in', paper: 'letter' },
+		hubDiameterMm: 76.2,
+		rotation: 'cw',
+		windowDeg: 180,
+		labelDeg: 10,
+		pointerAtDeg: 200,
+		minStrips: 2
+	},
+	{
+		name: 'ccw, 2 1/2 in hub, ±90°, in, Letter',
+		params: { diameter: '2 1/2', window: '90', rotation: 'ccw', units: 'in', paper: 'letter' },
+		hubDiameterMm: 63.5,
+		rotation: 'ccw',
+		windowDeg: 90,
+		labelDeg: 10,
+		pointerAtDeg: 90,
+		minStrips: 1
+	},
+	{
+		name: 'cw, 40 mm hub, ±90°, labels every 20°, A4',
+		params: { diameter: '40', window: '90', tick: '2', mid: '10', label: '20', rotation: 'cw', units: 'mm', paper: 'a4' },
+		hubDiameterMm: 40,
+		rotation: 'cw',
+		windowDeg: 90,
+		labelDeg: 20,
+		pointerAtDeg: 330,
+		minStrips: 1
+	},
+	{
+		name: 'cw, 1200 mm round a flywheel, full circle, A4, tiled over pages, with marks',
+		params: { circumference: '1200', rotation: 'cw', units: 'mm', paper: 'a4', timing: 'idle:15', tdc2: 'cyl 2:270' },
+		hubDiameterMm: 1200 / Math.PI,
+		rotation: 'cw',
+		windowDeg: 180,
+		labelDeg: 10,
+		pointerAtDeg: 90,
+		minStrips: 7
+	},
+	{
+		name: 'ccw, 20 in flywheel, full circle, in, Letter, tiled over pages',
+		params: { diameter: '20', rotation: 'ccw', units: 'in', paper: 'letter' },
+		hubDiameterMm: 508,
+		rotation: 'ccw',
+		windowDeg: 180,
+		labelDeg: 10,
+		pointerAtDeg: 270,
+		minStrips: 9
+	}
 ];
 
 describe('degree tape PDF against the turning engine (pdftotext -bbox)', () => {
@@ -167,7 +260,11 @@ describe('degree tape PDF against the turning engine (pdftotext -bbox)', () => {
 			const near = tape.labels.filter((l) => Math.abs(l.tapeMm - under) < 0.3);
 			expect(near.length, `a label at ${under.toFixed(2)} mm for ${rounded}°`).toBeGreaterThanOrEqual(1);
 			for (const l of near) {
-				expect({ crank: rounded, value: l.value, side: l.side }).toEqual({ crank: rounded, value: Math.abs(rounded), side: rounded < 0 ? 'BTDC' : rounded > 0 ? 'ATDC' : 'TDC' });
+				expect({ crank: rounded, value: l.value, side: l.side }).toEqual({
+					crank: rounded,
+					value: Math.abs(rounded),
+					side: rounded < 0 ? 'BTDC' : rounded > 0 ? 'ATDC' : 'TDC'
+				});
 			}
 			checked++;
 		}
@@ -216,33 +313,42 @@ describe('timing-light card against the turning engine (pdftotext -layout)', () 
 		['ccw', 'mm', '150', 150.0],
 		['cw', 'in', '5 1/2', 139.7],
 		['ccw', 'in', '3', 76.2]
-	] as const)('%s, %s, hub %s: each mark’s distance and side of TDC is where the engine brings it under the pointer', async (rotation, units, diameter, diameterMm) => {
-		const curve = [
-			[800, -5],
-			[900, 0],
-			[1200, 10],
-			[3000, 20],
-			[6000, 32.5]
-		] as const;
-		const pdf = await download('/api/v1/timing-card.pdf', { diameter, units, rotation, curve: curve.map(([r, a]) => `${r}:${a}`).join(', ') }, `card-${rotation}-${units}.pdf`);
-		const text = execFileSync('pdftotext', ['-layout', pdf, '-'], { encoding: 'utf8' });
-		const engine = { hubDiameterMm: diameterMm, paperThicknessMm: 0.1, rotation };
-		for (const [rpm, advance] of curve) {
-			const row = new RegExp(`${rpm} rpm\\s+(TDC|([\\d.]+)° (BTDC|ATDC))\\s+(on the TDC line|([\\d.]+) (mm|in) (left|right) of TDC)`).exec(text);
-			expect(row, `row for ${rpm} rpm`).not.toBeNull();
-			const want = underPointer(engine, -advance); // the light freezes the crank `advance` degrees before TDC
-			if (advance === 0) {
-				expect(row![1]).toBe('TDC');
-				expect(row![4]).toBe('on the TDC line');
-				continue;
+	] as const)(
+		'%s, %s, hub %s: each mark’s distance and side of TDC is where the engine brings it under the pointer',
+		async (rotation, units, diameter, diameterMm) => {
+			const curve = [
+				[800, -5],
+				[900, 0],
+				[1200, 10],
+				[3000, 20],
+				[6000, 32.5]
+			] as const;
+			const pdf = await download(
+				'/api/v1/timing-card.pdf',
+				{ diameter, units, rotation, curve: curve.map(([r, a]) => `${r}:${a}`).join(', ') },
+				`card-${rotation}-${units}.pdf`
+			);
+			const text = execFileSync('pdftotext', ['-layout', pdf, '-'], { encoding: 'utf8' });
+			const engine = { hubDiameterMm: diameterMm, paperThicknessMm: 0.1, rotation };
+			for (const [rpm, advance] of curve) {
+				const row = new RegExp(
+					`${rpm} rpm\\s+(TDC|([\\d.]+)° (BTDC|ATDC))\\s+(on the TDC line|([\\d.]+) (mm|in) (left|right) of TDC)`
+				).exec(text);
+				expect(row, `row for ${rpm} rpm`).not.toBeNull();
+				const want = underPointer(engine, -advance); // the light freezes the crank `advance` degrees before TDC
+				if (advance === 0) {
+					expect(row![1]).toBe('TDC');
+					expect(row![4]).toBe('on the TDC line');
+					continue;
+				}
+				expect(Number(row![2])).toBe(Math.abs(advance));
+				expect(row![3]).toBe(advance > 0 ? 'BTDC' : 'ATDC');
+				expect(row![6]).toBe(units);
+				expect(row![7]).toBe(sideOf(want));
+				// Printed to 0.1 mm or 0.001 in.
+				const printedMm = Number(row![5]) * (units === 'in' ? 25.4 : 1);
+				expect(Math.abs(printedMm - Math.abs(want))).toBeLessThan(units === 'in' ? 0.0006 * 25.4 + 0.01 : 0.06);
 			}
-			expect(Number(row![2])).toBe(Math.abs(advance));
-			expect(row![3]).toBe(advance > 0 ? 'BTDC' : 'ATDC');
-			expect(row![6]).toBe(units);
-			expect(row![7]).toBe(sideOf(want));
-			// Printed to 0.1 mm or 0.001 in.
-			const printedMm = Number(row![5]) * (units === 'in' ? 25.4 : 1);
-			expect(Math.abs(printedMm - Math.abs(want))).toBeLessThan(units === 'in' ? 0.0006 * 25.4 + 0.01 : 0.06);
 		}
-	});
+	);
 });

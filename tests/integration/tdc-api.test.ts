@@ -32,14 +32,22 @@ const bisector = (a: number, b: number) => {
  * With the crank c degrees past the moment the scale's 0 stood at the pointer, the tape has moved
  * c·(π·D/360) mm that way, so the graduation under the pointer sits that far the other way from 0.
  */
-const underPointerMm = (c: number, rotation: 'cw' | 'ccw', diameterMm: number) => -c * ((Math.PI * diameterMm) / 360) * (rotation === 'cw' ? 1 : -1);
+const underPointerMm = (c: number, rotation: 'cw' | 'ccw', diameterMm: number) =>
+	-c * ((Math.PI * diameterMm) / 360) * (rotation === 'cw' ? 1 : -1);
 
 describe('GET /api/v1/tdc with readings and their sides', () => {
 	// Seed document (fact of the trade): two marks 29° apart put TDC 14.5° from each.
 	it('10 BTDC and 19 ATDC: 4.5° ATDC, 14.5° from each, in words', async () => {
 		const { status, body } = await get({ a: '10 BTDC', b: '19 ATDC' });
 		expect(status).toBe(200);
-		expect(body).toMatchObject({ scale: 'signed', tdcDeg: 4.5, spreadDeg: 29, halfSpreadDeg: 14.5, tdc: { side: '4.5° ATDC' }, finding: "True TDC is 4.5° ATDC of the scale's 0." });
+		expect(body).toMatchObject({
+			scale: 'signed',
+			tdcDeg: 4.5,
+			spreadDeg: 29,
+			halfSpreadDeg: 14.5,
+			tdc: { side: '4.5° ATDC' },
+			finding: "True TDC is 4.5° ATDC of the scale's 0."
+		});
 		expect(body.tdc.atdcDeg).toBeCloseTo(bisector(-10, 19), 6);
 		expect(body.a).toMatchObject({ atdcDeg: -10, written: '10 BTDC' });
 	});
@@ -76,7 +84,10 @@ describe('GET /api/v1/tdc with readings and their sides', () => {
 
 	it('says which way and how far to re-mark on this hub, against a model of the tape passing the pointer', async () => {
 		for (const rotation of ['cw', 'ccw'] as const) {
-			for (const [a, b] of [['10 BTDC', '19 ATDC'], ['19 BTDC', '10 ATDC']] as const) {
+			for (const [a, b] of [
+				['10 BTDC', '19 ATDC'],
+				['19 BTDC', '10 ATDC']
+			] as const) {
 				const { body } = await get({ a, b, rotation, diameter: '76.2' });
 				const tdc = bisector(a.startsWith('10') ? -10 : -19, b.startsWith('19') ? 19 : 10);
 				// At true TDC the pointer stands over the graduation the new 0 goes on.
@@ -88,7 +99,9 @@ describe('GET /api/v1/tdc with readings and their sides', () => {
 			}
 		}
 		// 4.5° on a 76.2 mm hub: 76.2·π·4.5/360 = 2.992 mm (by hand).
-		expect((await get({ a: '10 BTDC', b: '19 ATDC', rotation: 'cw', diameter: '76.2' })).body.remark).toMatch(/2\.99 mm along the rim.*to the left of it/);
+		expect((await get({ a: '10 BTDC', b: '19 ATDC', rotation: 'cw', diameter: '76.2' })).body.remark).toMatch(
+			/2\.99 mm along the rim.*to the left of it/
+		);
 	});
 
 	it('refuses a 0–90–0 wheel’s readings typed as plain numbers (they used to give 14.5°, spread 9°)', async () => {

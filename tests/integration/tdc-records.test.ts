@@ -12,7 +12,10 @@ import { Client, freshEmail, signUp } from '../support/client';
 const database = connect(process.env.DATABASE_URL!);
 afterAll(() => database.$client.end());
 
-type Overview = { tdcRecords: { label: string; tdcDeg: string; params: Record<string, string> }[]; activity: { kind: string; summary: string }[] };
+type Overview = {
+	tdcRecords: { label: string; tdcDeg: string; params: Record<string, string> }[];
+	activity: { kind: string; summary: string }[];
+};
 
 let client: Client;
 let buildId: string;
@@ -24,16 +27,24 @@ beforeAll(async () => {
 describe('saving a TDC record', () => {
 	it('keeps a quadrant wheel’s readings with their quadrants and the scale, and shows them with sides on the build page', async () => {
 		// Seed document: marks 29° apart, TDC 14.5° from each: 10 BTDC and 19 ATDC give 4.5 ATDC.
-		const res = await client.send('POST', `/api/v1/builds/${buildId}/tdc-records`, { label: 'quarters', params: { a: '10 btdc', b: '19A', scale: 'signed' } });
+		const res = await client.send('POST', `/api/v1/builds/${buildId}/tdc-records`, {
+			label: 'quarters',
+			params: { a: '10 btdc', b: '19A', scale: 'signed' }
+		});
 		expect(res.status).toBe(201);
-		const q = await client.send('POST', `/api/v1/builds/${buildId}/tdc-records`, { label: 'near BDC', params: { a: '20 BBDC', b: '12 ABDC', scale: 'quadrant' } });
+		const q = await client.send('POST', `/api/v1/builds/${buildId}/tdc-records`, {
+			label: 'near BDC',
+			params: { a: '20 BBDC', b: '12 ABDC', scale: 'quadrant' }
+		});
 		expect(q.status).toBe(201);
 		const { body } = await client.json<Overview>(`/api/v1/builds/${buildId}`);
 		const byLabel = Object.fromEntries(body.tdcRecords.map((r) => [r.label, r]));
 		expect(byLabel.quarters).toMatchObject({ tdcDeg: '4.5', params: { a: '10 BTDC', b: '19 ATDC', scale: 'signed' } });
 		// By hand: 20 BBDC = 160 ATDC, 12 ABDC = 192 ATDC; half-way 176 ATDC, i.e. 4 BBDC.
 		expect(byLabel['near BDC']).toMatchObject({ tdcDeg: '176', params: { a: '20 BBDC', b: '12 ABDC', scale: 'quadrant' } });
-		expect(body.activity.find((a) => a.kind === 'tdc' && a.summary.includes('quarters'))?.summary).toMatch(/marks 10° BTDC and 19° ATDC, TDC 4\.5° ATDC/);
+		expect(body.activity.find((a) => a.kind === 'tdc' && a.summary.includes('quarters'))?.summary).toMatch(
+			/marks 10° BTDC and 19° ATDC, TDC 4\.5° ATDC/
+		);
 
 		const page = await (await client.get(`/builds/${buildId}`)).text();
 		const list = page.slice(page.indexOf('data-testid="tdc-records"'));
@@ -44,10 +55,14 @@ describe('saving a TDC record', () => {
 
 	it('refuses ambiguous readings by field and saves nothing', async () => {
 		const before = (await client.json<Overview>(`/api/v1/builds/${buildId}`)).body.tdcRecords.length;
-		const plain = await client.send<{ errors: Record<string, string> }>('POST', `/api/v1/builds/${buildId}/tdc-records`, { params: { a: '10', b: '19' } });
+		const plain = await client.send<{ errors: Record<string, string> }>('POST', `/api/v1/builds/${buildId}/tdc-records`, {
+			params: { a: '10', b: '19' }
+		});
 		expect(plain.status).toBe(400);
 		expect(plain.body.errors['params.b']).toMatch(/^b: both readings lie ATDC of 0.*10 BTDC and 19 ATDC/);
-		const quadrant = await client.send<{ errors: Record<string, string> }>('POST', `/api/v1/builds/${buildId}/tdc-records`, { params: { a: '10', b: '19 ATDC', scale: 'quadrant' } });
+		const quadrant = await client.send<{ errors: Record<string, string> }>('POST', `/api/v1/builds/${buildId}/tdc-records`, {
+			params: { a: '10', b: '19 ATDC', scale: 'quadrant' }
+		});
 		expect(quadrant.status).toBe(400);
 		expect(quadrant.body.errors['params.a']).toMatch(/^a: on a 0–90–0 wheel/);
 		expect((await client.json<Overview>(`/api/v1/builds/${buildId}`)).body.tdcRecords).toHaveLength(before);
@@ -56,7 +71,10 @@ describe('saving a TDC record', () => {
 
 describe('the migration of records saved as plain numbers', () => {
 	it('writes each reading with its side, the scale named, the signed meaning kept', async () => {
-		const [shop] = await database.insert(workshop).values({ slug: `tdc-mig-${Date.now()}`, name: 'Migration bench' }).returning();
+		const [shop] = await database
+			.insert(workshop)
+			.values({ slug: `tdc-mig-${Date.now()}`, name: 'Migration bench' })
+			.returning();
 		const [b] = await database.insert(build).values({ workshopId: shop!.id, name: 'Old records' }).returning();
 		// Rows as the old code saved them: readings as typed, tdc_deg on the scale (0–360 on a full wheel).
 		const old: { label: string; params: Record<string, string>; tdcDeg: string }[] = [
@@ -68,10 +86,21 @@ describe('the migration of records saved as plain numbers', () => {
 			{ label: 'zero', params: { a: '0', b: '12.25' }, tdcDeg: '6.125' },
 			{ label: 'already sided', params: { a: '30 BBDC', b: '20 ABDC', scale: 'quadrant' }, tdcDeg: '175' }
 		];
-		const rows = await database.insert(tdcRecord).values(old.map((o) => ({ ...o, buildId: b!.id }))).returning({ id: tdcRecord.id });
+		const rows = await database
+			.insert(tdcRecord)
+			.values(old.map((o) => ({ ...o, buildId: b!.id })))
+			.returning({ id: tdcRecord.id });
 		const migration = readFileSync(join(migrationsFolder, '0005_tdc_readings_with_sides.sql'), 'utf8');
 		await database.execute(sql.raw(migration));
-		const after = await database.select({ label: tdcRecord.label, params: tdcRecord.params, tdcDeg: tdcRecord.tdcDeg }).from(tdcRecord).where(inArray(tdcRecord.id, rows.map((r) => r.id)));
+		const after = await database
+			.select({ label: tdcRecord.label, params: tdcRecord.params, tdcDeg: tdcRecord.tdcDeg })
+			.from(tdcRecord)
+			.where(
+				inArray(
+					tdcRecord.id,
+					rows.map((r) => r.id)
+				)
+			);
 		const got = Object.fromEntries(after.map((r) => [r.label, { params: r.params, tdcDeg: r.tdcDeg }]));
 		// Worked by hand from the old meaning: negative = BTDC; on 0–360, 350 = 10 BTDC, 340 = 20 BTDC
 		// and TDC 355 = 5 BTDC; tdc_deg becomes degrees ATDC, BTDC negative.
@@ -93,7 +122,15 @@ describe('the migration of records saved as plain numbers', () => {
 		}
 		// Running it again changes nothing.
 		await database.execute(sql.raw(migration));
-		const again = await database.select({ label: tdcRecord.label, params: tdcRecord.params, tdcDeg: tdcRecord.tdcDeg }).from(tdcRecord).where(inArray(tdcRecord.id, rows.map((r) => r.id)));
+		const again = await database
+			.select({ label: tdcRecord.label, params: tdcRecord.params, tdcDeg: tdcRecord.tdcDeg })
+			.from(tdcRecord)
+			.where(
+				inArray(
+					tdcRecord.id,
+					rows.map((r) => r.id)
+				)
+			);
 		expect(Object.fromEntries(again.map((r) => [r.label, { params: r.params, tdcDeg: r.tdcDeg }]))).toEqual(got);
 		await database.delete(workshop).where(eq(workshop.id, shop!.id));
 	});

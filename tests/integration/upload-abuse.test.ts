@@ -27,7 +27,11 @@ function crc32(bytes: Uint8Array): number {
 
 /** A 1 x 1 PNG whose IHDR claims `side` x `side`, CRC recomputed so the header reads as valid: a decompression bomb's header. */
 async function bombPng(side: number): Promise<Buffer> {
-	const png = Buffer.from(await sharp({ create: { width: 1, height: 1, channels: 3, background: '#0000ff' } }).png().toBuffer());
+	const png = Buffer.from(
+		await sharp({ create: { width: 1, height: 1, channels: 3, background: '#0000ff' } })
+			.png()
+			.toBuffer()
+	);
 	// PNG spec 5.3/11.2.2: signature (8 bytes), IHDR length (4), 'IHDR' at 12, width at 16, height at 20, CRC over type + 13 data bytes at 29.
 	expect(png.subarray(12, 16).toString('latin1')).toBe('IHDR');
 	png.writeUInt32BE(side, 16);
@@ -38,7 +42,11 @@ async function bombPng(side: number): Promise<Buffer> {
 
 /** A tiny baseline JPEG whose SOF0 frame header claims `side` x `side` (ITU T.81 B.2.2: SOF0 = FF C0, length, precision, height, width). */
 async function bombJpeg(side: number): Promise<Buffer> {
-	const jpeg = Buffer.from(await sharp({ create: { width: 8, height: 8, channels: 3, background: '#808080' } }).jpeg({ mozjpeg: false }).toBuffer());
+	const jpeg = Buffer.from(
+		await sharp({ create: { width: 8, height: 8, channels: 3, background: '#808080' } })
+			.jpeg({ mozjpeg: false })
+			.toBuffer()
+	);
 	// Walk the marker segments after SOI (FF D8): each is FF, a marker byte, then a 2-byte length.
 	let at = 2;
 	while (jpeg[at] === 0xff && jpeg[at + 1] !== 0xc0) at += 2 + jpeg.readUInt16BE(at + 2);
@@ -48,10 +56,19 @@ async function bombJpeg(side: number): Promise<Buffer> {
 	return jpeg;
 }
 
-const png = () => sharp({ create: { width: 48, height: 32, channels: 3, background: '#336699' } }).png().toBuffer();
-const jpeg = () => sharp({ create: { width: 48, height: 32, channels: 3, background: '#996633' } }).jpeg().toBuffer();
+const png = () =>
+	sharp({ create: { width: 48, height: 32, channels: 3, background: '#336699' } })
+		.png()
+		.toBuffer();
+const jpeg = () =>
+	sharp({ create: { width: 48, height: 32, channels: 3, background: '#996633' } })
+		.jpeg()
+		.toBuffer();
 
-type Upload = { status: number; body: { photos?: { id: string; name: string; mime: string }[]; errors?: Record<string, string>; message?: string } };
+type Upload = {
+	status: number;
+	body: { photos?: { id: string; name: string; mime: string }[]; errors?: Record<string, string>; message?: string };
+};
 
 describe('abusive photo uploads', () => {
 	let client: Client;
@@ -73,11 +90,19 @@ describe('abusive photo uploads', () => {
 	/** A multipart body written by hand, so a file name reaches the server byte for byte (FormData would escape CR, LF and quotes). */
 	const rawUpload = async (filename: string, bytes: Uint8Array): Promise<Upload> => {
 		const boundary = 'pwBoundary7MA4YWxkTrZu0gW';
-		const head = Buffer.from(`--${boundary}\r\nContent-Disposition: form-data; name="file"; filename="${filename}"\r\nContent-Type: image/png\r\n\r\n`, 'utf8');
+		const head = Buffer.from(
+			`--${boundary}\r\nContent-Disposition: form-data; name="file"; filename="${filename}"\r\nContent-Type: image/png\r\n\r\n`,
+			'utf8'
+		);
 		const body = Buffer.concat([head, bytes, Buffer.from(`\r\n--${boundary}--\r\n`)]);
 		const res = await fetch(new URL(`/api/v1/builds/${buildId}/photos`, appUrl), {
 			method: 'POST',
-			headers: { cookie, origin: new URL(appUrl).origin, accept: 'application/json', 'content-type': `multipart/form-data; boundary=${boundary}` },
+			headers: {
+				cookie,
+				origin: new URL(appUrl).origin,
+				accept: 'application/json',
+				'content-type': `multipart/form-data; boundary=${boundary}`
+			},
 			body
 		});
 		return { status: res.status, body: (await res.json()) as Upload['body'] };
@@ -106,16 +131,41 @@ describe('abusive photo uploads', () => {
 			{ bytes: new Uint8Array(), name: 'empty.jpg', type: 'image/jpeg', says: /empty/ },
 			{ bytes: Buffer.from('%PDF-1.7\n%âãÏÓ\n1 0 obj\n<<>>\nendobj\n'), name: 'wheel.jpg', type: 'image/jpeg', says: /a PDF/ },
 			{ bytes: Buffer.from('<html><script>alert(1)</script></html>'), name: 'wheel.png', type: 'image/png', says: /plain text/ },
-			{ bytes: Buffer.from('<svg xmlns="http://www.w3.org/2000/svg" onload="alert(1)"/>'), name: 'wheel.webp', type: 'image/webp', says: /SVG/ },
+			{
+				bytes: Buffer.from('<svg xmlns="http://www.w3.org/2000/svg" onload="alert(1)"/>'),
+				name: 'wheel.webp',
+				type: 'image/webp',
+				says: /SVG/
+			},
 			// Local file header signature PK\3\4 (PKWARE APPNOTE 4.3.7): a ZIP named as a photo.
-			{ bytes: Buffer.from([0x50, 0x4b, 0x03, 0x04, 0x14, 0, 0, 0, 8, 0]), name: 'wheel.jpg', type: 'image/jpeg', says: /not an image we recognise/ },
+			{
+				bytes: Buffer.from([0x50, 0x4b, 0x03, 0x04, 0x14, 0, 0, 0, 8, 0]),
+				name: 'wheel.jpg',
+				type: 'image/jpeg',
+				says: /not an image we recognise/
+			},
 			// ELF magic 7F 'ELF' (System V ABI): an executable.
-			{ bytes: Buffer.from([0x7f, 0x45, 0x4c, 0x46, 2, 1, 1, 0, 0, 0, 0, 0]), name: 'wheel.png', type: 'image/png', says: /not an image we recognise/ },
+			{
+				bytes: Buffer.from([0x7f, 0x45, 0x4c, 0x46, 2, 1, 1, 0, 0, 0, 0, 0]),
+				name: 'wheel.png',
+				type: 'image/png',
+				says: /not an image we recognise/
+			},
 			{ bytes: Buffer.from('RIFF\x24\0\0\0WAVEfmt ', 'latin1'), name: 'wheel.webp', type: 'image/webp', says: /JPEG, PNG or WebP only/ },
 			// The PNG signature alone, and a JPEG cut off after its first 60 bytes.
-			{ bytes: Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]), name: 'sig.png', type: 'image/png', says: /truncated or damaged/ },
+			{
+				bytes: Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]),
+				name: 'sig.png',
+				type: 'image/png',
+				says: /truncated or damaged/
+			},
 			{ bytes: full.subarray(0, 60), name: 'cut.jpg', type: 'image/jpeg', says: /truncated or damaged/ },
-			{ bytes: Buffer.concat([full.subarray(0, 3), Buffer.alloc(2000, 0x41)]), name: 'junk.jpg', type: 'image/jpeg', says: /truncated or damaged/ }
+			{
+				bytes: Buffer.concat([full.subarray(0, 3), Buffer.alloc(2000, 0x41)]),
+				name: 'junk.jpg',
+				type: 'image/jpeg',
+				says: /truncated or damaged/
+			}
 		];
 		for (const c of cases) await expectRefused(upload([c]), 400, c.says);
 	});
@@ -124,23 +174,51 @@ describe('abusive photo uploads', () => {
 		// 30000 x 30000 = 900 megapixels (3.6 GB decoded) in a file of under 100 bytes.
 		const bomb = await bombPng(30_000);
 		expect(bomb.length).toBeLessThan(100);
-		await expectRefused(upload([{ bytes: bomb, name: 'bomb.png', type: 'image/png' }]), 400, /at most 50 megapixels; this image is 30000 x 30000/);
-		await expectRefused(upload([{ bytes: await bombJpeg(65_000), name: 'bomb.jpg', type: 'image/jpeg' }]), 400, /at most 50 megapixels; this image is 65000 x 65000/);
+		await expectRefused(
+			upload([{ bytes: bomb, name: 'bomb.png', type: 'image/png' }]),
+			400,
+			/at most 50 megapixels; this image is 30000 x 30000/
+		);
+		await expectRefused(
+			upload([{ bytes: await bombJpeg(65_000), name: 'bomb.jpg', type: 'image/jpeg' }]),
+			400,
+			/at most 50 megapixels; this image is 65000 x 65000/
+		);
 		// Just over the cap: 7072 x 7072 = 50.01 megapixels.
 		await expectRefused(upload([{ bytes: await bombPng(7072), name: 'edge.png' }]), 400, /at most 50 megapixels/);
 		// A bomb among good photos: none of them is kept.
-		await expectRefused(upload([{ bytes: await png(), name: 'good.png' }, { bytes: bomb, name: 'bomb.png' }]), 400, /megapixels.*bomb\.png/);
+		await expectRefused(
+			upload([
+				{ bytes: await png(), name: 'good.png' },
+				{ bytes: bomb, name: 'bomb.png' }
+			]),
+			400,
+			/megapixels.*bomb\.png/
+		);
 	});
 
 	it('refuses files and bodies over the size caps with 413, streamed or declared', async () => {
 		// One file just over the 20 MB cap, inside the 21 MB body limit: refused by its own size.
 		await expectRefused(upload([{ bytes: Buffer.alloc(20 * MB + 1024, 0xff), name: 'big.jpg' }]), 413, /over 20 MB/);
 		// Two files of 15 MB: the body (30 MB) is over what one upload may carry.
-		await expectRefused(upload([{ bytes: Buffer.alloc(15 * MB), name: 'a.jpg' }, { bytes: Buffer.alloc(15 * MB), name: 'b.jpg' }]), 413, /at most 20 MB per photo, and 21 MB per upload/);
+		await expectRefused(
+			upload([
+				{ bytes: Buffer.alloc(15 * MB), name: 'a.jpg' },
+				{ bytes: Buffer.alloc(15 * MB), name: 'b.jpg' }
+			]),
+			413,
+			/at most 20 MB per photo, and 21 MB per upload/
+		);
 		// 30 MB streamed without a content-length (chunked): the server's body limit stops it as it comes in.
 		const before = await stored();
 		const boundary = 'pwStreamBoundary';
-		const chunks = [Buffer.from(`--${boundary}\r\nContent-Disposition: form-data; name="file"; filename="stream.jpg"\r\nContent-Type: image/jpeg\r\n\r\n`), ...Array.from({ length: 30 }, () => Buffer.alloc(MB, 0xd8)), Buffer.from(`\r\n--${boundary}--\r\n`)];
+		const chunks = [
+			Buffer.from(
+				`--${boundary}\r\nContent-Disposition: form-data; name="file"; filename="stream.jpg"\r\nContent-Type: image/jpeg\r\n\r\n`
+			),
+			...Array.from({ length: 30 }, () => Buffer.alloc(MB, 0xd8)),
+			Buffer.from(`\r\n--${boundary}--\r\n`)
+		];
 		const stream = new ReadableStream({
 			pull(controller) {
 				const next = chunks.shift();
@@ -150,7 +228,12 @@ describe('abusive photo uploads', () => {
 		});
 		const res = await fetch(new URL(`/api/v1/builds/${buildId}/photos`, appUrl), {
 			method: 'POST',
-			headers: { cookie, origin: new URL(appUrl).origin, accept: 'application/json', 'content-type': `multipart/form-data; boundary=${boundary}` },
+			headers: {
+				cookie,
+				origin: new URL(appUrl).origin,
+				accept: 'application/json',
+				'content-type': `multipart/form-data; boundary=${boundary}`
+			},
 			body: stream,
 			duplex: 'half'
 		} as RequestInit);
@@ -159,12 +242,20 @@ describe('abusive photo uploads', () => {
 		expect(await stored()).toEqual(before);
 		// Thirteen small photos at once: over the twelve one upload takes.
 		const small = await png();
-		await expectRefused(upload(Array.from({ length: 13 }, (_, i) => ({ bytes: small, name: `p${i}.png` }))), 400, /at most 12 photos at once/);
+		await expectRefused(
+			upload(Array.from({ length: 13 }, (_, i) => ({ bytes: small, name: `p${i}.png` }))),
+			400,
+			/at most 12 photos at once/
+		);
 	});
 
 	it('refuses what is not a multipart upload of files, naming file', async () => {
 		const post = (body: string, type: string) =>
-			fetch(new URL(`/api/v1/builds/${buildId}/photos`, appUrl), { method: 'POST', headers: { cookie, origin: new URL(appUrl).origin, accept: 'application/json', 'content-type': type }, body }).then(async (r) => ({ status: r.status, body: (await r.json()) as Upload['body'] }));
+			fetch(new URL(`/api/v1/builds/${buildId}/photos`, appUrl), {
+				method: 'POST',
+				headers: { cookie, origin: new URL(appUrl).origin, accept: 'application/json', 'content-type': type },
+				body
+			}).then(async (r) => ({ status: r.status, body: (await r.json()) as Upload['body'] }));
 		await expectRefused(post('{"file":"AAAA"}', 'application/json'), 400, /multipart\/form-data/);
 		await expectRefused(post('file=AAAA', 'application/x-www-form-urlencoded'), 400, /choose at least one photo/);
 		await expectRefused(post('--x\r\nbroken', 'multipart/form-data; boundary=x'), 400, /multipart\/form-data|choose at least one photo/);
@@ -205,7 +296,9 @@ describe('abusive photo uploads', () => {
 			// charset, two quotes, then only attr-chars or percent-encoded octets, which decode to the name.
 			const download = await client.get(`/api/v1/photos/${id}`);
 			expect(download.status).toBe(200);
-			const disposition = /^inline; filename\*=UTF-8''([A-Za-z0-9!#$&+\-.^_`|~%]*)$/.exec(download.headers.get('content-disposition') ?? '');
+			const disposition = /^inline; filename\*=UTF-8''([A-Za-z0-9!#$&+\-.^_`|~%]*)$/.exec(
+				download.headers.get('content-disposition') ?? ''
+			);
 			expect(disposition, `${name}: ${download.headers.get('content-disposition')}`).not.toBeNull();
 			expect(decodeURIComponent(disposition![1]!)).toBe(cleaned);
 		}
@@ -213,7 +306,13 @@ describe('abusive photo uploads', () => {
 
 	it('names carrying NUL, CR or LF as raw bytes in the multipart header: cleaned or refused naming file, never stored under them', async () => {
 		const bytes = await png();
-		for (const name of ['a\u0000b.png', 'line\nbreak.png', 'cr\r\nContent-Type: text/html\r\n\r\n.png', '\u0000', '../\u0000../etc/passwd.png']) {
+		for (const name of [
+			'a\u0000b.png',
+			'line\nbreak.png',
+			'cr\r\nContent-Type: text/html\r\n\r\n.png',
+			'\u0000',
+			'../\u0000../etc/passwd.png'
+		]) {
 			const before = await stored();
 			const res = await rawUpload(name, bytes);
 			if (res.status === 201) {

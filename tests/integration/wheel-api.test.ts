@@ -30,7 +30,12 @@ interface DxfFacts {
 async function dxfFacts(params: Record<string, string>, od: number): Promise<DxfFacts> {
 	const res = await get('/api/v1/wheel.dxf', params);
 	expect(res.status).toBe(200);
-	const file = join(dir, `${Object.values(params).join('_').replace(/[^\w.-]/g, '')}.dxf`);
+	const file = join(
+		dir,
+		`${Object.values(params)
+			.join('_')
+			.replace(/[^\w.-]/g, '')}.dxf`
+	);
 	writeFileSync(file, Buffer.from(await res.arrayBuffer()));
 	return JSON.parse(execFileSync('/usr/bin/python3', [facts, file, String(od)], { encoding: 'utf8' })) as DxfFacts;
 }
@@ -46,18 +51,66 @@ interface Case {
 }
 
 const cases: Case[] = [
-	{ name: '36-1, mm, sharp corners', params: { teeth: '36', missing: '1', od: '100', depth: '5', bore: '20', units: 'mm' }, od: 100, teeth: 35, pitch: 10, duty: 0.5, insunits: 4 },
+	{
+		name: '36-1, mm, sharp corners',
+		params: { teeth: '36', missing: '1', od: '100', depth: '5', bore: '20', units: 'mm' },
+		od: 100,
+		teeth: 35,
+		pitch: 10,
+		duty: 0.5,
+		insunits: 4
+	},
 	{
 		name: '60-2, inches, B17.1 keyway, filleted',
-		params: { teeth: '60', missing: '2', od: '6', depth: '3/16', duty: '0.45', bore: '1', keyway: 'b17.1', shaft: '1', tipRadius: '0.02', rootRadius: '0.02', thickness: '1/8', units: 'in' },
+		params: {
+			teeth: '60',
+			missing: '2',
+			od: '6',
+			depth: '3/16',
+			duty: '0.45',
+			bore: '1',
+			keyway: 'b17.1',
+			shaft: '1',
+			tipRadius: '0.02',
+			rootRadius: '0.02',
+			thickness: '1/8',
+			units: 'in'
+		},
 		od: 6,
 		teeth: 58,
 		pitch: 6,
 		duty: 0.45,
 		insunits: 1
 	},
-	{ name: '36-1-1 (two gaps 180° apart), bolt circle', params: { pattern: 'custom', teeth: '36', gaps: '17,35', od: '120', depth: '6', bore: '25', bolts: '4', pcd: '60', boltHole: '6.5', units: 'mm' }, od: 120, teeth: 34, pitch: 10, duty: 0.5, insunits: 4 },
-	{ name: '24-2 with DIN 6885-1 keyway', params: { teeth: '24', missing: '2', od: '90', depth: '6', bore: '20', keyway: 'din6885', shaft: '20', units: 'mm' }, od: 90, teeth: 22, pitch: 15, duty: 0.5, insunits: 4 }
+	{
+		name: '36-1-1 (two gaps 180° apart), bolt circle',
+		params: {
+			pattern: 'custom',
+			teeth: '36',
+			gaps: '17,35',
+			od: '120',
+			depth: '6',
+			bore: '25',
+			bolts: '4',
+			pcd: '60',
+			boltHole: '6.5',
+			units: 'mm'
+		},
+		od: 120,
+		teeth: 34,
+		pitch: 10,
+		duty: 0.5,
+		insunits: 4
+	},
+	{
+		name: '24-2 with DIN 6885-1 keyway',
+		params: { teeth: '24', missing: '2', od: '90', depth: '6', bore: '20', keyway: 'din6885', shaft: '20', units: 'mm' },
+		od: 90,
+		teeth: 22,
+		pitch: 15,
+		duty: 0.5,
+		insunits: 4
+	}
 ];
 
 describe('GET /api/v1/wheel (JSON)', () => {
@@ -88,14 +141,26 @@ describe('GET /api/v1/wheel (JSON)', () => {
 	it.each<[Record<string, string>, string, RegExp]>([
 		[{ teeth: '36', missing: '36', od: '100', depth: '5' }, 'missing', /at most 35/],
 		[{ teeth: '36', missing: '1', od: '100', depth: '45', bore: '20' }, 'depth', /less than 39\.00 mm/],
-		[{ teeth: '36', missing: '1', od: '100', depth: '5', bore: '20', bolts: '3', pcd: '30', boltHole: '12' }, 'pcd', /so the holes keep 1\.00 mm from the bore, keyway and tooth roots/],
+		[
+			{ teeth: '36', missing: '1', od: '100', depth: '5', bore: '20', bolts: '3', pcd: '30', boltHole: '12' },
+			'pcd',
+			/so the holes keep 1\.00 mm from the bore, keyway and tooth roots/
+		],
 		[{ teeth: '36', missing: '1', od: '100', depth: '5', bore: '20', keyway: 'din6885' }, 'shaft', /shaft diameter/],
 		// ANSI B17.2 lists its key numbers; 999, 1299 and 1650 are none of them.
-		[{ teeth: '36', missing: '1', od: '100', depth: '5', bore: '20', keyway: 'woodruff', woodruff: '999' }, 'woodruff', /one of the ANSI B17\.2 key numbers 202, 202\.5, .*1212/],
+		[
+			{ teeth: '36', missing: '1', od: '100', depth: '5', bore: '20', keyway: 'woodruff', woodruff: '999' },
+			'woodruff',
+			/one of the ANSI B17\.2 key numbers 202, 202\.5, .*1212/
+		],
 		[{ teeth: '36', missing: '1', od: '100', depth: '5', bore: '20', keyway: 'woodruff', woodruff: '1299' }, 'woodruff', /key numbers/],
 		[{ teeth: '36', missing: '1', od: '100', depth: '5', bore: '20', keyway: 'woodruff', woodruff: '1650' }, 'woodruff', /key numbers/],
 		// B17.1's square keys stop at 6 1/2 in shafts; DIN 6885-1 at 500 mm.
-		[{ teeth: '36', missing: '1', od: '12', depth: '1/4', bore: '7', keyway: 'b17.1', shaft: '7', thickness: '1/4', units: 'in' }, 'shaft', /to 6\.500 in for ANSI B17\.1 square keys \(the standard's square-key sizes end there\)/],
+		[
+			{ teeth: '36', missing: '1', od: '12', depth: '1/4', bore: '7', keyway: 'b17.1', shaft: '7', thickness: '1/4', units: 'in' },
+			'shaft',
+			/to 6\.500 in for ANSI B17\.1 square keys \(the standard's square-key sizes end there\)/
+		],
 		[{ teeth: '36', missing: '1', od: '4', depth: '3/16', units: 'yards' }, 'units', /one of mm, in/],
 		// One line of text: a line break or control character has no place in an etched label.
 		[{ teeth: '36', missing: '1', od: '100', depth: '5', label: 'R1\n  0\nLINE' }, 'label', /no line breaks/]
@@ -106,7 +171,15 @@ describe('GET /api/v1/wheel (JSON)', () => {
 	});
 
 	it('reads fractional inches', async () => {
-		const res = await get('/api/v1/wheel', { teeth: '36', missing: '1', od: '3 1/2', depth: '3/16', bore: '5/8', thickness: '1/8', units: 'in' });
+		const res = await get('/api/v1/wheel', {
+			teeth: '36',
+			missing: '1',
+			od: '3 1/2',
+			depth: '3/16',
+			bore: '5/8',
+			thickness: '1/8',
+			units: 'in'
+		});
 		expect(res.status).toBe(200);
 		expect((await res.json()).rootDiameterMm).toBeCloseTo((3.5 - 2 * 0.1875) * 25.4, 3);
 	});
@@ -122,7 +195,12 @@ describe('the designer page and the API refuse alike', () => {
 		['an outside diameter under 10 mm, in inches', { ...base, od: '1/4', depth: '1/16', units: 'in' }, 'od', '0.394 in to 78.74 in'],
 		['a depth that is no length', { ...base, depth: 'deep', units: 'mm' }, 'depth', '0.2 mm to 200 mm'],
 		['bolt holes without their circle', { ...base, bore: '20', bolts: '3', boltHole: '6' }, 'pcd', 'needed with bolt holes'],
-		['a keyway without a bore', { ...base, bore: '0', keyway: 'custom', keyWidth: '5', keyDepth: '2' }, 'bore', 'needed for a keyway (more than 0)'],
+		[
+			'a keyway without a bore',
+			{ ...base, bore: '0', keyway: 'custom', keyWidth: '5', keyDepth: '2' },
+			'bore',
+			'needed for a keyway (more than 0)'
+		],
 		// 36 positions with 36 missing leave no tooth: at most N − 1 = 35.
 		['every tooth missing', { ...base, missing: '36' }, 'missing', 'at most 35']
 	])('%s', async (_, params, field, expected) => {
@@ -163,7 +241,10 @@ describe('DXF for a cutting order, read back by ezdxf', () => {
 		expect(f.flankAngles).toHaveLength(2 * c.teeth);
 		for (const a of f.flankAngles) {
 			const within = (((a - 90) % c.pitch) + c.pitch) % c.pitch;
-			expect([0, c.duty * c.pitch, c.pitch].some((v) => Math.abs(within - v) < 1e-3), `flank at ${a}°`).toBe(true);
+			expect(
+				[0, c.duty * c.pitch, c.pitch].some((v) => Math.abs(within - v) < 1e-3),
+				`flank at ${a}°`
+			).toBe(true);
 		}
 	});
 
@@ -171,7 +252,17 @@ describe('DXF for a cutting order, read back by ezdxf', () => {
 		// Machinery's Handbook, Table 2 "Depth Control Values S and T" (B17.1), hubs, parallel, square:
 		// 1.114 in from the keyseat floor across to the far side of a 1 in bore. Read from the DXF
 		// by ezdxf: the keyseat floor corners are the CUT line ends nearest the bore beyond it.
-		const res = await get('/api/v1/wheel.dxf', { teeth: '36', missing: '1', od: '4', depth: '3/16', bore: '1', keyway: 'b17.1', shaft: '1', thickness: '1/8', units: 'in' });
+		const res = await get('/api/v1/wheel.dxf', {
+			teeth: '36',
+			missing: '1',
+			od: '4',
+			depth: '3/16',
+			bore: '1',
+			keyway: 'b17.1',
+			shaft: '1',
+			thickness: '1/8',
+			units: 'in'
+		});
 		expect(res.status).toBe(200);
 		const file = join(dir, 'b17-1in.dxf');
 		writeFileSync(file, Buffer.from(await res.arrayBuffer()));

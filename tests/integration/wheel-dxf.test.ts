@@ -85,13 +85,64 @@ describe('the wheel DXF in ezdxf and OpenSCAD', () => {
 	}, 60_000);
 
 	it.each([
-		['60-2, inches, B17.1 keyway, filleted', 'in', { teeth: '60', missing: '2', od: '6', depth: '3/16', duty: '0.45', bore: '1', keyway: 'b17.1', shaft: '1', tipRadius: '0.02', rootRadius: '0.02', thickness: '1/8', units: 'in' }],
-		['36-1-1, bolt circle', 'mm', { pattern: 'custom', teeth: '36', gaps: '17,35', od: '120', depth: '6', bore: '25', bolts: '4', pcd: '60', boltHole: '6.5', units: 'mm' }],
-		['24-2, DIN 6885-1 keyway at 12 o\'clock, label past ASCII', 'mm', { teeth: '24', missing: '2', od: '90', depth: '6', bore: '20', keyway: 'din6885', shaft: '20', keywayAngle: '0', label: 'Zündung vorn', units: 'mm' }]
-	] as const)('%s', async (_, units, params) => {
-		const f = await read(params);
-		expectSound(f, units);
-	}, 60_000);
+		[
+			'60-2, inches, B17.1 keyway, filleted',
+			'in',
+			{
+				teeth: '60',
+				missing: '2',
+				od: '6',
+				depth: '3/16',
+				duty: '0.45',
+				bore: '1',
+				keyway: 'b17.1',
+				shaft: '1',
+				tipRadius: '0.02',
+				rootRadius: '0.02',
+				thickness: '1/8',
+				units: 'in'
+			}
+		],
+		[
+			'36-1-1, bolt circle',
+			'mm',
+			{
+				pattern: 'custom',
+				teeth: '36',
+				gaps: '17,35',
+				od: '120',
+				depth: '6',
+				bore: '25',
+				bolts: '4',
+				pcd: '60',
+				boltHole: '6.5',
+				units: 'mm'
+			}
+		],
+		[
+			"24-2, DIN 6885-1 keyway at 12 o'clock, label past ASCII",
+			'mm',
+			{
+				teeth: '24',
+				missing: '2',
+				od: '90',
+				depth: '6',
+				bore: '20',
+				keyway: 'din6885',
+				shaft: '20',
+				keywayAngle: '0',
+				label: 'Zündung vorn',
+				units: 'mm'
+			}
+		]
+	] as const)(
+		'%s',
+		async (_, units, params) => {
+			const f = await read(params);
+			expectSound(f, units);
+		},
+		60_000
+	);
 
 	it('agrees over generated wheels (property test)', async () => {
 		await fc.assert(

@@ -16,7 +16,9 @@ const get = (path: string, params: Record<string, string>) => fetch(`${app}${pat
 
 /** Ink width and height, mm, of a line set in the shipped font at a cap height, by fontTools. */
 function fontInk(text: string, capMm: number): { width: number; height: number; missing: string[] } {
-	return JSON.parse(execFileSync('/usr/bin/python3', [join(support, 'label_metrics.py'), fontFile, text, String(capMm)], { encoding: 'utf8' }));
+	return JSON.parse(
+		execFileSync('/usr/bin/python3', [join(support, 'label_metrics.py'), fontFile, text, String(capMm)], { encoding: 'utf8' })
+	);
 }
 
 async function dxfFacts(params: Record<string, string>, od: number) {
@@ -36,8 +38,18 @@ async function dxfFacts(params: Record<string, string>, od: number) {
 // at the largest cap height the product uses, 4 mm. No index mark, so ETCH holds the label alone.
 const label = 'Müller Ø 60-2';
 const wheels = [
-	{ units: 'mm', params: { teeth: '36', missing: '1', od: '100', depth: '5', bore: '20', mark: 'none', label, units: 'mm' }, od: 100, k: 1 },
-	{ units: 'in', params: { teeth: '60', missing: '2', od: '4', depth: '3/16', bore: '3/4', mark: 'none', label, units: 'in' }, od: 4, k: 25.4 }
+	{
+		units: 'mm',
+		params: { teeth: '36', missing: '1', od: '100', depth: '5', bore: '20', mark: 'none', label, units: 'mm' },
+		od: 100,
+		k: 1
+	},
+	{
+		units: 'in',
+		params: { teeth: '60', missing: '2', od: '4', depth: '3/16', bore: '3/4', mark: 'none', label, units: 'in' },
+		od: 4,
+		k: 25.4
+	}
 ];
 
 describe('the etched label', () => {
@@ -85,7 +97,22 @@ describe('the etched label', () => {
 			const file = join(dir, `${name}.pdf`);
 			writeFileSync(file, Buffer.from(await (await get('/api/v1/wheel.pdf', params)).arrayBuffer()));
 			const px = (mm: number) => String(Math.round((mm / 25.4) * 144));
-			execFileSync('pdftoppm', ['-r', '144', '-gray', '-singlefile', '-x', px(85), '-y', px(102), '-W', px(40), '-H', px(11), file, join(dir, name)]);
+			execFileSync('pdftoppm', [
+				'-r',
+				'144',
+				'-gray',
+				'-singlefile',
+				'-x',
+				px(85),
+				'-y',
+				px(102),
+				'-W',
+				px(40),
+				'-H',
+				px(11),
+				file,
+				join(dir, name)
+			]);
 			const pgm = readFileSync(join(dir, `${name}.pgm`));
 			const header = /^P5\s+(\d+)\s+(\d+)\s+(\d+)\s/.exec(pgm.subarray(0, 64).toString('latin1'))!;
 			return pgm.subarray(header[0].length).filter((v) => v < 128).length;
@@ -104,7 +131,14 @@ describe('the etched label', () => {
 	});
 
 	it('refuses a label with no room on the wheel', async () => {
-		const res = await get('/api/v1/wheel', { teeth: '12', missing: '1', od: '30', depth: '3', bore: '10', label: 'a label far too long for this' });
+		const res = await get('/api/v1/wheel', {
+			teeth: '12',
+			missing: '1',
+			od: '30',
+			depth: '3',
+			bore: '10',
+			label: 'a label far too long for this'
+		});
 		expect(res.status).toBe(400);
 		expect((await res.json()).errors.label).toMatch(/^label: no room to etch it/);
 	});
@@ -125,12 +159,17 @@ describe('clearances between holes, the label, the keyway and the tooth roots (1
 		expect(errors.balancePcd).toMatch(/closer than 1\.00 mm to the etched label/);
 		expect(errors.label).toMatch(/balance holes come closer than 1\.00 mm to it/);
 		// Turned a quarter round, the same hole is clear.
-		expect((await get('/api/v1/wheel', { ...wheel, label: 'crank', balanceCount: '1', balancePcd: '55', balanceHole: '4', balanceAngle: '90' })).status).toBe(200);
+		expect(
+			(await get('/api/v1/wheel', { ...wheel, label: 'crank', balanceCount: '1', balancePcd: '55', balanceHole: '4', balanceAngle: '90' }))
+				.status
+		).toBe(200);
 	});
 
 	it('a bolt hole within 1 mm of the tooth roots, and of the keyway', async () => {
 		// Root radius 45 mm: a 6 mm hole on an 84 mm circle reaches 45 mm, no web left.
-		expect((await refused({ ...wheel, bolts: '3', pcd: '84', boltHole: '6' })).pcd).toMatch(/keep 1\.00 mm from the bore, keyway and tooth roots/);
+		expect((await refused({ ...wheel, bolts: '3', pcd: '84', boltHole: '6' })).pcd).toMatch(
+			/keep 1\.00 mm from the bore, keyway and tooth roots/
+		);
 		// A 6 x 2.8 mm keyway in the 20 mm bore reaches √(12.8² + 3²) = 13.15 mm from the centre, so
 		// 4 mm holes need a circle of at least 2·(13.15 + 1 + 2) = 32.29 mm: 32 mm is refused (without
 		// the keyway 26 mm would do), 32.4 mm is clear.
@@ -142,11 +181,24 @@ describe('clearances between holes, the label, the keyway and the tooth roots (1
 
 	it('two balance holes closer than 1 mm, and a balance hole beside a bolt hole', async () => {
 		// 4 mm holes 9° apart on a 60 mm circle: centres 2·30·sin 4.5° = 4.71 mm apart, less than 4 + 1.
-		expect((await refused({ ...wheel, balanceCount: '2', balancePcd: '60', balanceHole: '4', balanceSpacing: '9' })).balanceCount).toMatch(/closer than 1\.00 mm to each other/);
+		expect((await refused({ ...wheel, balanceCount: '2', balancePcd: '60', balanceHole: '4', balanceSpacing: '9' })).balanceCount).toMatch(
+			/closer than 1\.00 mm to each other/
+		);
 		// 10° apart: 5.23 mm, clear.
-		expect((await get('/api/v1/wheel', { ...wheel, balanceCount: '2', balancePcd: '60', balanceHole: '4', balanceSpacing: '10' })).status).toBe(200);
+		expect(
+			(await get('/api/v1/wheel', { ...wheel, balanceCount: '2', balancePcd: '60', balanceHole: '4', balanceSpacing: '10' })).status
+		).toBe(200);
 		// A bolt hole and a balance hole 8° apart on the same circle: 4.19 mm, refused; 10° apart, clear.
-		const pair = { ...wheel, bolts: '1', pcd: '60', boltHole: '4', boltAngle: '100', balanceCount: '1', balancePcd: '60', balanceHole: '4' };
+		const pair = {
+			...wheel,
+			bolts: '1',
+			pcd: '60',
+			boltHole: '4',
+			boltAngle: '100',
+			balanceCount: '1',
+			balancePcd: '60',
+			balanceHole: '4'
+		};
 		expect((await refused({ ...pair, balanceAngle: '108' })).balancePcd).toMatch(/closer than 1\.00 mm to the bolt holes/);
 		expect((await get('/api/v1/wheel', { ...pair, balanceAngle: '110' })).status).toBe(200);
 	});
@@ -156,7 +208,14 @@ describe('clearances between holes, the label, the keyway and the tooth roots (1
 		const body = await (await get('/api/v1/wheel', params)).json();
 		const s = body.balanceSuggestion;
 		expect(s).not.toBeNull();
-		const holed = { ...params, balanceCount: String(s.count), balancePcd: String(Number(s.pcdMm.toFixed(2))), balanceHole: String(Number(s.holeMm.toFixed(2))), balanceAngle: String(Number(s.clockDeg.toFixed(2))), balanceSpacing: s.spacingDeg === undefined ? '' : String(Number(s.spacingDeg.toFixed(2))) };
+		const holed = {
+			...params,
+			balanceCount: String(s.count),
+			balancePcd: String(Number(s.pcdMm.toFixed(2))),
+			balanceHole: String(Number(s.holeMm.toFixed(2))),
+			balanceAngle: String(Number(s.clockDeg.toFixed(2))),
+			balanceSpacing: s.spacingDeg === undefined ? '' : String(Number(s.spacingDeg.toFixed(2)))
+		};
 		const res = await get('/api/v1/wheel', holed);
 		expect(res.status).toBe(200);
 		const after = await res.json();

@@ -60,8 +60,16 @@ describe('invitations', () => {
 
 	it('expires', async () => {
 		const email = freshEmail('late');
-		const { token, invitation: row } = await createInvitation(database, { workshopId: s.workshopId, email, role: 'viewer', invitedBy: null });
-		await database.update(invitation).set({ expiresAt: new Date(Date.now() - 1000) }).where(eq(invitation.id, row.id));
+		const { token, invitation: row } = await createInvitation(database, {
+			workshopId: s.workshopId,
+			email,
+			role: 'viewer',
+			invitedBy: null
+		});
+		await database
+			.update(invitation)
+			.set({ expiresAt: new Date(Date.now() - 1000) })
+			.where(eq(invitation.id, row.id));
 		const late = await signUp('Late', email);
 		const result = await late.action(`/invite/${token}`, '', {});
 		expect(result.status).toBe(410);
@@ -115,7 +123,10 @@ describe('roles', () => {
 	it('editor: changes builds, is refused member management', async () => {
 		const created = await editor.client.action('/builds', 'create', { name: 'Editor build', engine: '' });
 		expect(created.type).toBe('success');
-		const renamed = await editor.client.action('/builds', 'rename', { buildId: String(created.data!.created), name: 'Editor build, renamed' });
+		const renamed = await editor.client.action('/builds', 'rename', {
+			buildId: String(created.data!.created),
+			name: 'Editor build, renamed'
+		});
 		expect(renamed.type).toBe('success');
 		const taken = await editor.client.action('/builds', 'rename', { buildId: String(created.data!.created), name: 'roles bench single' });
 		expect(taken.status).toBe(409);

@@ -70,31 +70,49 @@ describe('restoring a revision', () => {
 	it('runs the wheel check a save runs, refusing with a 400 naming the fields and writing nothing', async () => {
 		const me = await owner('restore-check');
 		const buildId = await newBuild(me.client, 'Restore bench');
-		const created = await me.client.send<{ id: string }>('POST', `/api/v1/builds/${buildId}/designs`, { name: 'Crank wheel', params: wheel });
+		const created = await me.client.send<{ id: string }>('POST', `/api/v1/builds/${buildId}/designs`, {
+			name: 'Crank wheel',
+			params: wheel
+		});
 		expect(created.status).toBe(201);
 		const designId = created.body.id;
 		// A revision written under looser rules than today's (straight into the table: the API would refuse it).
-		await database.insert(wheelRevision).values({ designId, number: 2, params: { ...wheel, teeth: '0' }, message: 'saved before the check' });
+		await database
+			.insert(wheelRevision)
+			.values({ designId, number: 2, params: { ...wheel, teeth: '0' }, message: 'saved before the check' });
 
 		// The same parameters as a save are refused, naming the field (the oracle: the save path's own answer).
-		const save = await me.client.send<{ errors: Record<string, string> }>('POST', `/api/v1/designs/${designId}/revisions`, { baseRevision: 2, params: { ...wheel, teeth: '0' } });
+		const save = await me.client.send<{ errors: Record<string, string> }>('POST', `/api/v1/designs/${designId}/revisions`, {
+			baseRevision: 2,
+			params: { ...wheel, teeth: '0' }
+		});
 		expect(save.status).toBe(400);
 		const before = await overview(me.client, buildId);
 
-		const restore = await me.client.send<{ errors: Record<string, string>; refusals: { field: string; message: string }[] }>('POST', `/api/v1/designs/${designId}/restore`, {
-			revision: 2,
-			baseRevision: 2
-		});
+		const restore = await me.client.send<{ errors: Record<string, string>; refusals: { field: string; message: string }[] }>(
+			'POST',
+			`/api/v1/designs/${designId}/restore`,
+			{
+				revision: 2,
+				baseRevision: 2
+			}
+		);
 		expect(restore.status).toBe(400);
 		expect(restore.body.errors['params.teeth']).toBe(save.body.errors['params.teeth']);
 		expect(restore.body.refusals.map((r) => r.field)).toContain('params.teeth');
 
-		const { rows } = await database.execute<{ number: number }>(sql`select number from wheel_revision where design_id = ${designId} order by number`);
+		const { rows } = await database.execute<{ number: number }>(
+			sql`select number from wheel_revision where design_id = ${designId} order by number`
+		);
 		expect(rows.map((r) => r.number)).toEqual([1, 2]);
 		expect((await overview(me.client, buildId)).activity).toEqual(before.activity);
 
 		// Revision 1 passes the check and is restored as revision 3.
-		const good = await me.client.send<{ revision: { number: number; restoredFrom: number } }>('POST', `/api/v1/designs/${designId}/restore`, { revision: 1, baseRevision: 2 });
+		const good = await me.client.send<{ revision: { number: number; restoredFrom: number } }>(
+			'POST',
+			`/api/v1/designs/${designId}/restore`,
+			{ revision: 1, baseRevision: 2 }
+		);
 		expect(good.status).toBe(201);
 		expect(good.body.revision).toMatchObject({ number: 3, restoredFrom: 1 });
 	});
@@ -103,7 +121,9 @@ describe('restoring a revision', () => {
 describe('deleting a build', () => {
 	it('from the Builds page removes its photo rows and their stored objects, as DELETE /api/v1/builds/:id does', async () => {
 		const me = await owner('delete-paths');
-		const png = await sharp({ create: { width: 40, height: 30, channels: 3, background: '#668844' } }).png().toBuffer();
+		const png = await sharp({ create: { width: 40, height: 30, channels: 3, background: '#668844' } })
+			.png()
+			.toBuffer();
 		const withPhoto = async (name: string) => {
 			const buildId = await newBuild(me.client, name);
 			const form = new FormData();
@@ -114,7 +134,8 @@ describe('deleting a build', () => {
 		const byPage = await withPhoto('Deleted from the list');
 		const byApi = await withPhoto('Deleted through the API');
 		const objects = (buildId: string) => listKeys(`photos/${me.workshopId}/${buildId}/`);
-		const photoRows = async (buildId: string) => (await database.execute<{ n: number }>(sql`select count(*)::int as n from wheel_photo where build_id = ${buildId}`)).rows[0]!.n;
+		const photoRows = async (buildId: string) =>
+			(await database.execute<{ n: number }>(sql`select count(*)::int as n from wheel_photo where build_id = ${buildId}`)).rows[0]!.n;
 		// The photo and its thumbnail (photos/store.ts writes both).
 		expect(await objects(byPage)).toHaveLength(2);
 

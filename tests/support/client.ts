@@ -65,7 +65,13 @@ export class Client {
 			body: new URLSearchParams(fields)
 		});
 		this.remember(res);
-		const body = (await res.json()) as { type: ActionResult['type']; status?: number; data?: string; location?: string; error?: ActionResult['error'] };
+		const body = (await res.json()) as {
+			type: ActionResult['type'];
+			status?: number;
+			data?: string;
+			location?: string;
+			error?: ActionResult['error'];
+		};
 		return {
 			status: body.status ?? res.status,
 			type: body.type,
@@ -81,12 +87,20 @@ export class Client {
 	}
 
 	/** A JSON API call (or a multipart upload when given FormData); the answer's body parsed when it is JSON. */
-	async send<T = Record<string, unknown>>(method: 'POST' | 'PUT' | 'PATCH' | 'DELETE', path: string, body?: unknown): Promise<{ status: number; body: T }> {
+	async send<T = Record<string, unknown>>(
+		method: 'POST' | 'PUT' | 'PATCH' | 'DELETE',
+		path: string,
+		body?: unknown
+	): Promise<{ status: number; body: T }> {
 		const form = body instanceof FormData;
 		const res = await fetch(new URL(path, appUrl), {
 			method,
 			redirect: 'manual',
-			headers: this.headers({ origin: new URL(appUrl).origin, accept: 'application/json', ...(body === undefined || form ? {} : { 'content-type': 'application/json' }) }),
+			headers: this.headers({
+				origin: new URL(appUrl).origin,
+				accept: 'application/json',
+				...(body === undefined || form ? {} : { 'content-type': 'application/json' })
+			}),
 			body: body === undefined ? undefined : form ? body : JSON.stringify(body)
 		});
 		this.remember(res);

@@ -32,7 +32,8 @@ function ends(s: Segment): [Point, Point] {
 }
 
 /** Degrees between chord points: the chord stays within `sagittaMm` of the arc, and within 15° of it. */
-const chordStep = (radius: number, sagittaMm: number) => Math.min(15, radius > sagittaMm ? (2 * Math.acos(1 - sagittaMm / radius) * 180) / Math.PI : 15);
+const chordStep = (radius: number, sagittaMm: number) =>
+	Math.min(15, radius > sagittaMm ? (2 * Math.acos(1 - sagittaMm / radius) * 180) / Math.PI : 15);
 
 /** Chord points along a segment, first and last included. */
 function samples(s: Segment, sagittaMm: number): Point[] {
@@ -75,7 +76,10 @@ const orient = (a: Point, b: Point, c: Point) => (b.x - a.x) * (c.y - a.y) - (b.
 
 /** Whether two chords cross or touch (shared end points included; the caller skips neighbours). */
 function meet(a: Point, b: Point, c: Point, d: Point, eps: number): boolean {
-	const d1 = orient(a, b, c), d2 = orient(a, b, d), d3 = orient(c, d, a), d4 = orient(c, d, b);
+	const d1 = orient(a, b, c),
+		d2 = orient(a, b, d),
+		d3 = orient(c, d, a),
+		d4 = orient(c, d, b);
 	if (((d1 > 0 && d2 < 0) || (d1 < 0 && d2 > 0)) && ((d3 > 0 && d4 < 0) || (d3 < 0 && d4 > 0))) return true;
 	// Touching: an end point lying on the other chord (within eps).
 	const onChord = (p: Point, q: Point, r: Point) => {
@@ -91,7 +95,8 @@ function meet(a: Point, b: Point, c: Point, d: Point, eps: number): boolean {
 function inside(p: Point, poly: Point[]): boolean {
 	let odd = false;
 	for (let i = 0, j = poly.length - 1; i < poly.length; j = i++) {
-		const a = poly[i]!, b = poly[j]!;
+		const a = poly[i]!,
+			b = poly[j]!;
 		if (a.y > p.y !== b.y > p.y && p.x < ((b.x - a.x) * (p.y - a.y)) / (b.y - a.y) + a.x) odd = !odd;
 	}
 	return odd;
@@ -114,7 +119,11 @@ export function outlineDefects(contours: Contour[], tolMm = 1e-6): OutlineDefect
 		c.segments.forEach((s, i) => {
 			const next = c.segments[(i + 1) % c.segments.length]!;
 			const gap = dist(ends(s)[1], ends(next)[0]);
-			if (!(gap <= tolMm)) defects.push({ contour: k, problem: `segment ${i} (${s.kind}) ends ${gap.toPrecision(3)} mm from where segment ${(i + 1) % c.segments.length} (${next.kind}) starts` });
+			if (!(gap <= tolMm))
+				defects.push({
+					contour: k,
+					problem: `segment ${i} (${s.kind}) ends ${gap.toPrecision(3)} mm from where segment ${(i + 1) % c.segments.length} (${next.kind}) starts`
+				});
 			if (s.kind === 'arc' && !(s.radius > 0)) defects.push({ contour: k, problem: `segment ${i}: arc of radius ${s.radius}` });
 		});
 	});
@@ -152,14 +161,16 @@ export function outlineDefects(contours: Contour[], tolMm = 1e-6): OutlineDefect
 	const reported = new Set<string>();
 	const test = (m: number, n: number) => {
 		if (m === n) return;
-		const u = chords[m]!, v = chords[n]!;
+		const u = chords[m]!,
+			v = chords[n]!;
 		if (u.k === v.k) {
 			const len = polys[u.k]!.length;
 			const gap = Math.abs(u.i - v.i);
 			if (gap <= 1 || gap === len - 1) return; // neighbours share an end point
 		}
 		if (!meet(u.a, u.b, v.a, v.b, eps)) return;
-		const what = u.k === v.k ? `contour ${u.k} crosses or touches itself` : `contours ${Math.min(u.k, v.k)} and ${Math.max(u.k, v.k)} cross or touch`;
+		const what =
+			u.k === v.k ? `contour ${u.k} crosses or touches itself` : `contours ${Math.min(u.k, v.k)} and ${Math.max(u.k, v.k)} cross or touch`;
 		if (reported.has(what)) return;
 		reported.add(what);
 		defects.push({ contour: u.k, problem: `${what} near (${u.a.x.toFixed(4)}, ${u.a.y.toFixed(4)})` });

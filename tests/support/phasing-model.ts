@@ -2,7 +2,10 @@
 import type { PhasingInput } from '../../src/lib/trade/phasing';
 
 /** What the model needs of a phasing input (the pattern with the wheel's names, the engine, the window). */
-export type ModelInput = Pick<PhasingInput, 'pattern' | 'duty' | 'mount' | 'stroke' | 'intervals' | 'toothAtTdc' | 'windowFromBtdc' | 'windowToBtdc'>;
+export type ModelInput = Pick<
+	PhasingInput,
+	'pattern' | 'duty' | 'mount' | 'stroke' | 'intervals' | 'toothAtTdc' | 'windowFromBtdc' | 'windowToBtdc'
+>;
 
 /**
  * An independent model of the running engine (geometry, not phasing.ts's formulas): walk the crank
@@ -41,7 +44,7 @@ export function modelClearances(i: ModelInput, step = 0.01): { gapRuns: number; 
 	let runs = 0;
 	const start = empty.findIndex((e) => !e);
 	if (start >= 0) {
-		for (let s = 0; s < steps; ) {
+		for (let s = 0; s < steps;) {
 			const at = (start + s) % steps;
 			if (!empty[at]) {
 				s++;

@@ -87,7 +87,12 @@ function random(seed: number) {
 
 const rad = (d: number) => (d * Math.PI) / 180;
 type Mat = [number, number, number, number]; // [m00, m01, m10, m11]
-const mul = (a: Mat, b: Mat): Mat => [a[0] * b[0] + a[1] * b[2], a[0] * b[1] + a[1] * b[3], a[2] * b[0] + a[3] * b[2], a[2] * b[1] + a[3] * b[3]];
+const mul = (a: Mat, b: Mat): Mat => [
+	a[0] * b[0] + a[1] * b[2],
+	a[0] * b[1] + a[1] * b[3],
+	a[2] * b[0] + a[3] * b[2],
+	a[2] * b[1] + a[3] * b[3]
+];
 const rot = (d: number): Mat => [Math.cos(rad(d)), -Math.sin(rad(d)), Math.sin(rad(d)), Math.cos(rad(d))];
 
 export async function syntheticWheelPhoto(o: SyntheticWheelOptions): Promise<SyntheticWheelPhoto> {
@@ -95,7 +100,9 @@ export async function syntheticWheelPhoto(o: SyntheticWheelOptions): Promise<Syn
 	const height = o.height ?? 900;
 	const duty = o.duty ?? 0.5;
 	const spec = exampleSpec({
-		pattern: o.missingPositions ? { kind: 'custom', teeth: o.teeth, missingPositions: o.missingPositions } : { kind: 'missing', teeth: o.teeth, missing: o.missing },
+		pattern: o.missingPositions
+			? { kind: 'custom', teeth: o.teeth, missingPositions: o.missingPositions }
+			: { kind: 'missing', teeth: o.teeth, missing: o.missing },
 		duty,
 		...(o.odMm ? { odMm: o.odMm } : {}),
 		...(o.depthMm ? { depthMm: o.depthMm } : {}),
@@ -182,12 +189,21 @@ export async function syntheticWheelPhoto(o: SyntheticWheelOptions): Promise<Syn
 	const widest = opens.reduce((w, g, i) => (g.count > opens[w]!.count ? i : w), 0);
 	const gap = d.gaps[widest];
 	const g = gap ? atAngle(R, mid(gap.a0, gap.a1)) : null;
-	const gapAngleDeg = g ? (((Math.atan2(-(g.y - centre.y), g.x - centre.x) * 180) / Math.PI) % 360 + 360) % 360 : NaN;
+	const gapAngleDeg = g ? ((((Math.atan2(-(g.y - centre.y), g.x - centre.x) * 180) / Math.PI) % 360) + 360) % 360 : NaN;
 	return {
 		image,
 		width,
 		height,
 		taps: { centre: { x: centre.x + jr * Math.cos(ja), y: centre.y + jr * Math.sin(ja) }, tips },
-		truth: { teeth: o.teeth, missing: o.missingPositions?.length ?? o.missing, gaps: gapsOf(spec.pattern), duty, gapAngleDeg, pitchDeg: 360 / o.teeth, radiusPx: R * k, centre }
+		truth: {
+			teeth: o.teeth,
+			missing: o.missingPositions?.length ?? o.missing,
+			gaps: gapsOf(spec.pattern),
+			duty,
+			gapAngleDeg,
+			pitchDeg: 360 / o.teeth,
+			radiusPx: R * k,
+			centre
+		}
 	};
 }

@@ -14,7 +14,20 @@ const num = (x: number, places: number) => String(Number(x.toFixed(places)));
  * A length as someone types it, kept inside the field's range: mm to 0.001; inches to 0.0001 or,
  * now and then, as a fraction in 64ths (when the rounding keeps it in range).
  */
-type LengthField = 'od' | 'depth' | 'tipRadius' | 'rootRadius' | 'bore' | 'keyWidth' | 'keyDepth' | 'shaft' | 'pcd' | 'boltHole' | 'balancePcd' | 'balanceHole' | 'thickness';
+type LengthField =
+	| 'od'
+	| 'depth'
+	| 'tipRadius'
+	| 'rootRadius'
+	| 'bore'
+	| 'keyWidth'
+	| 'keyDepth'
+	| 'shaft'
+	| 'pcd'
+	| 'boltHole'
+	| 'balancePcd'
+	| 'balanceHole'
+	| 'thickness';
 
 /** A length parameter's range in mm, as the wheel's registry gives it. */
 function rangeOf(field: LengthField): [number, number] {
@@ -31,7 +44,8 @@ function typed(mm: number, field: LengthField, units: 'mm' | 'in', asFraction: b
 	const whole = Math.floor(inches);
 	const n = Math.round((inches - whole) * 64);
 	const fractionMm = (whole + n / 64) * MM_PER_IN;
-	if (asFraction && fractionMm >= lo && fractionMm <= hi) return n === 0 || n === 64 ? String(whole + n / 64) : whole ? `${whole} ${n}/64` : `${n}/64`;
+	if (asFraction && fractionMm >= lo && fractionMm <= hi)
+		return n === 0 || n === 64 ? String(whole + n / 64) : whole ? `${whole} ${n}/64` : `${n}/64`;
 	const decimal = Math.min(hi / MM_PER_IN, Math.max(lo / MM_PER_IN, inches));
 	return String(Math.round(decimal * 1e4) / 1e4 + (Math.round(decimal * 1e4) / 1e4 < lo / MM_PER_IN ? 1e-4 : 0));
 }
@@ -62,7 +76,12 @@ export const wheelParams = fc
 		bolts: fc.oneof(fc.constant(0), fc.integer({ min: 1, max: 6 }), fc.integer({ min: 1, max: 24 })),
 		holes: fc.record({ pcd: unit, size: unit, angle: fc.double({ min: -360, max: 360, noNaN: true }) }),
 		balance: fc.oneof(fc.constant(0), fc.constant(0), fc.integer({ min: 1, max: 8 })),
-		balanceHoles: fc.record({ pcd: unit, size: unit, angle: fc.double({ min: -360, max: 360, noNaN: true }), spacing: fc.option(fc.double({ min: 0, max: 180, noNaN: true }), { nil: undefined, freq: 2 }) }),
+		balanceHoles: fc.record({
+			pcd: unit,
+			size: unit,
+			angle: fc.double({ min: -360, max: 360, noNaN: true }),
+			spacing: fc.option(fc.double({ min: 0, max: 180, noNaN: true }), { nil: undefined, freq: 2 })
+		}),
 		mark: fc.option(fc.double({ min: -360, max: 360, noNaN: true }), { nil: undefined }),
 		rotation: fc.constantFrom('cw', 'ccw'),
 		// Long labels find room only on large wheels; short and empty ones are what most people etch.
@@ -121,7 +140,12 @@ export const wheelParams = fc
 		if (g.balance) {
 			const b = g.balanceHoles;
 			const h = holeSet(g.balance, b);
-			Object.assign(p, { balanceCount: String(g.balance), balancePcd: L(h.pcd, 'balancePcd'), balanceHole: L(h.size, 'balanceHole'), balanceAngle: num(b.angle, 2) });
+			Object.assign(p, {
+				balanceCount: String(g.balance),
+				balancePcd: L(h.pcd, 'balancePcd'),
+				balanceHole: L(h.size, 'balanceHole'),
+				balanceAngle: num(b.angle, 2)
+			});
 			if (b.spacing !== undefined) p.balanceSpacing = num(b.spacing, 2);
 		}
 		return p;

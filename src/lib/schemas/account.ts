@@ -29,7 +29,10 @@ export const signUp = z.object({
 export const signIn = z.object({
 	email,
 	// Any length is accepted here: a sign-in must not say which rule a stored password follows.
-	password: z.string({ error: 'password: required' }).min(1, { error: 'password: required' }).max(1000, { error: 'password: at most 1000 characters' }),
+	password: z
+		.string({ error: 'password: required' })
+		.min(1, { error: 'password: required' })
+		.max(1000, { error: 'password: at most 1000 characters' }),
 	redirectTo
 });
 
@@ -43,7 +46,10 @@ export const resetPassword = z
 
 export const changePassword = z
 	.object({
-		current: z.string({ error: 'current: required' }).min(1, { error: 'current: required' }).max(1000, { error: 'current: at most 1000 characters' }),
+		current: z
+			.string({ error: 'current: required' })
+			.min(1, { error: 'current: required' })
+			.max(1000, { error: 'current: at most 1000 characters' }),
 		password,
 		confirm: z.string()
 	})

@@ -37,8 +37,15 @@ export const buildId = z.object({ buildId: z.uuid({ error: 'buildId: a build id'
 
 /** A change to a build's own fields; at least one. */
 export const updateBuild = z
-	.object({ name: buildName.optional(), engine: text('engine', buildLimits.engine).optional(), notes: text('notes', buildLimits.notes).optional() })
-	.refine((v) => v.name !== undefined || v.engine !== undefined || v.notes !== undefined, { error: 'form: give name, engine or notes', path: ['form'] });
+	.object({
+		name: buildName.optional(),
+		engine: text('engine', buildLimits.engine).optional(),
+		notes: text('notes', buildLimits.notes).optional()
+	})
+	.refine((v) => v.name !== undefined || v.engine !== undefined || v.notes !== undefined, {
+		error: 'form: give name, engine or notes',
+		path: ['form']
+	});
 
 export const buildSorts = ['name', 'updated', 'created'] as const;
 
@@ -48,22 +55,38 @@ export const buildQuery = z.object({
 	q: singleLine('q', 100).optional().default(''),
 	sort: z.enum(buildSorts, { error: `sort: one of ${buildSorts.join(', ')}` }).default('updated'),
 	dir: z.enum(['asc', 'desc'], { error: 'dir: asc or desc' }).optional(),
-	page: z.coerce.number({ error: 'page: a whole number from 1' }).int({ error: 'page: a whole number from 1' }).min(1, { error: 'page: a whole number from 1' }).max(100_000, { error: 'page: at most 100000' }).default(1),
-	size: z.coerce.number({ error: 'size: a whole number from 1 to 100' }).int({ error: 'size: a whole number from 1 to 100' }).min(1, { error: 'size: a whole number from 1 to 100' }).max(100, { error: 'size: a whole number from 1 to 100' }).default(20)
+	page: z.coerce
+		.number({ error: 'page: a whole number from 1' })
+		.int({ error: 'page: a whole number from 1' })
+		.min(1, { error: 'page: a whole number from 1' })
+		.max(100_000, { error: 'page: at most 100000' })
+		.default(1),
+	size: z.coerce
+		.number({ error: 'size: a whole number from 1 to 100' })
+		.int({ error: 'size: a whole number from 1 to 100' })
+		.min(1, { error: 'size: a whole number from 1 to 100' })
+		.max(100, { error: 'size: a whole number from 1 to 100' })
+		.default(20)
 });
 export type BuildQuery = z.infer<typeof buildQuery>;
 
 /** Flat string parameters of a tool (wheel, tape, phasing): names and values bounded, values as text. */
 export const flatParams = (field: string) =>
 	z
-		.record(z.string(), z.union([z.string(), z.number(), z.boolean()], { error: `${field}: each value text, a number or true/false` }).transform(String), {
-			error: `${field}: an object of parameter names to values`
-		})
+		.record(
+			z.string(),
+			z.union([z.string(), z.number(), z.boolean()], { error: `${field}: each value text, a number or true/false` }).transform(String),
+			{
+				error: `${field}: an object of parameter names to values`
+			}
+		)
 		.refine((r) => Object.keys(r).length <= buildLimits.params, { error: `${field}: at most ${buildLimits.params} parameters` })
 		// Checked on the whole record: a failing key inside z.record is reported with the record's message.
 		.refine((r) => Object.keys(r).every((k) => k.length <= 40), { error: `${field}: parameter names of at most 40 characters` })
 		.refine((r) => Object.values(r).every((v) => v.length <= 500), { error: `${field}: values of at most 500 characters` })
-		.refine((r) => Object.entries(r).every(([k, v]) => !unstorable.test(k) && !unstorable.test(v)), { error: `${field}: names and values without NUL or unpaired surrogate characters` });
+		.refine((r) => Object.entries(r).every(([k, v]) => !unstorable.test(k) && !unstorable.test(v)), {
+			error: `${field}: names and values without NUL or unpaired surrogate characters`
+		});
 
 export const createDesign = z.object({
 	name: singleLine('name', buildLimits.label, 1),
@@ -117,6 +140,10 @@ export const cuttingPackageInput = z.object({
 		.max(maxRevision, { error: `revision: a whole number from 1 to ${maxRevision}` })
 		.optional(),
 	to: z.email({ error: 'to: the fabricator’s e-mail address' }).max(254, { error: 'to: at most 254 characters' }),
-	quantity: z.number({ error: 'quantity: a whole number from 1 to 10000' }).int({ error: 'quantity: a whole number from 1 to 10000' }).min(1, { error: 'quantity: a whole number from 1 to 10000' }).max(10_000, { error: 'quantity: a whole number from 1 to 10000' }),
+	quantity: z
+		.number({ error: 'quantity: a whole number from 1 to 10000' })
+		.int({ error: 'quantity: a whole number from 1 to 10000' })
+		.min(1, { error: 'quantity: a whole number from 1 to 10000' })
+		.max(10_000, { error: 'quantity: a whole number from 1 to 10000' }),
 	notes: text('notes', 2000).optional().default('')
 });

@@ -21,7 +21,15 @@ export const common = {
 		values: ['missing', 'custom', 'single', 'extra'],
 		default: 'missing'
 	},
-	teeth: { name: 'teeth', label: 'Teeth', help: 'Tooth positions round the wheel, counting the missing ones (the N of N-M).', kind: 'whole', min: 1, max: 720, required: true },
+	teeth: {
+		name: 'teeth',
+		label: 'Teeth',
+		help: 'Tooth positions round the wheel, counting the missing ones (the N of N-M).',
+		kind: 'whole',
+		min: 1,
+		max: 720,
+		required: true
+	},
 	missing: {
 		name: 'missing',
 		label: 'Missing',
@@ -48,7 +56,14 @@ export const common = {
 		default: '0',
 		appliesWhen: (p) => p.pattern === 'extra'
 	},
-	duty: { name: 'duty', label: 'Tooth width', help: 'The tooth’s share of the pitch, 0.05 to 0.95 (0.5: tooth and space alike).', kind: 'number', min: 0.05, max: 0.95 },
+	duty: {
+		name: 'duty',
+		label: 'Tooth width',
+		help: 'The tooth’s share of the pitch, 0.05 to 0.95 (0.5: tooth and space alike).',
+		kind: 'number',
+		min: 0.05,
+		max: 0.95
+	},
 	od: { name: 'od', label: 'Outside diameter', help: 'Across the tooth tips.', kind: 'length', minMm: 10, maxMm: 2000 },
 	rotation: {
 		name: 'rotation',
@@ -59,8 +74,24 @@ export const common = {
 		labels: { cw: 'Clockwise', ccw: 'Counter-clockwise' },
 		default: 'cw'
 	},
-	keywayAngle: { name: 'keywayAngle', label: 'Keyway angle', help: 'Where the keyway sits, in degrees from the gap’s reference.', kind: 'angle', min: -360, max: 360, default: '0' },
-	rpm: { name: 'rpm', label: 'Rev limit', help: 'The highest crank speed the wheel will turn at, rpm.', kind: 'whole', min: 100, max: 30000, default: '8000' },
+	keywayAngle: {
+		name: 'keywayAngle',
+		label: 'Keyway angle',
+		help: 'Where the keyway sits, in degrees from the gap’s reference.',
+		kind: 'angle',
+		min: -360,
+		max: 360,
+		default: '0'
+	},
+	rpm: {
+		name: 'rpm',
+		label: 'Rev limit',
+		help: 'The highest crank speed the wheel will turn at, rpm.',
+		kind: 'whole',
+		min: 100,
+		max: 30000,
+		default: '8000'
+	},
 	paper: { name: 'paper', label: 'Paper', kind: 'choice', values: ['a4', 'letter'], labels: { a4: 'A4', letter: 'Letter' }, default: 'a4' },
 	diameter: {
 		name: 'diameter',

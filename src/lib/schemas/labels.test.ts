@@ -34,7 +34,9 @@ describe('public parameter names across the tools', () => {
 				expect(p.label.trim(), `${tool}.${p.name}`).not.toBe('');
 			}
 		}
-		const split = [...labels].filter(([name, s]) => s.size > 1 && !knownClashes.has(name)).map(([name, s]) => `${name}: ${[...s].join(' | ')}`);
+		const split = [...labels]
+			.filter(([name, s]) => s.size > 1 && !knownClashes.has(name))
+			.map(([name, s]) => `${name}: ${[...s].join(' | ')}`);
 		expect(split).toEqual([]);
 	});
 	it('share the names the trade uses: od is the outside diameter wherever it is asked', () => {

@@ -132,7 +132,14 @@ export const phasingParams = defineRegistry([
 	},
 	common.rpm,
 	{ name: 'cranking', label: 'Cranking speed', help: 'Starter speed, rpm.', kind: 'whole', min: 50, max: 2000, default: '200' },
-	{ name: 'sensor', label: 'Sensor type', kind: 'choice', values: ['hall', 'vr'], labels: { hall: 'Hall-effect', vr: 'VR' }, default: 'hall' },
+	{
+		name: 'sensor',
+		label: 'Sensor type',
+		kind: 'choice',
+		values: ['hall', 'vr'],
+		labels: { hall: 'Hall-effect', vr: 'VR' },
+		default: 'hall'
+	},
 	{
 		name: 'sensorMaxHz',
 		label: 'Sensor’s highest frequency',
@@ -142,10 +149,36 @@ export const phasingParams = defineRegistry([
 		max: 1_000_000,
 		unit: ' Hz'
 	},
-	{ name: 'windowFrom', label: 'Spark window from', help: 'The earliest advance the ECU may fire at.', kind: 'number', min: -30, max: 90, unit: '° BTDC', default: '45' },
-	{ name: 'windowTo', label: 'Spark window to', help: 'The latest; no more than the window’s start.', kind: 'number', min: -30, max: 90, unit: '° BTDC', default: '0' },
+	{
+		name: 'windowFrom',
+		label: 'Spark window from',
+		help: 'The earliest advance the ECU may fire at.',
+		kind: 'number',
+		min: -30,
+		max: 90,
+		unit: '° BTDC',
+		default: '45'
+	},
+	{
+		name: 'windowTo',
+		label: 'Spark window to',
+		help: 'The latest; no more than the window’s start.',
+		kind: 'number',
+		min: -30,
+		max: 90,
+		unit: '° BTDC',
+		default: '0'
+	},
 	{ name: 'resolution', label: 'Finest timing step wanted', help: 'Optional.', kind: 'number', min: 0.1, max: 90, unit: '°' },
-	{ name: 'target', label: 'First-tooth offset wanted', help: 'What the ECU maker asks for, if anything.', kind: 'number', min: 0, max: 720, unit: '° BTDC' },
+	{
+		name: 'target',
+		label: 'First-tooth offset wanted',
+		help: 'What the ECU maker asks for, if anything.',
+		kind: 'number',
+		min: 0,
+		max: 720,
+		unit: '° BTDC'
+	},
 	{
 		name: 'keyFromSensor',
 		label: 'Where the key sits',
@@ -223,13 +256,15 @@ export function checkPhasing(params: Partial<Record<string, string>>): Checked<P
 	let measured: MeasuredAngles | null = null;
 	let toothAtTdc = v.toothAtTdc ?? 0;
 	if (v.input === 'angles') {
-		if (v.toothAtTdc !== undefined) refuse('toothAtTdc', 'not with input=angles (it is worked out from sensorAngle, keywayAngle and keyAngle)');
+		if (v.toothAtTdc !== undefined)
+			refuse('toothAtTdc', 'not with input=angles (it is worked out from sensorAngle, keywayAngle and keyAngle)');
 		if (v.keyFromSensor !== undefined) refuse('keyFromSensor', 'not with input=angles (it follows from sensorAngle and keyAngle)');
 		measured = { sensorFromTdcDeg: v.sensorAngle!, keywayDeg: v.keywayAngle, keyFromTdcDeg: v.keyAngle, mount: v.mount };
 		toothAtTdc = toothAtTdcFrom({ ...measured, teeth: v.teeth });
 	} else {
 		// As given, not as defaulted: keyAngle means 0 when empty, but is refused only when given.
-		for (const field of ['sensorAngle', 'keyAngle'] as const) if (field in given) refuse(field, 'only with input=angles (or give toothAtTdc alone)');
+		for (const field of ['sensorAngle', 'keyAngle'] as const)
+			if (field in given) refuse(field, 'only with input=angles (or give toothAtTdc alone)');
 		if (toothAtTdc >= v.teeth) refuse('toothAtTdc', `0 up to ${v.teeth} (tooth 0 is the first after the gap)`);
 	}
 
@@ -249,7 +284,10 @@ export function checkPhasing(params: Partial<Record<string, string>>): Checked<P
 	const stroke: Stroke = v.stroke ? (Number(v.stroke) as Stroke) : (preset?.stroke ?? 4);
 	let intervals = preset?.intervals ?? [];
 	if (v.intervals !== undefined) {
-		intervals = v.intervals.split(/[\s,;]+/).filter(Boolean).map(Number);
+		intervals = v.intervals
+			.split(/[\s,;]+/)
+			.filter(Boolean)
+			.map(Number);
 		if (intervals.some((i) => !(i > 0 && i <= 720))) refuse('intervals', allows(phasingParams.get('intervals')!, 'mm'));
 		else if (Math.abs(intervals.reduce((a, b) => a + b, 0) - cycleDeg(stroke)) > 1e-6) {
 			refuse('intervals', `must add up to ${cycleDeg(stroke)}° for a ${stroke}-stroke (one firing per cylinder per cycle)`);
@@ -258,7 +296,8 @@ export function checkPhasing(params: Partial<Record<string, string>>): Checked<P
 		refuse('stroke', `the ${preset.label} layout is a ${preset.stroke}-stroke`);
 	}
 	if (v.cylinders !== undefined && v.cylinders !== intervals.length) refuse('cylinders', `${intervals.length}, one per firing interval`);
-	if (v.windowTo > v.windowFrom) refuse('windowTo', 'no more than windowFrom (the window runs from windowFrom down to windowTo degrees BTDC)');
+	if (v.windowTo > v.windowFrom)
+		refuse('windowTo', 'no more than windowFrom (the window runs from windowFrom down to windowTo degrees BTDC)');
 
 	let clocking: ParsedPhasing['clocking'] = null;
 	if (measured) {
@@ -309,11 +348,36 @@ export function checkPhasing(params: Partial<Record<string, string>>): Checked<P
  * the address is the id of the build being worked on (src/lib/address-query.svelte.ts).
  */
 export const buildSheetParams = defineRegistry([
-	{ name: 'buildName', label: 'Build name', help: 'Printed at the top; up to 80 characters.', kind: 'free', allows: 'one line of text, at most 80 characters' },
-	{ name: 'revision', label: 'Wheel revision', help: 'Printed under the name; empty is “unsaved”.', kind: 'free', allows: 'one line of text, at most 20 characters' },
-	{ name: 'tdcA', label: 'First piston-stop mark', help: 'Optional: the two readings of the TDC finder.', kind: 'free', allows: 'a piston-stop reading in degrees' },
+	{
+		name: 'buildName',
+		label: 'Build name',
+		help: 'Printed at the top; up to 80 characters.',
+		kind: 'free',
+		allows: 'one line of text, at most 80 characters'
+	},
+	{
+		name: 'revision',
+		label: 'Wheel revision',
+		help: 'Printed under the name; empty is “unsaved”.',
+		kind: 'free',
+		allows: 'one line of text, at most 20 characters'
+	},
+	{
+		name: 'tdcA',
+		label: 'First piston-stop mark',
+		help: 'Optional: the two readings of the TDC finder.',
+		kind: 'free',
+		allows: 'a piston-stop reading in degrees'
+	},
 	{ name: 'tdcB', label: 'Second piston-stop mark', kind: 'free', allows: 'a piston-stop reading in degrees' },
-	{ name: 'tapeDiameter', label: 'Timing hub diameter', help: 'Optional: for the degree tape’s scale.', kind: 'length', minMm: 10, maxMm: 2000 },
+	{
+		name: 'tapeDiameter',
+		label: 'Timing hub diameter',
+		help: 'Optional: for the degree tape’s scale.',
+		kind: 'length',
+		minMm: 10,
+		maxMm: 2000
+	},
 	common.units,
 	{ ...common.od, required: true },
 	{ ...common.depth, required: true },

@@ -56,10 +56,14 @@ export const photoParams = defineRegistry([
 ]);
 
 const isPt = (p: unknown): p is Pt =>
-	typeof p === 'object' && p !== null && !Array.isArray(p) && [(p as Pt).x, (p as Pt).y].every((v) => typeof v === 'number' && Number.isFinite(v));
+	typeof p === 'object' &&
+	p !== null &&
+	!Array.isArray(p) &&
+	[(p as Pt).x, (p as Pt).y].every((v) => typeof v === 'number' && Number.isFinite(v));
 
 /** A scalar parameter as text: JSON numbers are taken as written; null for anything that is not text or a number. */
-const scalar = (v: unknown): string | undefined | null => (v === undefined ? undefined : typeof v === 'string' ? v : typeof v === 'number' ? String(v) : null);
+const scalar = (v: unknown): string | undefined | null =>
+	v === undefined ? undefined : typeof v === 'string' ? v : typeof v === 'number' ? String(v) : null;
 
 /**
  * The photo reading's parameters checked: the taps' shape, the diameter (`od` read in `units`,

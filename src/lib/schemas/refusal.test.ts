@@ -5,7 +5,10 @@ import { namedErrors, refusal, refusalsUnder } from './refusal';
 // (tests/integration/builds-api.test.ts: `errors['params.teeth']` starts with `teeth: `).
 describe('refusals of a tool parameter inside a body', () => {
 	it('take the tool’s own field name off the message, for the nested and the plain name alike', () => {
-		expect(refusal('params.teeth', 'teeth: a whole number from 1 to 720')).toEqual({ field: 'params.teeth', message: 'a whole number from 1 to 720' });
+		expect(refusal('params.teeth', 'teeth: a whole number from 1 to 720')).toEqual({
+			field: 'params.teeth',
+			message: 'a whole number from 1 to 720'
+		});
 		expect(refusal('params.teeth', 'params.teeth: a whole number')).toEqual({ field: 'params.teeth', message: 'a whole number' });
 		expect(refusal('od', 'bore: too large')).toEqual({ field: 'od', message: 'bore: too large' });
 	});
@@ -18,7 +21,12 @@ describe('refusals of a tool parameter inside a body', () => {
 	});
 
 	it('answer the old errors map: the key as sent, the message starting with the tool’s field name', () => {
-		expect(namedErrors([{ field: 'params.teeth', message: 'a whole number from 1 to 720' }, { field: 'name', message: '1 to 80 characters' }])).toEqual({
+		expect(
+			namedErrors([
+				{ field: 'params.teeth', message: 'a whole number from 1 to 720' },
+				{ field: 'name', message: '1 to 80 characters' }
+			])
+		).toEqual({
 			'params.teeth': 'teeth: a whole number from 1 to 720',
 			name: 'name: 1 to 80 characters'
 		});

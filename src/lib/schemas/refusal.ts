@@ -49,10 +49,12 @@ export const namedErrors = (refusals: readonly Refusal[]): Record<string, string
 	Object.fromEntries(firstPerField(refusals).map((r) => [r.field, namedMessage(r)]));
 
 /** A refusal about the object itself (`params.foo` refused as `params: …`) already says what it is about. */
-const namedMessage = (r: Refusal) => (r.field.includes('.') && r.message.startsWith(`${r.field.split('.')[0]}: `) ? r.message : `${shownName(r.field)}: ${r.message}`);
+const namedMessage = (r: Refusal) =>
+	r.field.includes('.') && r.message.startsWith(`${r.field.split('.')[0]}: `) ? r.message : `${shownName(r.field)}: ${r.message}`;
 
 /** A field → message map (messages may start with their field's name) as refusals. */
-export const refusalsFromMap = (errors: Record<string, string>): Refusal[] => Object.entries(errors).map(([field, message]) => refusal(field, message));
+export const refusalsFromMap = (errors: Record<string, string>): Refusal[] =>
+	Object.entries(errors).map(([field, message]) => refusal(field, message));
 
 /** A tool's field → message map as refusals of a body's nested object (`params.teeth`), messages without the field's name. */
 export const refusalsUnder = (prefix: string, errors: Record<string, string>): Refusal[] =>

@@ -119,12 +119,7 @@ export interface Registry<N extends string = string> {
 export function defineRegistry<const D extends readonly ParamDef[]>(params: D): Registry<D[number]['name']> {
 	const byName = new Map(params.map((p) => [p.name, p]));
 	const schemas = new Map<Units, z.ZodObject>();
-	const build = (units: Units) =>
-		z.object(
-			Object.fromEntries(
-				params.map((p) => [p.name, valueSchema(p, units).optional()])
-			)
-		);
+	const build = (units: Units) => z.object(Object.fromEntries(params.map((p) => [p.name, valueSchema(p, units).optional()])));
 	const schema = (units: Units) => schemas.get(units) ?? schemas.set(units, build(units)).get(units)!;
 	return {
 		params,
@@ -140,7 +135,10 @@ export function defineRegistry<const D extends readonly ParamDef[]>(params: D): 
 				.filter((p) => p.required && !(p.name in given) && (p.appliesWhen?.(given) ?? true))
 				.map((p) => refusal(p.name, `required, ${allows(p, units)}`));
 			// Strings in, defaults applied to the text (zod's .default skips the transform).
-			const withDefaults = { ...Object.fromEntries(params.flatMap((p) => (defaultOf(p, units) === undefined ? [] : [[p.name, defaultOf(p, units)]]))), ...given };
+			const withDefaults = {
+				...Object.fromEntries(params.flatMap((p) => (defaultOf(p, units) === undefined ? [] : [[p.name, defaultOf(p, units)]]))),
+				...given
+			};
 			const parsed = schema(units).safeParse(withDefaults);
 			if (parsed.success && !missing.length) return { ok: true, value: parsed.data };
 			return { ok: false, refusals: firstPerField([...missing, ...(parsed.success ? [] : refusalsOf(parsed.error.issues))]) };

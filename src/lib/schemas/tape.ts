@@ -69,9 +69,16 @@ const listRanges = { timing: { min: 0, max: 90 }, tdc2: { min: 1, max: 359 } } a
 const maxListEntries = 12;
 
 /** `10,32` or `idle:10, full:32`: labelled numbers, or the refusal (without the field's name). */
-export function readLabelled(text: string, range: { min: number; max: number }, allowsText: string): Checked<{ label: string; value: number }[]> {
+export function readLabelled(
+	text: string,
+	range: { min: number; max: number },
+	allowsText: string
+): Checked<{ label: string; value: number }[]> {
 	const out: { label: string; value: number }[] = [];
-	for (const item of text.split(',').map((s) => s.trim()).filter(Boolean)) {
+	for (const item of text
+		.split(',')
+		.map((s) => s.trim())
+		.filter(Boolean)) {
 		const m = /^(?:([^:]{1,20}):)?\s*(-?\d+(?:\.\d+)?)$/.exec(item);
 		const value = m ? Number(m[2]) : NaN;
 		if (!m || value < range.min || value > range.max || unprintable.test(item)) return { ok: false, refusals: [refusal('', allowsText)] };
@@ -85,7 +92,8 @@ export function readLabelled(text: string, range: { min: number; max: number }, 
 export function hubDiameterOf(v: { diameter?: unknown; circumference?: unknown }): Checked<number> {
 	const d = v.diameter as number | undefined;
 	const c = v.circumference as number | undefined;
-	if (d !== undefined && c !== undefined) return { ok: false, refusals: [refusal('circumference', 'give either diameter or circumference, not both')] };
+	if (d !== undefined && c !== undefined)
+		return { ok: false, refusals: [refusal('circumference', 'give either diameter or circumference, not both')] };
 	if (d === undefined && c === undefined) return { ok: false, refusals: [refusal('diameter', 'required (or give circumference instead)')] };
 	return { ok: true, value: d ?? diameterFromCircumference(c!) };
 }
@@ -152,7 +160,9 @@ export function checkTape(params: Partial<Record<string, string>>): Checked<Chec
 export type ParsedTape = CheckedTape;
 
 /** `checkTape` in the shape its callers had before (a field → `field: message` map), for the build sheet until it moves to refusals. */
-export function parseTape(params: Partial<Record<string, string>>): { ok: true; value: CheckedTape } | { ok: false; errors: Record<string, string> } {
+export function parseTape(
+	params: Partial<Record<string, string>>
+): { ok: true; value: CheckedTape } | { ok: false; errors: Record<string, string> } {
 	const checked = checkTape(params);
 	return checked.ok ? checked : { ok: false, errors: namedErrors(checked.refusals) };
 }

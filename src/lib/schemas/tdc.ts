@@ -62,7 +62,16 @@ export const tdcRegistry = defineRegistry([
 /** Every public parameter of the TDC finder (the names /api/v1/tdc takes). */
 export const tdcKeys = tdcRegistry.names;
 
-export type TdcMarks = { kind: 'marks'; a: Reading; b: Reading; scale: Scale; arc: Arc; rotation: Rotation | null; units: Units; diameterMm: number | null };
+export type TdcMarks = {
+	kind: 'marks';
+	a: Reading;
+	b: Reading;
+	scale: Scale;
+	arc: Arc;
+	rotation: Rotation | null;
+	units: Units;
+	diameterMm: number | null;
+};
 export type TdcRim = { kind: 'rim'; units: Units; distanceMm: number; diameterMm: number };
 export type ParsedTdc = TdcMarks | TdcRim;
 export type ParsedMarks = TdcMarks;
@@ -70,15 +79,15 @@ export type ParsedMarks = TdcMarks;
 /** What the TDC finder found: from two readings, TDC and the marks as read; or a spread measured along the rim. */
 export type TdcFound = { kind: 'marks'; marks: TdcMarks; result: TdcResult } | TdcRim;
 
-const bareOver180 = (text: string | undefined) => text !== undefined && /^\s*\+?\d+(\.\d+)?\s*°?\s*$/.test(text) && Number(text.replace(/[^\d.]/g, '')) > 180;
+const bareOver180 = (text: string | undefined) =>
+	text !== undefined && /^\s*\+?\d+(\.\d+)?\s*°?\s*$/.test(text) && Number(text.replace(/[^\d.]/g, '')) > 180;
 const minus = (text: string | undefined) => text !== undefined && /^\s*[-\u2212\u2012\u2013\uFE63\uFF0D]/.test(text);
 
 /** Refusals in the order the registry lists their fields. */
 const byName = (x: Refusal, y: Refusal) => tdcRegistry.names.indexOf(x.field as never) - tdcRegistry.names.indexOf(y.field as never);
 
 /** A rim measurement, not two readings: a distance given, or a diameter alone. */
-export const isRim = (p: Partial<Record<string, string>>) =>
-	!!p.distance || (!!p.diameter && !p.a && !p.b);
+export const isRim = (p: Partial<Record<string, string>>) => !!p.distance || (!!p.diameter && !p.a && !p.b);
 
 /**
  * The one TDC sequence: units, then which measurement it is, the scale (named, or inferred from a
@@ -95,11 +104,15 @@ export function checkTdc(params: Partial<Record<string, string>>): Checked<TdcFo
 		const missing = (['distance', 'diameter'] as const)
 			.filter((f) => p[f] === undefined)
 			.map((f) => refusal(f, `required, ${allows(tdcRegistry.get(f)!, units.value)}`));
-		if (missing.length || !read.ok) return { ok: false, refusals: firstPerField([...missing, ...(read.ok ? [] : read.refusals)].sort(byName)) };
+		if (missing.length || !read.ok)
+			return { ok: false, refusals: firstPerField([...missing, ...(read.ok ? [] : read.refusals)].sort(byName)) };
 		const distanceMm = read.value.distance as number;
 		const diameterMm = read.value.diameter as number;
 		if (distanceMm >= Math.PI * diameterMm) {
-			return { ok: false, refusals: [refusal('distance', `less than the rim's circumference (${formatLength(Math.PI * diameterMm, units.value)})`)] };
+			return {
+				ok: false,
+				refusals: [refusal('distance', `less than the rim's circumference (${formatLength(Math.PI * diameterMm, units.value)})`)]
+			};
 		}
 		return { ok: true, value: { kind: 'rim', units: units.value, distanceMm, diameterMm } };
 	}
@@ -107,7 +120,8 @@ export function checkTdc(params: Partial<Record<string, string>>): Checked<TdcFo
 	if (!read.ok) return read;
 	const v = read.value;
 	// Without a scale named, a plain number past 180 (and no minus sign) can only be a 0–360 wheel.
-	const scale: Scale = (v.scale as Scale | undefined) ?? (!minus(p.a) && !minus(p.b) && (bareOver180(p.a) || bareOver180(p.b)) ? 'full' : 'signed');
+	const scale: Scale =
+		(v.scale as Scale | undefined) ?? (!minus(p.a) && !minus(p.b) && (bareOver180(p.a) || bareOver180(p.b)) ? 'full' : 'signed');
 	const refusals: Refusal[] = [];
 	const reading = (field: 'a' | 'b') => {
 		const r = parseReading(field, p[field] ?? '', scale);
@@ -138,7 +152,10 @@ export function checkTdc(params: Partial<Record<string, string>>): Checked<TdcFo
  */
 export function findTdc(
 	params: Partial<Record<string, string>>
-): { ok: true; value: { marks: TdcMarks; result: TdcResult } } | { ok: 'rim'; value: TdcRim } | { ok: false; errors: Record<string, string> } {
+):
+	| { ok: true; value: { marks: TdcMarks; result: TdcResult } }
+	| { ok: 'rim'; value: TdcRim }
+	| { ok: false; errors: Record<string, string> } {
 	const checked = checkTdc(params);
 	if (!checked.ok) return { ok: false, errors: namedErrors(checked.refusals) };
 	if (checked.value.kind === 'rim') return { ok: 'rim', value: checked.value };
@@ -150,7 +167,11 @@ export function findTdc(
  * what else was given. They read the same in the tool again, on any scale.
  */
 export function tdcRecordParams(marks: TdcMarks, params: Partial<Record<string, string>>): Record<string, string> {
-	const out: Record<string, string> = { a: readingParam(marks.a.atdcDeg, marks.scale), b: readingParam(marks.b.atdcDeg, marks.scale), scale: marks.scale };
+	const out: Record<string, string> = {
+		a: readingParam(marks.a.atdcDeg, marks.scale),
+		b: readingParam(marks.b.atdcDeg, marks.scale),
+		scale: marks.scale
+	};
 	if (marks.arc === 'longer') out.arc = 'longer';
 	if (marks.rotation) out.rotation = marks.rotation;
 	if (marks.diameterMm !== null && params.diameter) {
@@ -167,5 +188,10 @@ export function tdcRecordWords(params: Record<string, string>, tdcDeg: string): 
 	const found = checkTdc(params);
 	if (!found.ok || found.value.kind !== 'marks') return { a: params.a ?? '', b: params.b ?? '', tdc: `${tdcDeg}°`, scale: '' };
 	const { marks, result } = found.value;
-	return { a: sideText(marks.a.atdcDeg, marks.scale), b: sideText(marks.b.atdcDeg, marks.scale), tdc: sideText(result.tdcDeg, marks.scale), scale: scaleNames[marks.scale] };
+	return {
+		a: sideText(marks.a.atdcDeg, marks.scale),
+		b: sideText(marks.b.atdcDeg, marks.scale),
+		tdc: sideText(result.tdcDeg, marks.scale),
+		scale: scaleNames[marks.scale]
+	};
 }

@@ -12,7 +12,9 @@ describe('singleLine', () => {
 		for (const cp of refused) {
 			const result = name.safeParse(`ab${String.fromCodePoint(cp)}cd`);
 			expect(result.success, cp.toString(16)).toBe(false);
-			expect(result.error!.issues[0]!.message).toMatch(new RegExp(`^name: one line .*U\\+${cp.toString(16).toUpperCase().padStart(4, '0')}`));
+			expect(result.error!.issues[0]!.message).toMatch(
+				new RegExp(`^name: one line .*U\\+${cp.toString(16).toUpperCase().padStart(4, '0')}`)
+			);
 		}
 		expect(name.safeParse('ab\ud800cd').success).toBe(false);
 	});

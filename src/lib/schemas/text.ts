@@ -28,6 +28,7 @@ export function singleLine(field: string, max: number, min = 0) {
 		.min(min, { error: `${field}: ${range}` })
 		.max(max, { error: `${field}: ${range}` })
 		.refine((s) => !unprintable.test(s), {
-			error: (issue) => `${field}: one line of text without control, line-break or direction-override characters (found ${unprintableIn(String(issue.input)).join(', ')})`
+			error: (issue) =>
+				`${field}: one line of text without control, line-break or direction-override characters (found ${unprintableIn(String(issue.input)).join(', ')})`
 		});
 }

@@ -37,7 +37,9 @@ export function checkCurvePoint(rpmText: string, advanceText: string): Checked<A
 	const advanceDeg = Number(a);
 	const refusals = [
 		...(/^\d{2,5}$/.test(r) && rpm >= rpmMin && rpm <= rpmMax ? [] : [refusal('rpm', curveRowAllows.rpm)]),
-		...(/^-?\d+(\.\d+)?$/.test(a) && advanceDeg >= advanceMinDeg && advanceDeg <= advanceMaxDeg ? [] : [refusal('advance', curveRowAllows.advance)])
+		...(/^-?\d+(\.\d+)?$/.test(a) && advanceDeg >= advanceMinDeg && advanceDeg <= advanceMaxDeg
+			? []
+			: [refusal('advance', curveRowAllows.advance)])
 	];
 	return refusals.length ? { ok: false, refusals } : { ok: true, value: { rpm, advanceDeg } };
 }
@@ -46,13 +48,17 @@ export function checkCurvePoint(rpmText: string, advanceText: string): Checked<A
 export function readCurve(text: string): Checked<AdvancePoint[]> {
 	const points: AdvancePoint[] = [];
 	const whole = allows(timingCardRegistry.get('curve')!, 'mm');
-	for (const item of text.split(',').map((s) => s.trim()).filter(Boolean)) {
+	for (const item of text
+		.split(',')
+		.map((s) => s.trim())
+		.filter(Boolean)) {
 		const m = /^([^:]*):([^:]*)$/.exec(item);
 		const point = m ? checkCurvePoint(m[1]!, m[2]!) : null;
 		if (!point?.ok) return { ok: false, refusals: [refusal('curve', whole)] };
 		points.push(point.value);
 	}
-	if (points.length < 1 || points.length > maxPoints) return { ok: false, refusals: [refusal('curve', `1 to ${maxPoints} rpm:advance pairs`)] };
+	if (points.length < 1 || points.length > maxPoints)
+		return { ok: false, refusals: [refusal('curve', `1 to ${maxPoints} rpm:advance pairs`)] };
 	return { ok: true, value: points };
 }
 

@@ -15,7 +15,9 @@ const card = new Set<string>(timingCardRegistry.names);
 const tdc = new Set<string>(tdcRegistry.names);
 
 /** A form holding every name either registry knows, plus ones none does, each with a value. */
-const everything = Object.fromEntries([...tape, ...card, ...tdc, 'build', 'design', 'od', 'teeth'].map((n) => [n, n === 'units' ? 'mm' : '1']));
+const everything = Object.fromEntries(
+	[...tape, ...card, ...tdc, 'build', 'design', 'od', 'teeth'].map((n) => [n, n === 'units' ? 'mm' : '1'])
+);
 
 /** The parameter names a component's source uses: its text fields, the params it sets and the refusals it shows. */
 function namesIn(file: string): string[] {
@@ -26,7 +28,8 @@ function namesIn(file: string): string[] {
 }
 
 // The loads read only `url`: the rest of a load event is not used.
-const loadOf = (load: unknown, query: string) => (load as (e: { url: URL }) => { params: Record<string, string> })({ url: new URL(`http://x/?${query}`) });
+const loadOf = (load: unknown, query: string) =>
+	(load as (e: { url: URL }) => { params: Record<string, string> })({ url: new URL(`http://x/?${query}`) });
 
 describe('the tape page', () => {
 	it('sends the tape and the card only names their registries list', () => {
@@ -44,7 +47,10 @@ describe('the tape page', () => {
 		expect(Object.keys(loadOf(tapeLoad, query).params).filter((n) => !tape.has(n) && !card.has(n))).toEqual([]);
 		for (const file of ['../../routes/tape/TapeForm.svelte', '../../routes/tape/tape-page.svelte.ts']) {
 			expect(namesIn(file).length, file).toBeGreaterThan(0);
-			expect(namesIn(file).filter((n) => !tape.has(n)), file).toEqual([]);
+			expect(
+				namesIn(file).filter((n) => !tape.has(n)),
+				file
+			).toEqual([]);
 		}
 	});
 });
@@ -62,7 +68,10 @@ describe('the TDC page', () => {
 		expect(Object.keys(loadOf(tdcLoad, query).params).filter((n) => !tdc.has(n))).toEqual([]);
 		for (const file of ['../../routes/tdc/TdcForm.svelte', '../../routes/tdc/tdc-page.svelte.ts']) {
 			expect(namesIn(file).length, file).toBeGreaterThan(0);
-			expect(namesIn(file).filter((n) => !tdc.has(n)), file).toEqual([]);
+			expect(
+				namesIn(file).filter((n) => !tdc.has(n)),
+				file
+			).toEqual([]);
 		}
 	});
 });

@@ -10,10 +10,42 @@ import { applying, filledWheel, lengthParams, newWheel, wheelParams } from './wh
 
 /** The README's wheel parameter table, plus `paper` from its wheel.pdf row. */
 const documented = [
-	'units', 'pattern', 'teeth', 'missing', 'gaps', 'extraAfter', 'duty', 'od', 'depth', 'tipRadius', 'rootRadius', 'bore',
-	'keyway', 'keyWidth', 'keyDepth', 'shaft', 'woodruff', 'keywayAngle', 'bolts', 'pcd', 'boltHole', 'boltAngle',
-	'balanceCount', 'balancePcd', 'balanceHole', 'balanceAngle', 'balanceSpacing', 'mark', 'label', 'rotation',
-	'material', 'density', 'thickness', 'rpm', 'grade', 'paper'
+	'units',
+	'pattern',
+	'teeth',
+	'missing',
+	'gaps',
+	'extraAfter',
+	'duty',
+	'od',
+	'depth',
+	'tipRadius',
+	'rootRadius',
+	'bore',
+	'keyway',
+	'keyWidth',
+	'keyDepth',
+	'shaft',
+	'woodruff',
+	'keywayAngle',
+	'bolts',
+	'pcd',
+	'boltHole',
+	'boltAngle',
+	'balanceCount',
+	'balancePcd',
+	'balanceHole',
+	'balanceAngle',
+	'balanceSpacing',
+	'mark',
+	'label',
+	'rotation',
+	'material',
+	'density',
+	'thickness',
+	'rpm',
+	'grade',
+	'paper'
 ];
 
 /** The parameter names the designer's form and balance panel write, found in their markup. */
@@ -43,13 +75,39 @@ describe('the wheel parameter registry', () => {
 	it('has every name the designer form sends', () => {
 		const sent = formNames();
 		// The form has at least the fields a person fills in for a 36-1 wheel (README's example).
-		expect(sent).toEqual(expect.arrayContaining(['teeth', 'missing', 'od', 'depth', 'bore', 'thickness', 'pattern', 'keyway', 'material', 'grade']));
+		expect(sent).toEqual(
+			expect.arrayContaining(['teeth', 'missing', 'od', 'depth', 'bore', 'thickness', 'pattern', 'keyway', 'material', 'grade'])
+		);
 		for (const name of sent) expect(wheelParams.get(name), name).toBeDefined();
 	});
 
 	it('starts a new design from the README’s defaults, in each unit system', () => {
-		expect(newWheel('mm')).toEqual({ units: 'mm', pattern: 'missing', teeth: '36', missing: '1', duty: '0.5', od: '100', depth: '5', bore: '20', thickness: '3', rpm: '8000', grade: '6.3' });
-		expect(newWheel('in')).toEqual({ units: 'in', pattern: 'missing', teeth: '36', missing: '1', duty: '0.5', od: '4', depth: '3/16', bore: '3/4', thickness: '1/8', rpm: '8000', grade: '6.3' });
+		expect(newWheel('mm')).toEqual({
+			units: 'mm',
+			pattern: 'missing',
+			teeth: '36',
+			missing: '1',
+			duty: '0.5',
+			od: '100',
+			depth: '5',
+			bore: '20',
+			thickness: '3',
+			rpm: '8000',
+			grade: '6.3'
+		});
+		expect(newWheel('in')).toEqual({
+			units: 'in',
+			pattern: 'missing',
+			teeth: '36',
+			missing: '1',
+			duty: '0.5',
+			od: '4',
+			depth: '3/16',
+			bore: '3/4',
+			thickness: '1/8',
+			rpm: '8000',
+			grade: '6.3'
+		});
 		expect(filledWheel({ units: 'in', od: '6' })).toMatchObject({ od: '6', bore: '3/4', units: 'in' });
 	});
 
@@ -67,14 +125,66 @@ describe('the wheel parameter registry', () => {
 		expect(allows(wheelParams.get('thickness')!, 'in')).toBe('0.008 in to 1.969 in');
 		// Every length of the README's table is a length here (they follow the units switch).
 		expect([...lengthParams].sort()).toEqual(
-			['od', 'depth', 'tipRadius', 'rootRadius', 'bore', 'keyWidth', 'keyDepth', 'shaft', 'pcd', 'boltHole', 'balancePcd', 'balanceHole', 'thickness'].sort()
+			[
+				'od',
+				'depth',
+				'tipRadius',
+				'rootRadius',
+				'bore',
+				'keyWidth',
+				'keyDepth',
+				'shaft',
+				'pcd',
+				'boltHole',
+				'balancePcd',
+				'balanceHole',
+				'thickness'
+			].sort()
 		);
 	});
 
 	it('sends only what applies with the choices made', () => {
-		const form = { units: 'mm', pattern: 'custom', teeth: '36', missing: '1', gaps: '17, 35', od: '100', depth: '5', keyway: 'none', keyWidth: '6', bolts: '0', pcd: '60', material: 'custom', density: '8', label: '', junk: 'x' };
-		expect(applying(form)).toEqual({ units: 'mm', pattern: 'custom', teeth: '36', gaps: '17, 35', od: '100', depth: '5', keyway: 'none', bolts: '0', material: 'custom', density: '8' });
-		expect(applying({ keyway: 'din6885', shaft: '20', keywayAngle: '90', bolts: '3', pcd: '60', boltHole: '6', balanceCount: '2', balanceHole: '5' })).toEqual({
+		const form = {
+			units: 'mm',
+			pattern: 'custom',
+			teeth: '36',
+			missing: '1',
+			gaps: '17, 35',
+			od: '100',
+			depth: '5',
+			keyway: 'none',
+			keyWidth: '6',
+			bolts: '0',
+			pcd: '60',
+			material: 'custom',
+			density: '8',
+			label: '',
+			junk: 'x'
+		};
+		expect(applying(form)).toEqual({
+			units: 'mm',
+			pattern: 'custom',
+			teeth: '36',
+			gaps: '17, 35',
+			od: '100',
+			depth: '5',
+			keyway: 'none',
+			bolts: '0',
+			material: 'custom',
+			density: '8'
+		});
+		expect(
+			applying({
+				keyway: 'din6885',
+				shaft: '20',
+				keywayAngle: '90',
+				bolts: '3',
+				pcd: '60',
+				boltHole: '6',
+				balanceCount: '2',
+				balanceHole: '5'
+			})
+		).toEqual({
 			keyway: 'din6885',
 			shaft: '20',
 			keywayAngle: '90',
@@ -124,6 +234,9 @@ describe('checkWheel', () => {
 	});
 
 	it('refuses units it does not know before reading any length', () => {
-		expect(checkWheel({ ...base, od: 'big', units: 'yards' })).toEqual({ ok: false, refusals: [{ field: 'units', message: 'one of mm, in' }] });
+		expect(checkWheel({ ...base, od: 'big', units: 'yards' })).toEqual({
+			ok: false,
+			refusals: [{ field: 'units', message: 'one of mm, in' }]
+		});
 	});
 });

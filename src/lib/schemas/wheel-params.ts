@@ -24,7 +24,15 @@ const defs = [
 	common.extraAfter,
 	{ ...common.duty, default: '0.5', starts: true },
 	{ ...common.od, required: true, default: { mm: '100', in: '4' }, starts: true },
-	{ name: 'depth', label: 'Tooth depth', help: 'From the tooth tips to the roots.', ...length(0.2, 200), required: true, default: { mm: '5', in: '3/16' }, starts: true },
+	{
+		name: 'depth',
+		label: 'Tooth depth',
+		help: 'From the tooth tips to the roots.',
+		...length(0.2, 200),
+		required: true,
+		default: { mm: '5', in: '3/16' },
+		starts: true
+	},
 	{ name: 'tipRadius', label: 'Tip corner radius', help: 'Empty or 0 for sharp corners.', ...length(0, 50), default: '0' },
 	{ name: 'rootRadius', label: 'Root corner radius', help: 'Empty or 0 for sharp corners.', ...length(0, 50), default: '0' },
 	{ name: 'bore', label: 'Bore', help: '0 for no bore.', ...length(0, 1900), default: { mm: '20', in: '3/4' }, starts: true },
@@ -43,8 +51,20 @@ const defs = [
 		default: 'none'
 	},
 	{ name: 'keyWidth', label: 'Key slot width', ...length(0.5, 100), appliesWhen: (p) => p.keyway === 'custom' },
-	{ name: 'keyDepth', label: 'Key slot depth', help: 'Into the hub from the bore, at the slot’s centre line.', ...length(0.2, 50), appliesWhen: (p) => p.keyway === 'custom' },
-	{ name: 'shaft', label: 'Shaft diameter', help: 'The key is looked up by shaft diameter.', ...length(1, 500), appliesWhen: (p) => p.keyway === 'din6885' || p.keyway === 'b17.1' },
+	{
+		name: 'keyDepth',
+		label: 'Key slot depth',
+		help: 'Into the hub from the bore, at the slot’s centre line.',
+		...length(0.2, 50),
+		appliesWhen: (p) => p.keyway === 'custom'
+	},
+	{
+		name: 'shaft',
+		label: 'Shaft diameter',
+		help: 'The key is looked up by shaft diameter.',
+		...length(1, 500),
+		appliesWhen: (p) => p.keyway === 'din6885' || p.keyway === 'b17.1'
+	},
 	{
 		name: 'woodruff',
 		label: 'Woodruff key number',
@@ -63,7 +83,15 @@ const defs = [
 	{ name: 'balancePcd', label: 'Balance hole circle PCD', ...length(2, 1990), appliesWhen: withBalance },
 	{ name: 'balanceHole', label: 'Balance hole diameter', ...length(0.5, 200), appliesWhen: withBalance },
 	{ name: 'balanceAngle', label: 'First balance hole angle', ...angle, appliesWhen: withBalance },
-	{ name: 'balanceSpacing', label: 'Balance hole spacing', help: 'Between neighbouring holes; empty spreads them evenly round the circle.', kind: 'angle', min: 0, max: 180, appliesWhen: withBalance },
+	{
+		name: 'balanceSpacing',
+		label: 'Balance hole spacing',
+		help: 'Between neighbouring holes; empty spreads them evenly round the circle.',
+		kind: 'angle',
+		min: 0,
+		max: 180,
+		appliesWhen: withBalance
+	},
 	{
 		name: 'mark',
 		label: 'Index mark angle',
@@ -86,9 +114,26 @@ const defs = [
 	common.rotation,
 	{ name: 'material', label: 'Material', kind: 'choice', values: ['steel', 'stainless', 'aluminium', 'custom'], default: 'steel' },
 	{ name: 'density', label: 'Density', kind: 'number', min: 0.5, max: 25, unit: ' g/cm³', appliesWhen: (p) => p.material === 'custom' },
-	{ name: 'thickness', label: 'Thickness', help: 'Of the plate the wheel is cut from.', ...length(0.2, 50), default: { mm: '3', in: '1/8' }, starts: true },
+	{
+		name: 'thickness',
+		label: 'Thickness',
+		help: 'Of the plate the wheel is cut from.',
+		...length(0.2, 50),
+		default: { mm: '3', in: '1/8' },
+		starts: true
+	},
 	{ ...common.rpm, starts: true },
-	{ name: 'grade', label: 'Balance grade', help: 'ISO 21940-11; a higher grade number allows more residual unbalance.', kind: 'number', min: 0.4, max: 100, unit: ' mm/s', default: '6.3', starts: true },
+	{
+		name: 'grade',
+		label: 'Balance grade',
+		help: 'ISO 21940-11; a higher grade number allows more residual unbalance.',
+		kind: 'number',
+		min: 0.4,
+		max: 100,
+		unit: ' mm/s',
+		default: '6.3',
+		starts: true
+	},
 	common.paper
 ] as const satisfies readonly (ParamDef & { starts?: boolean })[];
 

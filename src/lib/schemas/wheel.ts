@@ -38,7 +38,10 @@ export const gapsField = z
 	.string()
 	.default('')
 	.transform((text, ctx) => {
-		const list = text.split(/[\s,;]+/).filter(Boolean).map(Number);
+		const list = text
+			.split(/[\s,;]+/)
+			.filter(Boolean)
+			.map(Number);
 		if (list.some((n) => !Number.isInteger(n))) {
 			ctx.addIssue({ code: 'custom', message: `gaps: ${common.gaps.allows}` });
 			return z.NEVER;
@@ -47,7 +50,13 @@ export const gapsField = z
 	});
 
 /** The tooth pattern from the public parameters `pattern`, `teeth`, `missing`, `gaps`, `extraAfter`. */
-export function patternOf(v: { pattern: (typeof patternKinds)[number]; teeth: number; missing: number; gaps: number[]; extraAfter: number }): Pattern {
+export function patternOf(v: {
+	pattern: (typeof patternKinds)[number];
+	teeth: number;
+	missing: number;
+	gaps: number[];
+	extraAfter: number;
+}): Pattern {
 	switch (v.pattern) {
 		case 'missing':
 			return { kind: 'missing', teeth: v.teeth, missing: v.missing };
@@ -147,7 +156,11 @@ export function readWheel(params: WheelParams): Checked<ParsedWheel> {
 			keyway = v.shaft === undefined ? null : (ansiSlot(fromMm(v.shaft, 'in')) ?? null);
 			const [lo, hi] = [ansiShaftRangeIn.min, ansiShaftRangeIn.max].map((inches) => formatLength(toMm(inches, 'in'), units));
 			if (v.shaft === undefined) no('shaft', 'the shaft diameter, to look up the ANSI B17.1 key');
-			else if (!keyway) no('shaft', `over ${lo} to ${hi} for ANSI B17.1 square keys (the standard's square-key sizes end there); outside it, use keyway=custom`);
+			else if (!keyway)
+				no(
+					'shaft',
+					`over ${lo} to ${hi} for ANSI B17.1 square keys (the standard's square-key sizes end there); outside it, use keyway=custom`
+				);
 			break;
 		}
 		case 'woodruff':
@@ -177,7 +190,9 @@ export function readWheel(params: WheelParams): Checked<ParsedWheel> {
 				}
 			: null;
 	const densityGcm3 =
-		v.material === 'custom' ? need('density', v.density, 'needed for a custom material, 0.5 to 25 g/cm³') : materials[v.material].densityGcm3;
+		v.material === 'custom'
+			? need('density', v.density, 'needed for a custom material, 0.5 to 25 g/cm³')
+			: materials[v.material].densityGcm3;
 	if (out.length || !gaps.success) return { ok: false, refusals: firstPerField(out) };
 
 	return {
@@ -230,4 +245,3 @@ export function parseWheel(params: WheelParams): { ok: true; value: ParsedWheel 
 	const read = readWheel(params);
 	return read.ok ? read : { ok: false, errors: namedErrors(read.refusals) };
 }
-

@@ -48,8 +48,16 @@ export function signedInUser(event: RequestEvent): Promise<SessionUser | null> {
 			const id = session?.user?.id;
 			const sid = sessionIdOf((session as { sid?: unknown } | null)?.sid);
 			if (!id || !sid) return null;
-			const live = and(eq(userSession.id, sid), eq(userSession.userId, user.id), gt(userSession.createdAt, new Date(Date.now() - sessionLifetimeS * 1000)));
-			const [row] = await db().select({ id: user.id, email: user.email, name: user.name }).from(user).innerJoin(userSession, live).where(eq(user.id, id));
+			const live = and(
+				eq(userSession.id, sid),
+				eq(userSession.userId, user.id),
+				gt(userSession.createdAt, new Date(Date.now() - sessionLifetimeS * 1000))
+			);
+			const [row] = await db()
+				.select({ id: user.id, email: user.email, name: user.name })
+				.from(user)
+				.innerJoin(userSession, live)
+				.where(eq(user.id, id));
 			return row ?? null;
 		})();
 		perRequest.set(event.request, found);
@@ -76,9 +84,7 @@ export async function workshopAccess(event: RequestEvent, action: Action, worksh
 	const me = await requireUser(event);
 	const workshops = await workshopsOf(db(), me.id);
 	const chosen = event.cookies.get(workshopCookie);
-	const current = workshopId
-		? workshops.find((w) => w.id === workshopId)
-		: (workshops.find((w) => w.id === chosen) ?? workshops[0]);
+	const current = workshopId ? workshops.find((w) => w.id === workshopId) : (workshops.find((w) => w.id === chosen) ?? workshops[0]);
 	if (!current) error(404, { message: 'No such workshop among yours.', code: 'not-found' });
 	if (!allows(current.role, action)) {
 		error(403, {
@@ -115,8 +121,18 @@ async function ownerOf(kind: ObjectKind, id: string, userId: string): Promise<{ 
 		kind === 'build'
 			? await db().select(columns).from(build).innerJoin(member, mine).where(eq(build.id, id))
 			: kind === 'design'
-				? await db().select(columns).from(wheelDesign).innerJoin(build, eq(build.id, wheelDesign.buildId)).innerJoin(member, mine).where(eq(wheelDesign.id, id))
-				: await db().select(columns).from(wheelPhoto).innerJoin(build, eq(build.id, wheelPhoto.buildId)).innerJoin(member, mine).where(eq(wheelPhoto.id, id));
+				? await db()
+						.select(columns)
+						.from(wheelDesign)
+						.innerJoin(build, eq(build.id, wheelDesign.buildId))
+						.innerJoin(member, mine)
+						.where(eq(wheelDesign.id, id))
+				: await db()
+						.select(columns)
+						.from(wheelPhoto)
+						.innerJoin(build, eq(build.id, wheelPhoto.buildId))
+						.innerJoin(member, mine)
+						.where(eq(wheelPhoto.id, id));
 	return rows[0];
 }
 
@@ -125,7 +141,12 @@ async function ownerOf(kind: ObjectKind, id: string, userId: string): Promise<{ 
  * not in one of the caller's workshops (a malformed or guessed id looks the same as a missing one),
  * 403 when the role is too low. Queries that follow scope by the returned build id.
  */
-export async function objectAccess(event: RequestEvent, action: Action, kind: ObjectKind, id: string): Promise<WorkshopAccess & { buildId: string }> {
+export async function objectAccess(
+	event: RequestEvent,
+	action: Action,
+	kind: ObjectKind,
+	id: string
+): Promise<WorkshopAccess & { buildId: string }> {
 	const me = await requireUser(event);
 	if (!z.uuid().safeParse(id).success) notFound(kind);
 	const found = await ownerOf(kind, id, me.id);

@@ -48,9 +48,7 @@ export async function createAccount(
 }
 
 export type PasswordCheck =
-	| { ok: true; user: AccountUser }
-	| { ok: false; reason: 'invalid' }
-	| { ok: false; reason: 'throttled'; retryAfterS: number };
+	{ ok: true; user: AccountUser } | { ok: false; reason: 'invalid' } | { ok: false; reason: 'throttled'; retryAfterS: number };
 
 /**
  * Checks an e-mail and password. The answer for an unknown address and a wrong password is the
@@ -62,7 +60,8 @@ export async function checkPassword(database: Database, email: string, password:
 	const counts = await reserveAttempt(database, [keys.email, keys.client]);
 	const byEmail = counts.get(keys.email)!;
 	const byClient = counts.get(keys.client)!;
-	const locked = (byEmail.failures > throttlePolicy.lockAfter.email && byEmail) || (byClient.failures > throttlePolicy.lockAfter.client && byClient);
+	const locked =
+		(byEmail.failures > throttlePolicy.lockAfter.email && byEmail) || (byClient.failures > throttlePolicy.lockAfter.client && byClient);
 	if (locked) {
 		// A refused attempt is not checked, so it does not count as a failure.
 		await releaseAttempt(database, [keys.email, keys.client]);

@@ -5,9 +5,13 @@ import { activity, user } from './db/schema';
 // The build's activity log. Written in the same transaction as the change it tells of, so the log
 // never mentions a change that did not happen.
 
-export type ActivityKind = 'build' | 'engine' | 'design' | 'revision' | 'restore' | 'tdc' | 'tape' | 'photo' | 'reading' | 'cutting-package' | 'invitation';
+export type ActivityKind =
+	'build' | 'engine' | 'design' | 'revision' | 'restore' | 'tdc' | 'tape' | 'photo' | 'reading' | 'cutting-package' | 'invitation';
 
-export async function logActivity(database: Queryable, entry: { buildId: string; actorId: string | null; kind: ActivityKind; summary: string }) {
+export async function logActivity(
+	database: Queryable,
+	entry: { buildId: string; actorId: string | null; kind: ActivityKind; summary: string }
+) {
 	await database.insert(activity).values(entry);
 }
 

@@ -30,7 +30,13 @@ function sameProof(a: string, b: string): boolean {
 export async function rememberSignUp(database: Database, cookies: Cookies, userId: string, secure: boolean): Promise<void> {
 	const [row] = await database.select({ passwordHash: user.passwordHash }).from(user).where(eq(user.id, userId));
 	if (!row?.passwordHash) return;
-	cookies.set(proofCookie, `${userId}.${proofOf(userId, row.passwordHash)}`, { path: '/', httpOnly: true, sameSite: 'lax', secure, maxAge: proofLifetimeS });
+	cookies.set(proofCookie, `${userId}.${proofOf(userId, row.passwordHash)}`, {
+		path: '/',
+		httpOnly: true,
+		sameSite: 'lax',
+		secure,
+		maxAge: proofLifetimeS
+	});
 }
 
 export type Confirmation = 'confirmed' | 'password-kept' | 'password-cleared' | 'already';
@@ -44,7 +50,10 @@ export async function confirmAddress(database: Database, userId: string, proofCo
 			.where(eq(user.id, userId))
 			.for('update');
 		if (!row) return 'already';
-		await tx.update(user).set({ emailVerified: sql`coalesce(${user.emailVerified}, now())` }).where(eq(user.id, userId));
+		await tx
+			.update(user)
+			.set({ emailVerified: sql`coalesce(${user.emailVerified}, now())` })
+			.where(eq(user.id, userId));
 		if (!row.passwordHash || row.passwordConfirmedAt) return row.emailVerified ? 'already' : 'confirmed';
 		const [cookieUser, proof] = (proofCookieValue ?? '').split('.');
 		if (cookieUser === userId && proof && sameProof(proof, proofOf(userId, row.passwordHash))) {
@@ -65,6 +74,9 @@ export async function isUnconfirmed(database: Database, email: string): Promise<
 
 /** What the account page and the invitation page say about the account. */
 export async function accountState(database: Database, userId: string): Promise<{ confirmed: boolean; hasPassword: boolean }> {
-	const [row] = await database.select({ emailVerified: user.emailVerified, passwordHash: user.passwordHash }).from(user).where(eq(user.id, userId));
+	const [row] = await database
+		.select({ emailVerified: user.emailVerified, passwordHash: user.passwordHash })
+		.from(user)
+		.where(eq(user.id, userId));
 	return { confirmed: !!row?.emailVerified, hasPassword: !!row?.passwordHash };
 }

@@ -15,14 +15,22 @@ export function refuse(refusals: readonly Refusal[] | Record<string, string>, st
 	const list = Array.isArray(refusals) ? (refusals as readonly Refusal[]) : refusalsFromMap(refusals as Record<string, string>);
 	// A map is answered as given: a nested field's message (`params.teeth` → `teeth: …`) keeps the wording it always had.
 	const errors = Array.isArray(refusals) ? namedErrors(list) : (refusals as Record<string, string>);
-	return json({ message: 'Some parameters are out of range; see errors for each field.', code: 'invalid', errors, refusals: list }, { status });
+	return json(
+		{ message: 'Some parameters are out of range; see errors for each field.', code: 'invalid', errors, refusals: list },
+		{ status }
+	);
 }
 
 /**
  * A file download: content type, a file name, cacheable (the same query always gives the same
  * file). Workshop files are cached by the browser only (`private`).
  */
-export function fileResponse(body: string | Buffer | Uint8Array, contentType: string, filename: string, cache: 'public' | 'private' = 'public'): Response {
+export function fileResponse(
+	body: string | Buffer | Uint8Array,
+	contentType: string,
+	filename: string,
+	cache: 'public' | 'private' = 'public'
+): Response {
 	return new Response(typeof body === 'string' ? body : new Uint8Array(body), {
 		headers: {
 			'content-type': contentType,
@@ -43,7 +51,8 @@ export async function jsonBody<S extends z.ZodType>(request: Request, schema: S)
 		return { ok: false, response: refuse({ body: 'body: a JSON object (content-type application/json)' }) };
 	}
 	const parsed = parseForm(schema, (raw ?? {}) as Record<string, unknown>);
-	if (typeof raw !== 'object' || raw === null || Array.isArray(raw)) return { ok: false, response: refuse({ body: 'body: a JSON object' }) };
+	if (typeof raw !== 'object' || raw === null || Array.isArray(raw))
+		return { ok: false, response: refuse({ body: 'body: a JSON object' }) };
 	return parsed.ok ? { ok: true, data: parsed.data } : { ok: false, response: refuse(parsed.errors) };
 }
 

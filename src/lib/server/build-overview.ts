@@ -12,7 +12,15 @@ import { tapesOf, tdcRecordsOf } from './records';
 
 export async function cuttingPackagesOf(database: Queryable, buildId: string) {
 	return database
-		.select({ id: cuttingPackage.id, designId: cuttingPackage.designId, revision: cuttingPackage.revision, sentTo: cuttingPackage.sentTo, details: cuttingPackage.details, sentBy: user.email, createdAt: cuttingPackage.createdAt })
+		.select({
+			id: cuttingPackage.id,
+			designId: cuttingPackage.designId,
+			revision: cuttingPackage.revision,
+			sentTo: cuttingPackage.sentTo,
+			details: cuttingPackage.details,
+			sentBy: user.email,
+			createdAt: cuttingPackage.createdAt
+		})
 		.from(cuttingPackage)
 		.leftJoin(user, eq(user.id, cuttingPackage.sentBy))
 		.where(eq(cuttingPackage.buildId, buildId))

@@ -19,7 +19,11 @@ export interface SheetFile {
 	filename: string;
 }
 
-const printed = (parsed: ParsedBuildSheet): BuildSheet => ({ ...parsed, date: new Date().toISOString().slice(0, 10), result: phasing(parsed.phasing.input) });
+const printed = (parsed: ParsedBuildSheet): BuildSheet => ({
+	...parsed,
+	date: new Date().toISOString().slice(0, 10),
+	result: phasing(parsed.phasing.input)
+});
 
 /** A build sheet from the wheel's, the phasing check's and the sheet's own parameters. */
 export function sheetFromParams(params: Partial<Record<string, string>>): Checked<SheetFile> {
@@ -33,9 +37,17 @@ export function sheetFromParams(params: Partial<Record<string, string>>): Checke
  * design's revision (the first design's newest unless named), the newest TDC record and degree tape.
  * A build without the profile or a design answers 422; a design or revision not in it, 404.
  */
-export async function buildSheetFor(database: Queryable, access: { buildId: string }, choice: { design?: string; revision?: number }): Promise<Checked<SheetFile>> {
+export async function buildSheetFor(
+	database: Queryable,
+	access: { buildId: string },
+	choice: { design?: string; revision?: number }
+): Promise<Checked<SheetFile>> {
 	const build = (await getBuild(database, access.buildId))!;
-	if (!build.engineProfile) error(422, { message: 'engineProfile: this build has no engine profile yet; set it up in the phasing check and save it to the build.', code: 'incomplete' });
+	if (!build.engineProfile)
+		error(422, {
+			message: 'engineProfile: this build has no engine profile yet; set it up in the phasing check and save it to the build.',
+			code: 'incomplete'
+		});
 	const designId = choice.design ?? (await designsOf(database, access.buildId))[0]?.id;
 	const design = designId ? await getDesign(database, designId) : undefined;
 	if (!design || design.buildId !== access.buildId) {

@@ -17,8 +17,14 @@ const sortColumn = { name: build.name, updated: build.updatedAt, created: build.
 export type ListOptions = Pick<BuildQuery, 'q' | 'sort' | 'page' | 'size'> & { dir?: 'asc' | 'desc' };
 
 /** One page of a workshop's builds, searched in name and engine; newest change first unless told. */
-export async function listBuilds(database: Queryable, workshopId: string, options: ListOptions = { q: '', sort: 'name', page: 1, size: 100 }) {
-	const where = options.q ? and(eq(build.workshopId, workshopId), or(ilike(build.name, likePattern(options.q)), ilike(build.engine, likePattern(options.q)))) : eq(build.workshopId, workshopId);
+export async function listBuilds(
+	database: Queryable,
+	workshopId: string,
+	options: ListOptions = { q: '', sort: 'name', page: 1, size: 100 }
+) {
+	const where = options.q
+		? and(eq(build.workshopId, workshopId), or(ilike(build.name, likePattern(options.q)), ilike(build.engine, likePattern(options.q))))
+		: eq(build.workshopId, workshopId);
 	const dir = options.dir ?? (options.sort === 'name' ? 'asc' : 'desc');
 	const order = dir === 'asc' ? asc(sortColumn[options.sort]) : desc(sortColumn[options.sort]);
 	const designs = database.$count(wheelDesign, eq(wheelDesign.buildId, build.id));
@@ -47,10 +53,18 @@ export const isUniqueViolation = (err: unknown, constraint?: string) => {
 	return cause?.code === '23505' && (!constraint || cause.constraint === constraint);
 };
 
-export async function createBuild(database: Database, workshopId: string, input: { name: string; engine: string }, actorId: string): Promise<BuildWrite> {
+export async function createBuild(
+	database: Database,
+	workshopId: string,
+	input: { name: string; engine: string },
+	actorId: string
+): Promise<BuildWrite> {
 	try {
 		return await database.transaction(async (tx) => {
-			const [row] = await tx.insert(build).values({ workshopId, ...input }).returning({ id: build.id });
+			const [row] = await tx
+				.insert(build)
+				.values({ workshopId, ...input })
+				.returning({ id: build.id });
 			await logActivity(tx, { buildId: row!.id, actorId, kind: 'build', summary: `Build “${input.name}” created` });
 			return { ok: true as const, id: row!.id };
 		});
@@ -66,9 +80,16 @@ export type BuildChange = { name?: string; engine?: string; notes?: string };
  * Changes a build's name, engine or notes, with its activity entry in the same transaction: the
  * one path for the Builds page's rename and `PATCH /api/v1/builds/:id` alike.
  */
-export function changeBuild(database: Database, workshopId: string, buildId: string, change: BuildChange, actorId: string): Promise<BuildWrite> {
+export function changeBuild(
+	database: Database,
+	workshopId: string,
+	buildId: string,
+	change: BuildChange,
+	actorId: string
+): Promise<BuildWrite> {
 	const fields = Object.keys(change);
-	const summary = fields.length === 1 && change.name !== undefined ? `Build renamed to “${change.name}”` : `Build details changed (${fields.join(', ')})`;
+	const summary =
+		fields.length === 1 && change.name !== undefined ? `Build renamed to “${change.name}”` : `Build details changed (${fields.join(', ')})`;
 	return writeBuild(database, workshopId, buildId, change, { actorId, kind: 'build', summary });
 }
 
@@ -81,7 +102,13 @@ export type EngineProfileWrite =
  * Stores the build's engine profile and sensor set-up: the phasing check's parameters (the same
  * names as `GET /api/v1/phasing`), checked the same way, blank ones left out.
  */
-export async function saveEngineProfile(database: Database, workshopId: string, buildId: string, given: FlatParams, actorId: string): Promise<EngineProfileWrite> {
+export async function saveEngineProfile(
+	database: Database,
+	workshopId: string,
+	buildId: string,
+	given: FlatParams,
+	actorId: string
+): Promise<EngineProfileWrite> {
 	const parsed = checkPhasing(given);
 	if (!parsed.ok) return { ok: false, reason: 'invalid', refusals: parsed.refusals };
 	const params = Object.fromEntries(Object.entries(given).filter(([, v]) => v.trim() !== ''));
@@ -119,7 +146,10 @@ async function writeBuild(
 
 /** Marks a build as changed (a new revision, record or photo), for the list's "updated" order. */
 export async function touchBuild(database: Queryable, buildId: string) {
-	await database.update(build).set({ updatedAt: sql`now()` }).where(eq(build.id, buildId));
+	await database
+		.update(build)
+		.set({ updatedAt: sql`now()` })
+		.where(eq(build.id, buildId));
 }
 
 // Deleting a build is deleteBuild() in build-overview.ts, beside the photos it removes with it.

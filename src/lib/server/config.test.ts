@@ -23,15 +23,10 @@ describe('server configuration', () => {
 
 	it('uses path-style addressing for a self-hosted endpoint unless told otherwise', () => {
 		expect(parseConfig({ ...minimal, S3_ENDPOINT: 'http://127.0.0.1:4568' }).s3.forcePathStyle).toBe(true);
-		expect(
-			parseConfig({ ...minimal, S3_ENDPOINT: 'http://127.0.0.1:4568', S3_FORCE_PATH_STYLE: 'false' }).s3
-				.forcePathStyle
-		).toBe(false);
+		expect(parseConfig({ ...minimal, S3_ENDPOINT: 'http://127.0.0.1:4568', S3_FORCE_PATH_STYLE: 'false' }).s3.forcePathStyle).toBe(false);
 	});
 
 	it('names every missing or malformed variable', () => {
-		expect(() => parseConfig({ DATABASE_URL: 'mysql://x', S3_BUCKET: 'b' })).toThrow(
-			/DATABASE_URL[\s\S]*SMTP_URL/
-		);
+		expect(() => parseConfig({ DATABASE_URL: 'mysql://x', S3_BUCKET: 'b' })).toThrow(/DATABASE_URL[\s\S]*SMTP_URL/);
 	});
 });

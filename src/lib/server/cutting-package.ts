@@ -60,13 +60,33 @@ export async function sendCuttingPackage(database: Database, order: PackageOrder
 			]
 		})
 	);
-	const details: FlatParams = { quantity: String(order.quantity), material: spec.materialLabel, thickness, notes: order.notes, dxf: dxfName, spec: specName };
+	const details: FlatParams = {
+		quantity: String(order.quantity),
+		material: spec.materialLabel,
+		thickness,
+		notes: order.notes,
+		dxf: dxfName,
+		spec: specName
+	};
 	return database.transaction(async (tx) => {
 		const [row] = await tx
 			.insert(cuttingPackage)
-			.values({ buildId: order.build.id, designId: order.design.id, revision: order.revision, sentTo: order.to, details, messageId, sentBy: order.sender.id })
+			.values({
+				buildId: order.build.id,
+				designId: order.design.id,
+				revision: order.revision,
+				sentTo: order.to,
+				details,
+				messageId,
+				sentBy: order.sender.id
+			})
 			.returning({ id: cuttingPackage.id, createdAt: cuttingPackage.createdAt });
-		await logActivity(tx, { buildId: order.build.id, actorId: order.sender.id, kind: 'cutting-package', summary: `Cutting package for “${order.design.name}” revision ${order.revision} (${order.quantity} off) sent to ${order.to}` });
+		await logActivity(tx, {
+			buildId: order.build.id,
+			actorId: order.sender.id,
+			kind: 'cutting-package',
+			summary: `Cutting package for “${order.design.name}” revision ${order.revision} (${order.quantity} off) sent to ${order.to}`
+		});
 		return { id: row!.id, messageId, files: [dxfName, specName] };
 	});
 }

@@ -19,12 +19,25 @@ export const revisionColumns = {
 	createdAt: wheelRevision.createdAt
 };
 
-export type Revision = { number: number; params: FlatParams; message: string; restoredFrom: number | null; author: string | null; createdAt: Date };
+export type Revision = {
+	number: number;
+	params: FlatParams;
+	message: string;
+	restoredFrom: number | null;
+	author: string | null;
+	createdAt: Date;
+};
 
 export async function designsOf(database: Queryable, buildId: string) {
 	const head = max(wheelRevision.number);
 	return database
-		.select({ id: wheelDesign.id, name: wheelDesign.name, headRevision: head, createdAt: wheelDesign.createdAt, updatedAt: wheelDesign.updatedAt })
+		.select({
+			id: wheelDesign.id,
+			name: wheelDesign.name,
+			headRevision: head,
+			createdAt: wheelDesign.createdAt,
+			updatedAt: wheelDesign.updatedAt
+		})
 		.from(wheelDesign)
 		.leftJoin(wheelRevision, eq(wheelRevision.designId, wheelDesign.id))
 		.where(eq(wheelDesign.buildId, buildId))
@@ -39,13 +52,27 @@ export async function getDesign(database: Queryable, designId: string) {
 
 /** Every revision of a design, newest first. */
 export async function revisionsOf(database: Queryable, designId: string): Promise<Revision[]> {
-	return database.select(revisionColumns).from(wheelRevision).leftJoin(user, eq(user.id, wheelRevision.authorId)).where(eq(wheelRevision.designId, designId)).orderBy(desc(wheelRevision.number));
+	return database
+		.select(revisionColumns)
+		.from(wheelRevision)
+		.leftJoin(user, eq(user.id, wheelRevision.authorId))
+		.where(eq(wheelRevision.designId, designId))
+		.orderBy(desc(wheelRevision.number));
 }
 
 /** One revision, or the newest when `number` is not given. */
 export async function revisionOf(database: Queryable, designId: string, number?: number): Promise<Revision | undefined> {
-	const where = number === undefined ? eq(wheelRevision.designId, designId) : and(eq(wheelRevision.designId, designId), eq(wheelRevision.number, number));
-	const [row] = await database.select(revisionColumns).from(wheelRevision).leftJoin(user, eq(user.id, wheelRevision.authorId)).where(where).orderBy(desc(wheelRevision.number)).limit(1);
+	const where =
+		number === undefined
+			? eq(wheelRevision.designId, designId)
+			: and(eq(wheelRevision.designId, designId), eq(wheelRevision.number, number));
+	const [row] = await database
+		.select(revisionColumns)
+		.from(wheelRevision)
+		.leftJoin(user, eq(user.id, wheelRevision.authorId))
+		.where(where)
+		.orderBy(desc(wheelRevision.number))
+		.limit(1);
 	return row;
 }
 
@@ -64,13 +91,20 @@ export function checkDesignParams(params: FlatParams): { ok: true; params: FlatP
 export type CreateDesign = { ok: true; designId: string } | { ok: false; reason: 'name-taken' } | Invalid;
 
 /** A new design with its revision 1, checked as every revision is. */
-export async function createDesign(database: Database, buildId: string, input: { name: string; params: FlatParams; message: string }, authorId: string): Promise<CreateDesign> {
+export async function createDesign(
+	database: Database,
+	buildId: string,
+	input: { name: string; params: FlatParams; message: string },
+	authorId: string
+): Promise<CreateDesign> {
 	const checked = checkDesignParams(input.params);
 	if (!checked.ok) return checked;
 	try {
 		return await database.transaction(async (tx) => {
 			const [design] = await tx.insert(wheelDesign).values({ buildId, name: input.name }).returning({ id: wheelDesign.id });
-			await tx.insert(wheelRevision).values({ designId: design!.id, number: 1, params: checked.params, message: input.message || 'First revision', authorId });
+			await tx
+				.insert(wheelRevision)
+				.values({ designId: design!.id, number: 1, params: checked.params, message: input.message || 'First revision', authorId });
 			await logActivity(tx, { buildId, actorId: authorId, kind: 'design', summary: `New wheel design “${input.name}”, revision 1` });
 			await touchBuild(tx, buildId);
 			return { ok: true as const, designId: design!.id };
@@ -91,7 +125,12 @@ export type SaveResult = { ok: true; revision: Revision } | { ok: false; reason:
  * stale when the design has moved on since that base; the answer then carries the newest revision
  * so the caller can choose.
  */
-export async function saveRevision(database: Database, design: DesignRef, input: { baseRevision: number; params: FlatParams; message: string }, authorId: string): Promise<SaveResult> {
+export async function saveRevision(
+	database: Database,
+	design: DesignRef,
+	input: { baseRevision: number; params: FlatParams; message: string },
+	authorId: string
+): Promise<SaveResult> {
 	const checked = checkDesignParams(input.params);
 	if (!checked.ok) return checked;
 	return writeRevision(database, design, { ...input, params: checked.params }, authorId);
@@ -104,13 +143,23 @@ export type RestoreResult = SaveResult | { ok: false; reason: 'not-found' };
  * `baseRevision`. They pass today's wheel check first, as any save does; a revision saved under
  * looser rules is refused by field rather than written again.
  */
-export async function restoreRevision(database: Database, design: DesignRef, input: { revision: number; baseRevision: number; message?: string }, authorId: string): Promise<RestoreResult> {
+export async function restoreRevision(
+	database: Database,
+	design: DesignRef,
+	input: { revision: number; baseRevision: number; message?: string },
+	authorId: string
+): Promise<RestoreResult> {
 	const old = await revisionOf(database, design.id, input.revision);
 	if (!old) return { ok: false, reason: 'not-found' };
 	const checked = checkDesignParams(old.params);
 	if (!checked.ok) return checked;
 	const message = input.message ?? `Restores revision ${old.number}`;
-	return writeRevision(database, design, { baseRevision: input.baseRevision, params: checked.params, message, restoredFrom: old.number }, authorId);
+	return writeRevision(
+		database,
+		design,
+		{ baseRevision: input.baseRevision, params: checked.params, message, restoredFrom: old.number },
+		authorId
+	);
 }
 
 /** The one insert of a revision, with its activity entry, in one transaction; `params` already checked. */
@@ -125,9 +174,18 @@ async function writeRevision(
 		await database.transaction(async (tx) => {
 			const head = await revisionOf(tx, design.id);
 			if (!head || head.number !== input.baseRevision) throw new Stale();
-			await tx.insert(wheelRevision).values({ designId: design.id, number, params: input.params, message: input.message, restoredFrom: input.restoredFrom ?? null, authorId });
+			await tx.insert(wheelRevision).values({
+				designId: design.id,
+				number,
+				params: input.params,
+				message: input.message,
+				restoredFrom: input.restoredFrom ?? null,
+				authorId
+			});
 			await tx.update(wheelDesign).set({ updatedAt: new Date() }).where(eq(wheelDesign.id, design.id));
-			const summary = input.restoredFrom ? `“${design.name}” revision ${number} restores revision ${input.restoredFrom}` : `“${design.name}” revision ${number}${input.message ? `: ${input.message}` : ''}`;
+			const summary = input.restoredFrom
+				? `“${design.name}” revision ${number} restores revision ${input.restoredFrom}`
+				: `“${design.name}” revision ${number}${input.message ? `: ${input.message}` : ''}`;
 			await logActivity(tx, { buildId: design.buildId, actorId: authorId, kind: input.restoredFrom ? 'restore' : 'revision', summary });
 			await touchBuild(tx, design.buildId);
 		});

@@ -29,25 +29,54 @@ export type MailKind = 'sign-in-link' | 'sign-up' | 'reset' | 'invitation' | 'cu
 export type MailVerdict = { ok: true } | { ok: false; by: 'address' | 'client' | 'workshop'; retryAfterS: number };
 
 /** Counts one e-mail-sending request; refused ones give their counts back (they send nothing). */
-export async function reserveMail(database: Queryable, kind: MailKind, who: { address: string; client: string; workshopId?: string }): Promise<MailVerdict> {
+export async function reserveMail(
+	database: Queryable,
+	kind: MailKind,
+	who: { address: string; client: string; workshopId?: string }
+): Promise<MailVerdict> {
 	const checks = [
-		{ by: 'address' as const, key: `mail:${kind}:to:${who.address.toLowerCase()}`, limit: mailLimits.perAddress, windowMs: mailLimits.windowMs },
+		{
+			by: 'address' as const,
+			key: `mail:${kind}:to:${who.address.toLowerCase()}`,
+			limit: mailLimits.perAddress,
+			windowMs: mailLimits.windowMs
+		},
 		{ by: 'client' as const, key: `mail:client:${who.client}`, limit: perClientLimit(), windowMs: mailLimits.windowMs },
-		...(who.workshopId ? [{ by: 'workshop' as const, key: `mail:${kind}:workshop:${who.workshopId}`, limit: mailLimits.packagesPerWorkshop, windowMs: mailLimits.packageWindowMs }] : [])
+		...(who.workshopId
+			? [
+					{
+						by: 'workshop' as const,
+						key: `mail:${kind}:workshop:${who.workshopId}`,
+						limit: mailLimits.packagesPerWorkshop,
+						windowMs: mailLimits.packageWindowMs
+					}
+				]
+			: [])
 	];
 	let refused: MailVerdict | null = null;
 	for (const check of checks) {
 		const { count, windowStart } = await countInWindow(database, check.key, check.windowMs);
 		if (count > check.limit && !refused) {
-			refused = { ok: false, by: check.by, retryAfterS: Math.max(1, Math.ceil((windowStart.getTime() + check.windowMs - Date.now()) / 1000)) };
+			refused = {
+				ok: false,
+				by: check.by,
+				retryAfterS: Math.max(1, Math.ceil((windowStart.getTime() + check.windowMs - Date.now()) / 1000))
+			};
 		}
 	}
 	if (!refused) return { ok: true };
-	await releaseAttempt(database, checks.map((c) => c.key));
+	await releaseAttempt(
+		database,
+		checks.map((c) => c.key)
+	);
 	return refused;
 }
 
-const whose = { address: 'Too many e-mails were asked for this address', client: 'Too many e-mails were asked for from your network', workshop: 'This workshop has sent as many cutting packages as it may in an hour' } as const;
+const whose = {
+	address: 'Too many e-mails were asked for this address',
+	client: 'Too many e-mails were asked for from your network',
+	workshop: 'This workshop has sent as many cutting packages as it may in an hour'
+} as const;
 
 /** What a refused request is told: why, and when to try again. Nothing was sent. */
 export function mailRefusal(verdict: Extract<MailVerdict, { ok: false }>): string {
@@ -67,5 +96,9 @@ export function throttledFrom(target: URL): string | null {
 	if (target.searchParams.get('error') !== 'MailThrottled') return null;
 	const by = target.searchParams.get('by');
 	const retryAfterS = Number(target.searchParams.get('retry'));
-	return mailRefusal({ ok: false, by: by === 'client' || by === 'workshop' ? by : 'address', retryAfterS: Number.isFinite(retryAfterS) && retryAfterS > 0 ? Math.min(retryAfterS, 3600) : 900 });
+	return mailRefusal({
+		ok: false,
+		by: by === 'client' || by === 'workshop' ? by : 'address',
+		retryAfterS: Number.isFinite(retryAfterS) && retryAfterS > 0 ? Math.min(retryAfterS, 3600) : 900
+	});
 }

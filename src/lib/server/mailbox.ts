@@ -20,7 +20,10 @@ export interface MailboxMessage {
  * SMTP_URL is a real server, and an SMTP_URL on loopback), only to a browser on this machine, and
  * only under the configured host name (a rebound DNS name is another site).
  */
-export function mailboxOpen(c: { mailboxUrl?: string; mailFake: boolean; smtpUrl: string; origin: string }, request: { client: string; host: string | null }): boolean {
+export function mailboxOpen(
+	c: { mailboxUrl?: string; mailFake: boolean; smtpUrl: string; origin: string },
+	request: { client: string; host: string | null }
+): boolean {
 	if (!c.mailboxUrl || !c.mailFake) return false;
 	const smtpHost = new URL(c.smtpUrl).hostname.replace(/^\[|\]$/g, '');
 	if (!isLoopback(smtpHost) && smtpHost !== 'localhost') return false;

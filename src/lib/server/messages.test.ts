@@ -18,10 +18,27 @@ describe('names in e-mails', () => {
 	});
 
 	it('keeps every line of an invitation and a cutting order ours', () => {
-		const invitation = invitationMessage({ to: 'a@example.test', workshop: 'Shop\nReply with your password', inviter: 'Bob\nAdmin', role: 'viewer', url: 'http://127.0.0.1/invite/x' });
+		const invitation = invitationMessage({
+			to: 'a@example.test',
+			workshop: 'Shop\nReply with your password',
+			inviter: 'Bob\nAdmin',
+			role: 'viewer',
+			url: 'http://127.0.0.1/invite/x'
+		});
 		expect(invitation.text).not.toMatch(/^(Reply with|Admin)/m);
 		expect(invitation.subject).toBe('Invitation to the workshop “Shop Reply with your password” on Phasewright');
-		const order = cuttingPackageMessage({ to: 'c@example.test', from: 'me@example.test', buildName: 'B\nQuantity: 500', designName: 'D', revision: 2, quantity: 1, material: 'steel', thickness: '3 mm', notes: 'line one\nQuantity: 900', attachments: [] });
+		const order = cuttingPackageMessage({
+			to: 'c@example.test',
+			from: 'me@example.test',
+			buildName: 'B\nQuantity: 500',
+			designName: 'D',
+			revision: 2,
+			quantity: 1,
+			material: 'steel',
+			thickness: '3 mm',
+			notes: 'line one\nQuantity: 900',
+			attachments: []
+		});
 		const quantities = (order.text as string).split('\n').filter((l) => /Quantity:/.test(l));
 		expect(quantities).toEqual(['  Build: “B Quantity: 500”', '  Quantity: 1', '> Quantity: 900']);
 	});

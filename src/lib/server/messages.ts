@@ -27,7 +27,8 @@ export function quotedBlock(text: string): string {
 		.join('\n');
 }
 
-const footer = '\n\n-- \nPhasewright: trigger wheels, degree tapes and timing for ECU conversions.\nIf you did not ask for this, ignore this message; nothing changes.';
+const footer =
+	'\n\n-- \nPhasewright: trigger wheels, degree tapes and timing for ECU conversions.\nIf you did not ask for this, ignore this message; nothing changes.';
 
 export function signInLinkMessage(to: string, url: string): Message {
 	return {
@@ -62,7 +63,18 @@ export function invitationMessage(input: { to: string; workshop: string; inviter
 	};
 }
 
-export function cuttingPackageMessage(input: { to: string; from: string | null; buildName: string; designName: string; revision: number; quantity: number; material: string; thickness: string; notes: string; attachments: { filename: string; content: Buffer; contentType: string }[] }): Message {
+export function cuttingPackageMessage(input: {
+	to: string;
+	from: string | null;
+	buildName: string;
+	designName: string;
+	revision: number;
+	quantity: number;
+	material: string;
+	thickness: string;
+	notes: string;
+	attachments: { filename: string; content: Buffer; contentType: string }[];
+}): Message {
 	return {
 		to: input.to,
 		replyTo: input.from ?? undefined,

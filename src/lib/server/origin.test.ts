@@ -3,7 +3,12 @@ import { hostRefusal, isLoopback } from './origin';
 
 const origin = 'https://phasewright.example';
 const ask = (headers: Record<string, string>, more: { client?: string; path?: string; hostHeader?: string } = {}) =>
-	hostRefusal(new Headers(headers), { origin, client: () => more.client ?? '203.0.113.9', path: more.path ?? '/signin', hostHeader: more.hostHeader });
+	hostRefusal(new Headers(headers), {
+		origin,
+		client: () => more.client ?? '203.0.113.9',
+		path: more.path ?? '/signin',
+		hostHeader: more.hostHeader
+	});
 
 describe('requests for another host name (DNS rebinding, links from headers)', () => {
 	it('takes the configured host, in any case, with or without its default port', () => {

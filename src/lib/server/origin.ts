@@ -71,10 +71,13 @@ export const hostHandle: Handle = async ({ event, resolve }) => {
 		path: event.url.pathname
 	});
 	if (!refused) return resolve(event);
-	return new Response(`421 Misdirected Request: this server answers only for ${config().origin} (the request's ${refused} names another).\n`, {
-		status: 421,
-		headers: { 'content-type': 'text/plain; charset=utf-8' }
-	});
+	return new Response(
+		`421 Misdirected Request: this server answers only for ${config().origin} (the request's ${refused} names another).\n`,
+		{
+			status: 421,
+			headers: { 'content-type': 'text/plain; charset=utf-8' }
+		}
+	);
 };
 
 /** Request headers for Auth.js's own requests: the configured host, nothing forwarded (Auth.js reads them for its links). */

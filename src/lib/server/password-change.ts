@@ -25,7 +25,10 @@ export async function changePassword(
 	const passwordHash = await hash(next);
 	await database.transaction(async (tx) => {
 		const [row] = await tx.select({ emailVerified: user.emailVerified }).from(user).where(eq(user.id, me.id)).for('update');
-		await tx.update(user).set({ passwordHash, passwordConfirmedAt: row?.emailVerified ? new Date() : null }).where(eq(user.id, me.id));
+		await tx
+			.update(user)
+			.set({ passwordHash, passwordConfirmedAt: row?.emailVerified ? new Date() : null })
+			.where(eq(user.id, me.id));
 		await endAllSessions(tx, me.id);
 	});
 	return { ok: true };

@@ -16,7 +16,12 @@ const keep = (params: FlatParams) => Object.fromEntries(Object.entries(params).f
 /** The saved record's id, or the tool's refusals, named by the tool's own parameters. */
 export type RecordWrite = { ok: true; id: string } | { ok: false; refusals: Refusal[] };
 
-export async function saveTdcRecord(database: Database, buildId: string, input: { label: string; params: FlatParams }, authorId: string): Promise<RecordWrite> {
+export async function saveTdcRecord(
+	database: Database,
+	buildId: string,
+	input: { label: string; params: FlatParams },
+	authorId: string
+): Promise<RecordWrite> {
 	const found = checkTdc(input.params);
 	if (!found.ok) return found;
 	if (found.value.kind === 'rim') {
@@ -30,20 +35,41 @@ export async function saveTdcRecord(database: Database, buildId: string, input: 
 	// tdc_deg: degrees ATDC of the scale's 0, BTDC negative, on every scale.
 	const tdcDeg = String(Math.round(result.tdcDeg * 1000) / 1000);
 	return database.transaction(async (tx) => {
-		const [row] = await tx.insert(tdcRecord).values({ buildId, label: input.label, params, tdcDeg, authorId }).returning({ id: tdcRecord.id });
-		await logActivity(tx, { buildId, actorId: authorId, kind: 'tdc', summary: `TDC record${input.label ? ` “${input.label}”` : ''}: marks ${sideText(marks.a.atdcDeg, marks.scale)} and ${sideText(marks.b.atdcDeg, marks.scale)}, TDC ${sideText(result.tdcDeg, marks.scale)} of the scale's 0` });
+		const [row] = await tx
+			.insert(tdcRecord)
+			.values({ buildId, label: input.label, params, tdcDeg, authorId })
+			.returning({ id: tdcRecord.id });
+		await logActivity(tx, {
+			buildId,
+			actorId: authorId,
+			kind: 'tdc',
+			summary: `TDC record${input.label ? ` “${input.label}”` : ''}: marks ${sideText(marks.a.atdcDeg, marks.scale)} and ${sideText(marks.b.atdcDeg, marks.scale)}, TDC ${sideText(result.tdcDeg, marks.scale)} of the scale's 0`
+		});
 		await touchBuild(tx, buildId);
 		return { ok: true as const, id: row!.id };
 	});
 }
 
-export async function saveTape(database: Database, buildId: string, input: { label: string; params: FlatParams }, authorId: string): Promise<RecordWrite> {
+export async function saveTape(
+	database: Database,
+	buildId: string,
+	input: { label: string; params: FlatParams },
+	authorId: string
+): Promise<RecordWrite> {
 	const parsed = checkTape(input.params);
 	if (!parsed.ok) return parsed;
 	const hub = parsed.value.spec.hubDiameterMm;
 	return database.transaction(async (tx) => {
-		const [row] = await tx.insert(degreeTape).values({ buildId, label: input.label, params: keep(input.params), authorId }).returning({ id: degreeTape.id });
-		await logActivity(tx, { buildId, actorId: authorId, kind: 'tape', summary: `Degree tape${input.label ? ` “${input.label}”` : ''} for a ${Math.round(hub * 100) / 100} mm hub` });
+		const [row] = await tx
+			.insert(degreeTape)
+			.values({ buildId, label: input.label, params: keep(input.params), authorId })
+			.returning({ id: degreeTape.id });
+		await logActivity(tx, {
+			buildId,
+			actorId: authorId,
+			kind: 'tape',
+			summary: `Degree tape${input.label ? ` “${input.label}”` : ''} for a ${Math.round(hub * 100) / 100} mm hub`
+		});
 		await touchBuild(tx, buildId);
 		return { ok: true as const, id: row!.id };
 	});
@@ -51,7 +77,14 @@ export async function saveTape(database: Database, buildId: string, input: { lab
 
 export async function tdcRecordsOf(database: Queryable, buildId: string) {
 	return database
-		.select({ id: tdcRecord.id, label: tdcRecord.label, params: tdcRecord.params, tdcDeg: tdcRecord.tdcDeg, author: user.email, createdAt: tdcRecord.createdAt })
+		.select({
+			id: tdcRecord.id,
+			label: tdcRecord.label,
+			params: tdcRecord.params,
+			tdcDeg: tdcRecord.tdcDeg,
+			author: user.email,
+			createdAt: tdcRecord.createdAt
+		})
 		.from(tdcRecord)
 		.leftJoin(user, eq(user.id, tdcRecord.authorId))
 		.where(eq(tdcRecord.buildId, buildId))
@@ -67,12 +100,26 @@ export async function tapesOf(database: Queryable, buildId: string) {
 		.orderBy(desc(degreeTape.createdAt));
 }
 
-export async function deleteRecord(database: Database, kind: 'tdc' | 'tape', buildId: string, id: string, actorId: string): Promise<boolean> {
+export async function deleteRecord(
+	database: Database,
+	kind: 'tdc' | 'tape',
+	buildId: string,
+	id: string,
+	actorId: string
+): Promise<boolean> {
 	const table = kind === 'tdc' ? tdcRecord : degreeTape;
 	return database.transaction(async (tx) => {
-		const rows = await tx.delete(table).where(and(eq(table.id, id), eq(table.buildId, buildId))).returning({ label: table.label });
+		const rows = await tx
+			.delete(table)
+			.where(and(eq(table.id, id), eq(table.buildId, buildId)))
+			.returning({ label: table.label });
 		if (!rows[0]) return false;
-		await logActivity(tx, { buildId, actorId, kind, summary: `${kind === 'tdc' ? 'TDC record' : 'Degree tape'}${rows[0].label ? ` “${rows[0].label}”` : ''} removed` });
+		await logActivity(tx, {
+			buildId,
+			actorId,
+			kind,
+			summary: `${kind === 'tdc' ? 'TDC record' : 'Degree tape'}${rows[0].label ? ` “${rows[0].label}”` : ''} removed`
+		});
 		return true;
 	});
 }

@@ -9,7 +9,8 @@ import { json, type Handle } from '@sveltejs/kit';
 export const nonPagePolicy = "default-src 'none'; frame-ancestors 'none'; base-uri 'none'; form-action 'none'";
 
 /** The phone camera is used from the upload form (<input capture>); nothing else is needed. */
-export const permissionsPolicy = 'camera=(self), microphone=(), geolocation=(), payment=(), usb=(), serial=(), bluetooth=(), midi=(), display-capture=()';
+export const permissionsPolicy =
+	'camera=(self), microphone=(), geolocation=(), payment=(), usb=(), serial=(), bluetooth=(), midi=(), display-capture=()';
 
 export const alwaysHeaders: Record<string, string> = {
 	'x-content-type-options': 'nosniff',
@@ -43,10 +44,16 @@ export const securityHeadersHandle: Handle = async ({ event, resolve }) => {
 	// front of the app can open the JSON API to other sites. Clients without a browser send no Origin.
 	const origin = event.request.headers.get('origin');
 	if (writes.has(event.request.method) && event.url.pathname.startsWith('/api/') && origin !== null && origin !== event.url.origin) {
-		return withHeaders(json({ message: `Cross-origin writes are refused (Origin ${origin} is not ${event.url.origin}).`, code: 'cross-origin' }, { status: 403 }), {
-			...alwaysHeaders,
-			'content-security-policy': nonPagePolicy
-		});
+		return withHeaders(
+			json(
+				{ message: `Cross-origin writes are refused (Origin ${origin} is not ${event.url.origin}).`, code: 'cross-origin' },
+				{ status: 403 }
+			),
+			{
+				...alwaysHeaders,
+				'content-security-policy': nonPagePolicy
+			}
+		);
 	}
 	const response = await resolve(event);
 	const headers: Record<string, string> = { ...alwaysHeaders };

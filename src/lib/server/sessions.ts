@@ -10,7 +10,9 @@ export const sessionLifetimeS = 30 * 24 * 60 * 60;
 
 /** A new row for a browser that just signed in; its id goes into the session cookie. Old rows of the user go. */
 export async function startSession(database: Queryable, userId: string): Promise<string> {
-	await database.delete(userSession).where(and(eq(userSession.userId, userId), lt(userSession.createdAt, new Date(Date.now() - sessionLifetimeS * 1000))));
+	await database
+		.delete(userSession)
+		.where(and(eq(userSession.userId, userId), lt(userSession.createdAt, new Date(Date.now() - sessionLifetimeS * 1000))));
 	const [row] = await database.insert(userSession).values({ userId }).returning({ id: userSession.id });
 	return row!.id;
 }

@@ -39,7 +39,11 @@ export async function passwordSignIn(event: RequestEvent, email: string, passwor
 }
 
 /** Sends a sign-in link by e-mail (Auth.js makes and stores the token), unless the e-mail throttle refuses it. */
-export async function sendSignInLink(event: RequestEvent, email: string, redirectTo: string): Promise<{ ok: true } | { ok: false; message: string }> {
+export async function sendSignInLink(
+	event: RequestEvent,
+	email: string,
+	redirectTo: string
+): Promise<{ ok: true } | { ok: false; message: string }> {
 	const target = await runAuthAction(signIn, event, { providerId: 'nodemailer', email, redirectTo });
 	const refused = throttledFrom(target);
 	return refused ? { ok: false, message: refused } : { ok: true };

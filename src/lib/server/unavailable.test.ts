@@ -62,7 +62,7 @@ describe('unavailablePage', () => {
 	});
 
 	// CSP Level 3 (W3C), "hash-source": the base64 SHA-256 of the inline style element's text.
-	it("lets its inline style through its own policy by hash, and nothing else", () => {
+	it('lets its inline style through its own policy by hash, and nothing else', () => {
 		const html = unavailablePage('light');
 		const inline = /<style>([\s\S]*?)<\/style>/.exec(html)![1]!;
 		const hash = createHash('sha256').update(inline, 'utf8').digest('base64');

@@ -20,7 +20,8 @@ const sqlStates = new Set(['08000', '08001', '08003', '08004', '08006', '08P01',
 // Node's socket errors when the server's port is closed, reset or silent.
 const socketCodes = new Set(['ECONNREFUSED', 'ECONNRESET', 'EPIPE', 'ETIMEDOUT', 'EHOSTUNREACH', 'ENETUNREACH']);
 // node-postgres reports a dropped connection and a full pool's wait by message only.
-const driverMessages = /connection terminated|timeout exceeded when trying to connect|not queryable|connection is closed|database system is (starting up|shutting down|in recovery mode)/i;
+const driverMessages =
+	/connection terminated|timeout exceeded when trying to connect|not queryable|connection is closed|database system is (starting up|shutting down|in recovery mode)/i;
 
 /** True when the error, or anything it wraps (Drizzle and Auth.js keep the driver's error as `cause`), is a lost database connection. */
 export function isUnavailable(err: unknown, depth = 0): boolean {

@@ -73,8 +73,7 @@ export async function invitationByToken(database: Queryable, token: string) {
 }
 
 export type AcceptResult =
-	| { ok: true; workshopId: string; role: Role }
-	| { ok: false; reason: Exclude<InvitationState, 'valid'> | 'wrong-account' | 'unconfirmed' };
+	{ ok: true; workshopId: string; role: Role } | { ok: false; reason: Exclude<InvitationState, 'valid'> | 'wrong-account' | 'unconfirmed' };
 
 const rank: Record<Role, number> = { viewer: 1, editor: 2, owner: 3 };
 
@@ -85,7 +84,11 @@ const rank: Record<Role, number> = { viewer: 1, editor: 2, owner: 3 };
  */
 export async function acceptInvitation(database: Database, token: string, by: { id: string; email: string }): Promise<AcceptResult> {
 	return database.transaction(async (tx) => {
-		const [inv] = await tx.select().from(invitation).where(eq(invitation.tokenHash, hashToken(token))).for('update');
+		const [inv] = await tx
+			.select()
+			.from(invitation)
+			.where(eq(invitation.tokenHash, hashToken(token)))
+			.for('update');
 		if (!inv) return { ok: false, reason: 'unknown' };
 		if (inv.acceptedAt) return { ok: false, reason: 'used' };
 		if (inv.expiresAt <= new Date()) return { ok: false, reason: 'expired' };
@@ -120,7 +123,10 @@ export async function setRole(database: Database, workshopId: string, userId: st
 		const target = rows.find((r) => r.userId === userId);
 		if (!target) return { ok: false, reason: 'not-a-member' };
 		if (target.role === 'owner' && role !== 'owner' && owners(rows) <= 1) return { ok: false, reason: 'last-owner' };
-		await tx.update(member).set({ role }).where(and(eq(member.workshopId, workshopId), eq(member.userId, userId)));
+		await tx
+			.update(member)
+			.set({ role })
+			.where(and(eq(member.workshopId, workshopId), eq(member.userId, userId)));
 		return { ok: true };
 	});
 }

@@ -32,7 +32,10 @@ function independentBalance(spec: WheelSpec) {
 	const polygons = cutContours(drawWheel(spec)).map((c) => polygon(c, 0.0005));
 	const [outer, ...cutouts] = polygons.map(shoelace);
 	// Chords lose at most their sagitta times their length of area (common geometry).
-	const perimeter = polygons.reduce((sum, p) => sum + p.reduce((l, u, i) => l + Math.hypot(p[(i + 1) % p.length]!.x - u.x, p[(i + 1) % p.length]!.y - u.y), 0), 0);
+	const perimeter = polygons.reduce(
+		(sum, p) => sum + p.reduce((l, u, i) => l + Math.hypot(p[(i + 1) % p.length]!.x - u.x, p[(i + 1) % p.length]!.y - u.y), 0),
+		0
+	);
 	const abs = (m: { a: number; mx: number; my: number }) => (m.a < 0 ? { a: -m.a, mx: -m.mx, my: -m.my } : m);
 	const net = cutouts.map(abs).reduce((n, c) => ({ a: n.a - c.a, mx: n.mx - c.mx, my: n.my - c.my }), abs(outer!));
 	const gPerMm2 = (spec.densityGcm3 / 1000) * spec.thicknessMm; // g/cm³ → g/mm³, times the thickness
@@ -81,8 +84,17 @@ const wheels = fc
 			od: L(od),
 			depth: L(g.depth * od),
 			bore: L(bore),
-			...(g.keyway && bore > 8 ? { keyway: 'custom', keyWidth: L(bore / 4), keyDepth: L(bore / 8), keywayAngle: num(g.keywayAngle, 2) } : {}),
-			...(g.bolts ? { bolts: String(g.bolts), pcd: L((bore / 2 + root) * 0.95), boltHole: L(Math.min(8, (root - bore / 2) * 0.15)), boltAngle: num(g.boltAngle, 2) } : {}),
+			...(g.keyway && bore > 8
+				? { keyway: 'custom', keyWidth: L(bore / 4), keyDepth: L(bore / 8), keywayAngle: num(g.keywayAngle, 2) }
+				: {}),
+			...(g.bolts
+				? {
+						bolts: String(g.bolts),
+						pcd: L((bore / 2 + root) * 0.95),
+						boltHole: L(Math.min(8, (root - bore / 2) * 0.15)),
+						boltAngle: num(g.boltAngle, 2)
+					}
+				: {}),
 			mark: g.mark === undefined ? 'none' : num(g.mark, 2),
 			label: g.label,
 			rotation: g.rotation,
@@ -139,7 +151,17 @@ describe('suggested balance holes', () => {
 	}, 120_000);
 
 	it('the 12-1 at G 1 and 15,000 rpm that rounding the hole left at 0.205 g·mm', () => {
-		const params: WheelParams = { teeth: '12', missing: '1', od: '60', depth: '4', bore: '15', thickness: '3', rpm: '15000', grade: '1', label: 'crank' };
+		const params: WheelParams = {
+			teeth: '12',
+			missing: '1',
+			od: '60',
+			depth: '4',
+			bore: '15',
+			thickness: '3',
+			rpm: '15000',
+			grade: '1',
+			label: 'crank'
+		};
 		const before = summarized(params)!;
 		const s = before.summary.balanceSuggestion!;
 		expect(s).not.toBeNull();

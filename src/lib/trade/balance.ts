@@ -6,7 +6,18 @@ import type { Running } from './checks';
 import { distanceToPolygon } from './clearance';
 import { contourMoments, polar, type Point } from './geometry';
 import { perMm3 } from './materials';
-import { clearanceMm, cutContours, drawDeg, drawWheel, holeCenters, innerRadius, placeLabel, rootRadius, type HoleCircle, type WheelSpec } from './wheel';
+import {
+	clearanceMm,
+	cutContours,
+	drawDeg,
+	drawWheel,
+	holeCenters,
+	innerRadius,
+	placeLabel,
+	rootRadius,
+	type HoleCircle,
+	type WheelSpec
+} from './wheel';
 import { deg, norm360, rad, type Units } from './units';
 
 export interface MassProperties {
@@ -80,7 +91,13 @@ export function balanceHoles(spec: WheelSpec, running: Running, units: Units, wi
 		if (hole < 0.5) return null;
 		// The size on its step, the circle takes up the difference.
 		const pcd = onStep((2 * moment) / ((Math.PI * hole * hole) / 4) / reach, step.pcd);
-		const holes: HoleCircle = { count, pcdMm: pcd, holeMm: hole, clockDeg: onStep(norm360(bare.heavyDeg - ((count - 1) / 2) * spacing), steps.angle), spacingDeg: count > 1 ? spacing : undefined };
+		const holes: HoleCircle = {
+			count,
+			pcdMm: pcd,
+			holeMm: hole,
+			clockDeg: onStep(norm360(bare.heavyDeg - ((count - 1) / 2) * spacing), steps.angle),
+			spacingDeg: count > 1 ? spacing : undefined
+		};
 		const r = pcd / 2;
 		if (r - hole / 2 < inner + margin - 1e-9 || r + hole / 2 > root - margin + 1e-9) return null;
 		const centers = holeCenters(spec, holes);

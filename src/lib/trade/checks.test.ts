@@ -15,10 +15,13 @@ describe('refusals name the field and the range that would work', () => {
 
 	it('tooth roots must stay outside the bore and keyway', () => {
 		const [r] = refusals(exampleSpec({ depthMm: 42 }), 'mm');
-		expect(r).toEqual({ field: 'depth', message: 'depth: more than 0 and less than 39.00 mm, so the tooth roots keep 1.00 mm from the bore and keyway' });
+		expect(r).toEqual({
+			field: 'depth',
+			message: 'depth: more than 0 and less than 39.00 mm, so the tooth roots keep 1.00 mm from the bore and keyway'
+		});
 	});
 
-	it('ranges come in the caller\'s units', () => {
+	it("ranges come in the caller's units", () => {
 		const [r] = refusals(exampleSpec({ depthMm: 42 }), 'in');
 		expect(r!.message).toContain('1.535 in');
 	});
@@ -37,7 +40,9 @@ describe('refusals name the field and the range that would work', () => {
 	});
 
 	it('an N+1 wheel needs room for the extra tooth', () => {
-		expect(refusals(exampleSpec({ pattern: { kind: 'extra', teeth: 12, extraAfter: 0 }, duty: 0.5 }), 'mm').map((r) => r.field)).toEqual(['duty']);
+		expect(refusals(exampleSpec({ pattern: { kind: 'extra', teeth: 12, extraAfter: 0 }, duty: 0.5 }), 'mm').map((r) => r.field)).toEqual([
+			'duty'
+		]);
 	});
 });
 

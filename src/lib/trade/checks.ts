@@ -5,7 +5,17 @@ import { permissibleUnbalanceGmm, unbalanceForceN, type MassProperties } from '.
 import { deg, formatLength, type Units } from './units';
 import { circleClear, clearOfHole, clearOfLabel, holeBand } from './clearance';
 import { characterName, labelShape, missingCharacters } from './label';
-import { clearanceMm, gapOpenings, holeCenters, innerRadius, minLabelHeightMm, placeLabel, rootRadius, type HoleCircle, type WheelSpec } from './wheel';
+import {
+	clearanceMm,
+	gapOpenings,
+	holeCenters,
+	innerRadius,
+	minLabelHeightMm,
+	placeLabel,
+	rootRadius,
+	type HoleCircle,
+	type WheelSpec
+} from './wheel';
 
 export interface Refusal {
 	field: string;
@@ -22,8 +32,8 @@ export interface Warning {
 /** Tooth tips and depth a typical 12 mm Hall or VR sensor wants (from memory; check the sensor's data sheet). */
 export const sensorNeeds = { toothWidthMm: 3, toothDepthMm: 3 };
 
-
-const fillet = (radius: number, rho: number, convex: boolean) => (rho <= 0 ? 0 : deg(Math.asin(rho / (convex ? radius - rho : radius + rho))));
+const fillet = (radius: number, rho: number, convex: boolean) =>
+	rho <= 0 ? 0 : deg(Math.asin(rho / (convex ? radius - rho : radius + rho)));
 
 /** The largest value in (0, hi] for which `fits` holds, by bisection (fits is monotone). */
 function largest(fits: (v: number) => boolean, hi: number): number {
@@ -44,19 +54,34 @@ function holeRefusals(spec: WheelSpec, holes: HoleCircle, prefix: 'bolt' | 'bala
 	const size = prefix === 'bolt' ? 'boltHole' : 'balanceHole';
 	const clear = formatLength(clearanceMm, units);
 	if (lowPcd > highPcd) {
-		out.push({ field: size, message: `${size}: at most ${formatLength(Math.max(0, rootRadius(spec) - innerRadius(spec) - 2 * clearanceMm), units)}, to fit between the bore (with its keyway) and the tooth roots with ${clear} to spare on each side` });
+		out.push({
+			field: size,
+			message: `${size}: at most ${formatLength(Math.max(0, rootRadius(spec) - innerRadius(spec) - 2 * clearanceMm), units)}, to fit between the bore (with its keyway) and the tooth roots with ${clear} to spare on each side`
+		});
 	} else if (holes.pcdMm < lowPcd - 1e-9 || holes.pcdMm > highPcd + 1e-9) {
-		out.push({ field, message: `${field}: ${formatLength(lowPcd, units)} to ${formatLength(highPcd, units)}, so the holes keep ${clear} from the bore, keyway and tooth roots` });
+		out.push({
+			field,
+			message: `${field}: ${formatLength(lowPcd, units)} to ${formatLength(highPcd, units)}, so the holes keep ${clear} from the bore, keyway and tooth roots`
+		});
 	}
 	if (holes.count > 1 && !circleClear(spec, holes)) {
 		const count = prefix === 'bolt' ? 'bolts' : 'balanceCount';
-		out.push({ field: count, message: `${count}: the holes come closer than ${clear} to each other; use fewer or smaller holes, or a larger pitch circle` });
+		out.push({
+			field: count,
+			message: `${count}: the holes come closer than ${clear} to each other; use fewer or smaller holes, or a larger pitch circle`
+		});
 	}
 	const label = placeLabel(spec);
 	if (label && holeCenters(spec, holes).some((c) => !clearOfLabel(c, holes.holeMm, label))) {
 		const angle = prefix === 'bolt' ? 'boltAngle' : 'balanceAngle';
-		out.push({ field, message: `${field}: the ${prefix} holes come closer than ${clear} to the etched label; move them (${field}, ${angle}) or shorten the label` });
-		out.push({ field: 'label', message: `label: ${prefix} holes come closer than ${clear} to it; shorten it, or move the holes (${field}, ${angle})` });
+		out.push({
+			field,
+			message: `${field}: the ${prefix} holes come closer than ${clear} to the etched label; move them (${field}, ${angle}) or shorten the label`
+		});
+		out.push({
+			field: 'label',
+			message: `label: ${prefix} holes come closer than ${clear} to it; shorten it, or move the holes (${field}, ${angle})`
+		});
 	}
 	return out;
 }
@@ -67,10 +92,14 @@ export function refusals(spec: WheelSpec, units: Units): Refusal[] {
 	const p = spec.pattern;
 	const N = p.teeth;
 	out.push(...patternRefusals(p));
-	if (p.kind === 'extra' && spec.duty >= 0.5) out.push({ field: 'duty', message: 'duty: below 0.5 on an N+1 wheel, so the extra tooth fits between two regular ones' });
+	if (p.kind === 'extra' && spec.duty >= 0.5)
+		out.push({ field: 'duty', message: 'duty: below 0.5 on an N+1 wheel, so the extra tooth fits between two regular ones' });
 	const missingChars = missingCharacters(spec.label);
 	if (missingChars.length) {
-		out.push({ field: 'label', message: `label: the etching font has no ${missingChars.map(characterName).join(', ')}; use letters, digits and signs of Latin scripts` });
+		out.push({
+			field: 'label',
+			message: `label: the etching font has no ${missingChars.map(characterName).join(', ')}; use letters, digits and signs of Latin scripts`
+		});
 	}
 	if (out.length) return out;
 
@@ -81,7 +110,10 @@ export function refusals(spec: WheelSpec, units: Units): Refusal[] {
 	}
 	const maxDepth = R - inner - clearanceMm - Math.max(spec.tipRadiusMm, 0);
 	if (spec.depthMm >= maxDepth) {
-		out.push({ field: 'depth', message: `depth: more than 0 and less than ${formatLength(Math.max(0, maxDepth), units)}, so the tooth roots keep ${formatLength(clearanceMm, units)} from the bore and keyway` });
+		out.push({
+			field: 'depth',
+			message: `depth: more than 0 and less than ${formatLength(Math.max(0, maxDepth), units)}, so the tooth roots keep ${formatLength(clearanceMm, units)} from the bore and keyway`
+		});
 		return out;
 	}
 	const r = rootRadius(spec);
@@ -97,13 +129,22 @@ export function refusals(spec: WheelSpec, units: Units): Refusal[] {
 	const tipFits = (rho: number) => 2 * fillet(R, rho, true) < toothDeg * 0.98 && flankOk(rho, spec.rootRadiusMm) && rho < R / 2;
 	const rootFits = (rho: number) => 2 * fillet(r, rho, false) < Math.min(gapDeg, extraGap) * 0.98 && flankOk(spec.tipRadiusMm, rho);
 	if (spec.tipRadiusMm > 0 && !tipFits(spec.tipRadiusMm)) {
-		out.push({ field: 'tipRadius', message: `tipRadius: 0 to ${formatLength(largest(tipFits, spec.depthMm), units)} for teeth this narrow and deep` });
+		out.push({
+			field: 'tipRadius',
+			message: `tipRadius: 0 to ${formatLength(largest(tipFits, spec.depthMm), units)} for teeth this narrow and deep`
+		});
 	}
 	if (spec.rootRadiusMm > 0 && !rootFits(spec.rootRadiusMm)) {
-		out.push({ field: 'rootRadius', message: `rootRadius: 0 to ${formatLength(largest(rootFits, spec.depthMm), units)} for gaps this narrow` });
+		out.push({
+			field: 'rootRadius',
+			message: `rootRadius: 0 to ${formatLength(largest(rootFits, spec.depthMm), units)} for gaps this narrow`
+		});
 	}
 	if (labelShape(spec.label) && !placeLabel(spec)) {
-		out.push({ field: 'label', message: `label: no room to etch it at least ${formatLength(minLabelHeightMm, units)} high between the bore (with its keyway) and the tooth roots; shorten it or leave it empty` });
+		out.push({
+			field: 'label',
+			message: `label: no room to etch it at least ${formatLength(minLabelHeightMm, units)} high between the bore (with its keyway) and the tooth roots; shorten it or leave it empty`
+		});
 	}
 	if (spec.bolts) out.push(...holeRefusals(spec, spec.bolts, 'bolt', units));
 	if (spec.balanceHoles) out.push(...holeRefusals(spec, spec.balanceHoles, 'balance', units));
@@ -112,7 +153,10 @@ export function refusals(spec: WheelSpec, units: Units): Refusal[] {
 		const [bolts, balance] = [holeCenters(spec, spec.bolts), holeCenters(spec, spec.balanceHoles)];
 		const [b, h] = [spec.bolts.holeMm, spec.balanceHoles.holeMm];
 		if (balance.some((p) => bolts.some((q) => !clearOfHole(p, h, q, b)))) {
-			out.push({ field: 'balancePcd', message: `balancePcd: the balance holes come closer than ${formatLength(clearanceMm, units)} to the bolt holes; put them on another pitch circle or turn them with balanceAngle` });
+			out.push({
+				field: 'balancePcd',
+				message: `balancePcd: the balance holes come closer than ${formatLength(clearanceMm, units)} to the bolt holes; put them on another pitch circle or turn them with balanceAngle`
+			});
 		}
 	}
 	// One message per field: the answer keys them by field.
@@ -136,19 +180,34 @@ export function warnings(spec: WheelSpec, units: Units, running: Running, mass: 
 	const t = spec.thicknessMm;
 	const thick = formatLength(t, units);
 	if (tipWidth < t) {
-		out.push({ code: 'tooth-narrow-for-cutting', message: `Tooth tips are ${formatLength(tipWidth, units)} wide, narrower than the ${thick} material: a laser or waterjet holds features narrower than the thickness poorly (common cutting practice).` });
+		out.push({
+			code: 'tooth-narrow-for-cutting',
+			message: `Tooth tips are ${formatLength(tipWidth, units)} wide, narrower than the ${thick} material: a laser or waterjet holds features narrower than the thickness poorly (common cutting practice).`
+		});
 	}
 	if (rootGap < t) {
-		out.push({ code: 'gap-narrow-for-cutting', message: `The space between teeth is ${formatLength(rootGap, units)} at the root, narrower than the ${thick} material (common cutting practice: keep slots at least as wide as the thickness).` });
+		out.push({
+			code: 'gap-narrow-for-cutting',
+			message: `The space between teeth is ${formatLength(rootGap, units)} at the root, narrower than the ${thick} material (common cutting practice: keep slots at least as wide as the thickness).`
+		});
 	}
 	if (web < t) {
-		out.push({ code: 'web-thin', message: `Only ${formatLength(web, units)} of material between the bore or keyway and the tooth roots, less than the ${thick} thickness: the wheel may bend or crack there.` });
+		out.push({
+			code: 'web-thin',
+			message: `Only ${formatLength(web, units)} of material between the bore or keyway and the tooth roots, less than the ${thick} thickness: the wheel may bend or crack there.`
+		});
 	}
 	if (tipWidth < sensorNeeds.toothWidthMm) {
-		out.push({ code: 'tooth-narrow-for-sensor', message: `Tooth tips (${formatLength(tipWidth, units)}) are narrower than the ${formatLength(sensorNeeds.toothWidthMm, units)} a typical 12 mm Hall or VR sensor face wants (from memory; check your sensor's data sheet).` });
+		out.push({
+			code: 'tooth-narrow-for-sensor',
+			message: `Tooth tips (${formatLength(tipWidth, units)}) are narrower than the ${formatLength(sensorNeeds.toothWidthMm, units)} a typical 12 mm Hall or VR sensor face wants (from memory; check your sensor's data sheet).`
+		});
 	}
 	if (spec.depthMm < sensorNeeds.toothDepthMm) {
-		out.push({ code: 'tooth-shallow-for-sensor', message: `Teeth ${formatLength(spec.depthMm, units)} deep are shallower than the ${formatLength(sensorNeeds.toothDepthMm, units)} a typical sensor needs to see a clean edge (from memory; check the data sheet).` });
+		out.push({
+			code: 'tooth-shallow-for-sensor',
+			message: `Teeth ${formatLength(spec.depthMm, units)} deep are shallower than the ${formatLength(sensorNeeds.toothDepthMm, units)} a typical sensor needs to see a clean edge (from memory; check the data sheet).`
+		});
 	}
 	const permissible = permissibleUnbalanceGmm(running.gradeMmS, mass.massG / 1000, running.rpm);
 	if (mass.unbalanceGmm > permissible) {

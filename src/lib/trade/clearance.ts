@@ -24,14 +24,18 @@ export function distanceToPolygon(p: Point, poly: readonly Point[]): number {
 }
 
 /** The band of pitch-circle radii on which a hole of this size keeps its clearance from the bore, keyway and tooth roots. */
-export const holeBand = (spec: WheelSpec, holeMm: number): [number, number] => [innerRadius(spec) + clearanceMm + holeMm / 2, rootRadius(spec) - clearanceMm - holeMm / 2];
+export const holeBand = (spec: WheelSpec, holeMm: number): [number, number] => [
+	innerRadius(spec) + clearanceMm + holeMm / 2,
+	rootRadius(spec) - clearanceMm - holeMm / 2
+];
 
 /** Whether a hole at `center` keeps its clearance from the label's ink box. */
 export const clearOfLabel = (center: Point, holeMm: number, label: PlacedLabel | null) =>
 	!label || distanceToPolygon(center, label.corners) >= holeMm / 2 + clearanceMm - 1e-9;
 
 /** Whether two holes keep their clearance from each other. */
-export const clearOfHole = (p: Point, pMm: number, q: Point, qMm: number) => Math.hypot(p.x - q.x, p.y - q.y) >= (pMm + qMm) / 2 + clearanceMm - 1e-9;
+export const clearOfHole = (p: Point, pMm: number, q: Point, qMm: number) =>
+	Math.hypot(p.x - q.x, p.y - q.y) >= (pMm + qMm) / 2 + clearanceMm - 1e-9;
 
 /** Whether every pair of holes of one circle keeps its clearance. */
 export function circleClear(spec: WheelSpec, holes: HoleCircle): boolean {

@@ -6,8 +6,14 @@ import { closureError } from './geometry';
 
 /** One tooth alone as a closed annular sector, R outside, r inside, θ wide. */
 function sector(R: number, r: number, a0: number, a1: number): Contour {
-	const p0 = polar(r, a0), p1 = polar(R, a0), p2 = polar(R, a1), p3 = polar(r, a1);
-	return { kind: 'chain', segments: [line(p0, p1), arc({ x: 0, y: 0 }, R, a0, a1, true, p1, p2), line(p2, p3), arc({ x: 0, y: 0 }, r, a1, a0, false, p3, p0)] };
+	const p0 = polar(r, a0),
+		p1 = polar(R, a0),
+		p2 = polar(R, a1),
+		p3 = polar(r, a1);
+	return {
+		kind: 'chain',
+		segments: [line(p0, p1), arc({ x: 0, y: 0 }, R, a0, a1, true, p1, p2), line(p2, p3), arc({ x: 0, y: 0 }, r, a1, a0, false, p3, p0)]
+	};
 }
 
 describe('area and first moments', () => {
@@ -25,7 +31,11 @@ describe('area and first moments', () => {
 	});
 
 	it('of a circle: πr², centred', () => {
-		expect(contourMoments({ kind: 'circle', center: { x: 3, y: 4 }, radius: 2 })).toEqual({ area: 4 * Math.PI, mx: 12 * Math.PI, my: 16 * Math.PI });
+		expect(contourMoments({ kind: 'circle', center: { x: 3, y: 4 }, radius: 2 })).toEqual({
+			area: 4 * Math.PI,
+			mx: 12 * Math.PI,
+			my: 16 * Math.PI
+		});
 	});
 });
 
@@ -42,12 +52,13 @@ describe('outer profile', () => {
 	it('encloses the root disc plus the teeth (area by annular sectors)', () => {
 		const spec = exampleSpec();
 		const m = contourMoments(outerProfile(spec));
-		const R = 50, r = 45;
+		const R = 50,
+			r = 45;
 		const toothArea = ((5 * Math.PI) / 180 / 2) * (R * R - r * r);
 		expect(m.area).toBeCloseTo(Math.PI * r * r + 35 * toothArea, 6);
 	});
 
-	it('puts tooth 0 at 12 o\'clock, later teeth counter-clockwise for a clockwise wheel', () => {
+	it("puts tooth 0 at 12 o'clock, later teeth counter-clockwise for a clockwise wheel", () => {
 		const spans = toothSpans(exampleSpec());
 		const first = spans.find((s) => s.tooth.position === 0)!;
 		const second = spans.find((s) => s.tooth.position === 1)!;

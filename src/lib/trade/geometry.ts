@@ -25,7 +25,16 @@ export const line = (from: Point, to: Point): Segment => ({ kind: 'line', from, 
 
 /** An arc between two points already computed (so neighbouring segments share them exactly). */
 export function arc(center: Point, radius: number, startDeg: number, endDeg: number, ccw: boolean, from?: Point, to?: Point): Segment {
-	return { kind: 'arc', center, radius, startDeg, endDeg, ccw, from: from ?? polar(radius, startDeg, center), to: to ?? polar(radius, endDeg, center) };
+	return {
+		kind: 'arc',
+		center,
+		radius,
+		startDeg,
+		endDeg,
+		ccw,
+		from: from ?? polar(radius, startDeg, center),
+		to: to ?? polar(radius, endDeg, center)
+	};
 }
 
 /** The arc's sweep in degrees, positive, in its direction of travel. */

@@ -132,7 +132,14 @@ describe('ANSI B17.1 square keys', () => {
 		// Geometry model: the keyseat side x = W/2 meets the bore circle at height y (bisection);
 		// the key's half height plus 0.005 in clearance (B17.1's allowance for parallel keys) stands
 		// above that corner. Depth over the bore on the centre line = y + H/2 + C − D/2.
-		for (const [shaft, w] of [[2.75, 5 / 8], [3, 3 / 4], [3.5, 7 / 8], [4.25, 1], [5, 1.25], [6.5, 1.5]] as const) {
+		for (const [shaft, w] of [
+			[2.75, 5 / 8],
+			[3, 3 / 4],
+			[3.5, 7 / 8],
+			[4.25, 1],
+			[5, 1.25],
+			[6.5, 1.5]
+		] as const) {
 			const R = shaft / 2;
 			let lo = 0;
 			let hi = R;

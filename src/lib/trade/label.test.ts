@@ -14,7 +14,10 @@ describe('the etched label', () => {
 	it('names each character the font lacks once, in order', () => {
 		expect(missingCharacters('a日b本日')).toEqual(['日', '本']);
 		const [r] = refusals(exampleSpec({ label: 'crank ☃' }), 'mm');
-		expect(r).toEqual({ field: 'label', message: 'label: the etching font has no “☃” (U+2603); use letters, digits and signs of Latin scripts' });
+		expect(r).toEqual({
+			field: 'label',
+			message: 'label: the etching font has no “☃” (U+2603); use letters, digits and signs of Latin scripts'
+		});
 	});
 
 	it('a space is as wide as the font says, and letters do not overlap: "II" is two I widths and a gap', () => {

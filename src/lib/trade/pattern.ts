@@ -80,11 +80,13 @@ export function gapsOf(p: Pattern): { first: number; count: number }[] {
 /** What makes a pattern impossible, as [field, message] with the public parameter names; empty when it is fine. */
 export function patternRefusals(p: Pattern): { field: string; message: string }[] {
 	const N = p.teeth;
-	if (p.kind === 'missing' && p.missing >= N) return [{ field: 'missing', message: `missing: at most ${N - 1}, so that a tooth is left of the ${N} positions` }];
+	if (p.kind === 'missing' && p.missing >= N)
+		return [{ field: 'missing', message: `missing: at most ${N - 1}, so that a tooth is left of the ${N} positions` }];
 	if (p.kind === 'custom') {
 		const bad = p.missingPositions.filter((k) => k < 0 || k >= N || !Number.isInteger(k));
 		if (bad.length) return [{ field: 'gaps', message: `gaps: positions 0 to ${N - 1} (got ${bad.join(', ')})` }];
-		if (missingPositions(p).length >= N) return [{ field: 'gaps', message: `gaps: at least one of the ${N} positions must keep its tooth` }];
+		if (missingPositions(p).length >= N)
+			return [{ field: 'gaps', message: `gaps: at least one of the ${N} positions must keep its tooth` }];
 	}
 	if (p.kind === 'extra' && (p.extraAfter < 0 || p.extraAfter >= N)) return [{ field: 'extraAfter', message: `extraAfter: 0 to ${N - 1}` }];
 	return [];

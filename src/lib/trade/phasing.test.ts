@@ -73,7 +73,9 @@ describe('phasing', () => {
 	});
 
 	it('asks for more teeth when the resolution is too coarse', () => {
-		expect(phasing(input({ pattern: { kind: 'missing', teeth: 12, missing: 1 }, resolutionDeg: 10 })).warnings.map((w) => w.code)).toContain('too-few-teeth');
+		expect(
+			phasing(input({ pattern: { kind: 'missing', teeth: 12, missing: 1 }, resolutionDeg: 10 })).warnings.map((w) => w.code)
+		).toContain('too-few-teeth');
 	});
 
 	it('suggests the keyway angle that puts the first-tooth offset on target', () => {
@@ -149,7 +151,7 @@ describe('tooth at TDC from measured angles', () => {
 					expect(toothAtTdc).toBeLessThan(n);
 					const offset = phasing(input({ pattern: { kind: 'missing', teeth: n, missing: 1 }, mount, toothAtTdc })).firstToothOffsetDeg;
 					// Circular difference; clockingFor rounds to 0.001° of wheel, phasing to 0.001° of crank.
-					const diff = Math.abs((((offset - target) % wheelTurn) + wheelTurn * 1.5) % wheelTurn - wheelTurn / 2);
+					const diff = Math.abs(((((offset - target) % wheelTurn) + wheelTurn * 1.5) % wheelTurn) - wheelTurn / 2);
 					expect(diff).toBeLessThan(0.01);
 				}
 			)
@@ -197,16 +199,27 @@ describe('every gap of the real pattern against each spark window (numerical mod
 		// The issue's case: 36-1-1 with the second gap (position 17) inside the window: tooth 19 at TDC.
 		['36-1-1, gap at 17 inside the window', { pattern: { kind: 'custom', teeth: 36, missingPositions: [17, 35] }, toothAtTdc: 19 }],
 		['36-1-1, both clear', { pattern: { kind: 'custom', teeth: 36, missingPositions: [17, 35] }, toothAtTdc: 9 }],
-		['36-2-2-2 style, three gaps, V-twin', { pattern: { kind: 'custom', teeth: 36, missingPositions: [10, 11, 22, 23, 34, 35] }, intervals: [315, 405], toothAtTdc: 1.5 }],
-		['60-2 on the cam, four cylinders', { pattern: { kind: 'missing', teeth: 60, missing: 2 }, mount: 'cam', intervals: [180, 180, 180, 180], toothAtTdc: 13.25 }],
-		['12-3 two-stroke twin', { pattern: { kind: 'missing', teeth: 12, missing: 3 }, stroke: 2, intervals: [180, 180], toothAtTdc: 2.5, duty: 0.4 }]
+		[
+			'36-2-2-2 style, three gaps, V-twin',
+			{ pattern: { kind: 'custom', teeth: 36, missingPositions: [10, 11, 22, 23, 34, 35] }, intervals: [315, 405], toothAtTdc: 1.5 }
+		],
+		[
+			'60-2 on the cam, four cylinders',
+			{ pattern: { kind: 'missing', teeth: 60, missing: 2 }, mount: 'cam', intervals: [180, 180, 180, 180], toothAtTdc: 13.25 }
+		],
+		[
+			'12-3 two-stroke twin',
+			{ pattern: { kind: 'missing', teeth: 12, missing: 3 }, stroke: 2, intervals: [180, 180], toothAtTdc: 2.5, duty: 0.4 }
+		]
 	];
 	it.each(cases)('%s', (_, over) => {
 		const i = input(over);
 		const r = phasing(i);
 		const model = modelClearances(i);
 		expect(r.gapClearanceDeg).toHaveLength(model.clearances.length);
-		r.gapClearanceDeg.forEach((c, k) => expect(Math.abs(c.clearanceDeg - model.clearances[k]!), `cylinder ${c.cylinder}`).toBeLessThanOrEqual(0.05));
+		r.gapClearanceDeg.forEach((c, k) =>
+			expect(Math.abs(c.clearanceDeg - model.clearances[k]!), `cylinder ${c.cylinder}`).toBeLessThanOrEqual(0.05)
+		);
 	});
 
 	it('the issue’s 36-1-1 case: the gap at position 17 passes inside the window (clearance 0); a 36-1 reading would have said 125° or more', () => {

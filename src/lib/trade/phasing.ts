@@ -82,7 +82,10 @@ export function phasing(input: PhasingInput): PhasingResult {
 		// The wheel repeats every wheelTurn; the engine's cycle every `cycle`: look at every pass of each gap in a cycle.
 		for (const g of gaps) {
 			for (let turn = 0; turn * wheelTurn < cycle; turn++) {
-				clearance = Math.min(clearance, separation(w0, w1, norm(g.from + turn * wheelTurn, cycle), norm(g.from + turn * wheelTurn, cycle) + (g.to - g.from), cycle));
+				clearance = Math.min(
+					clearance,
+					separation(w0, w1, norm(g.from + turn * wheelTurn, cycle), norm(g.from + turn * wheelTurn, cycle) + (g.to - g.from), cycle)
+				);
 			}
 		}
 		return { cylinder: i + 1, tdcDeg: tdc, clearanceDeg: gaps.length ? round(clearance) : NaN };
@@ -91,18 +94,31 @@ export function phasing(input: PhasingInput): PhasingResult {
 	const warnings: PhasingResult['warnings'] = [];
 	for (const c of clearances) {
 		if (c.clearanceDeg === 0) {
-			warnings.push({ code: 'gap-in-spark-window', message: `The gap passes the sensor inside cylinder ${c.cylinder}'s spark window (${input.windowFromBtdc}° to ${input.windowToBtdc}° BTDC): the ECU re-synchronises there and timing can jump. Clock the wheel so the gap comes earlier.` });
+			warnings.push({
+				code: 'gap-in-spark-window',
+				message: `The gap passes the sensor inside cylinder ${c.cylinder}'s spark window (${input.windowFromBtdc}° to ${input.windowToBtdc}° BTDC): the ECU re-synchronises there and timing can jump. Clock the wheel so the gap comes earlier.`
+			});
 		}
 	}
 	if (pitchFrequencyHz > input.sensorMaxHz) {
-		warnings.push({ code: 'sensor-too-slow', message: `At ${input.revLimitRpm} rpm the teeth pass at ${round(pitchFrequencyHz, 0)} Hz, above the sensor's ${input.sensorMaxHz} Hz: the signal will drop out near the rev limit. Use fewer teeth or a faster sensor.` });
+		warnings.push({
+			code: 'sensor-too-slow',
+			message: `At ${input.revLimitRpm} rpm the teeth pass at ${round(pitchFrequencyHz, 0)} Hz, above the sensor's ${input.sensorMaxHz} Hz: the signal will drop out near the rev limit. Use fewer teeth or a faster sensor.`
+		});
 	}
 	if (input.mount === 'crank' && input.stroke === 4) {
-		warnings.push({ code: 'no-cam-phase', message: 'A crank-only wheel on a four-stroke cannot tell compression from exhaust: wasted spark and batch (or semi-sequential) injection only, unless a cam signal is added.' });
+		warnings.push({
+			code: 'no-cam-phase',
+			message:
+				'A crank-only wheel on a four-stroke cannot tell compression from exhaust: wasted spark and batch (or semi-sequential) injection only, unless a cam signal is added.'
+		});
 	}
 	const resolution = pitch * factor;
 	if (input.resolutionDeg !== undefined && resolution > input.resolutionDeg) {
-		warnings.push({ code: 'too-few-teeth', message: `One tooth every ${round(resolution)} crank degrees is coarser than the ${input.resolutionDeg}° asked for: use more teeth.` });
+		warnings.push({
+			code: 'too-few-teeth',
+			message: `One tooth every ${round(resolution)} crank degrees is coarser than the ${input.resolutionDeg}° asked for: use more teeth.`
+		});
 	}
 
 	return {

@@ -15,7 +15,12 @@ describe('numbers in path data', () => {
 			{ numRuns: 20_000 }
 		);
 		// On the ten-thousandths grid and half-way between its points, where rounding is decided.
-		fc.assert(fc.property(fc.integer({ min: -2e8, max: 2e8 }), (q) => pathNumber(q / 1e4) === reference(q / 1e4) && pathNumber((q + 0.5) / 1e4) === reference((q + 0.5) / 1e4)));
+		fc.assert(
+			fc.property(
+				fc.integer({ min: -2e8, max: 2e8 }),
+				(q) => pathNumber(q / 1e4) === reference(q / 1e4) && pathNumber((q + 0.5) / 1e4) === reference((q + 0.5) / 1e4)
+			)
+		);
 	});
 
 	it('round half up, drop trailing zeros, never write -0 or an exponent (worked by hand)', () => {

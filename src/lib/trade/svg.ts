@@ -8,7 +8,10 @@ import { sweepDeg, type Contour, type Point, type Segment } from './geometry';
 // four decimals come from a table, with the very text String(Math.round(v * 1e4) / 1e4) gives.
 const decimals: string[] = [];
 /** '.25' for 2500, '.0005' for 5: ten-thousandths as decimals, trailing zeros dropped. */
-const decimalsOf = (f: number) => (decimals[f] ??= String(10000 + f).replace(/0+$/, '').replace('1', '.'));
+const decimalsOf = (f: number) =>
+	(decimals[f] ??= String(10000 + f)
+		.replace(/0+$/, '')
+		.replace('1', '.'));
 /** A number in path data: rounded to four decimals, no exponent, no trailing zeros, never -0. */
 export function pathNumber(v: number): string {
 	const q = Math.round(v * 1e4);

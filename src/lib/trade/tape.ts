@@ -22,7 +22,8 @@ export interface TapeSpec {
 	otherTdc: { label: string; atdcDeg: number }[];
 }
 
-export const mmPerDegree = (spec: Pick<TapeSpec, 'hubDiameterMm' | 'paperThicknessMm'>) => (Math.PI * (spec.hubDiameterMm + spec.paperThicknessMm)) / 360;
+export const mmPerDegree = (spec: Pick<TapeSpec, 'hubDiameterMm' | 'paperThicknessMm'>) =>
+	(Math.PI * (spec.hubDiameterMm + spec.paperThicknessMm)) / 360;
 
 export const diameterFromCircumference = (circumferenceMm: number) => circumferenceMm / Math.PI;
 

@@ -71,7 +71,14 @@ describe('readings as written on a degree wheel or tape', () => {
 	});
 
 	it('writes readings back with their sides, so a stored record reads the same on any scale', () => {
-		for (const [deg, scale, text] of [[-10, 'signed', '10 BTDC'], [19, 'full', '19 ATDC'], [150, 'quadrant', '30 BBDC'], [-150, 'quadrant', '30 ABDC'], [-150, 'signed', '150 BTDC'], [0, 'signed', '0']] as const) {
+		for (const [deg, scale, text] of [
+			[-10, 'signed', '10 BTDC'],
+			[19, 'full', '19 ATDC'],
+			[150, 'quadrant', '30 BBDC'],
+			[-150, 'quadrant', '30 ABDC'],
+			[-150, 'signed', '150 BTDC'],
+			[0, 'signed', '0']
+		] as const) {
 			expect(readingParam(deg, scale)).toBe(text);
 			expect(parseReading('a', text, scale)).toMatchObject({ ok: true, reading: { atdcDeg: deg } });
 		}
@@ -86,7 +93,14 @@ describe('TDC from two piston-stop readings', () => {
 		closeAngle(r.tdcDeg, bisector(-10, 19).tdc);
 		expect(r.tdcDeg).toBeCloseTo(4.5, 9); // by hand: −10 + 29/2
 		// The same marks however they are typed, on each scale.
-		for (const [a, b, scale] of [['-10', '19', 'signed'], ['\u221210', '19', 'signed'], ['10B', '19 A', 'signed'], ['350', '19', 'full'], ['10 BTDC', '19 ATDC', 'quadrant'], ['19 ATDC', '10 BTDC', 'full']] as const) {
+		for (const [a, b, scale] of [
+			['-10', '19', 'signed'],
+			['\u221210', '19', 'signed'],
+			['10B', '19 A', 'signed'],
+			['350', '19', 'full'],
+			['10 BTDC', '19 ATDC', 'quadrant'],
+			['19 ATDC', '10 BTDC', 'full']
+		] as const) {
 			expect(found(a, b, scale)).toMatchObject({ tdcDeg: 4.5, spreadDeg: 29, halfSpreadDeg: 14.5 });
 		}
 	});
@@ -103,7 +117,10 @@ describe('TDC from two piston-stop readings', () => {
 	});
 
 	it('readings across 0 on a 0–360 scale (350 and 20: TDC at 5 ATDC, spread 30)', () => {
-		for (const [a, b] of [['350', '20'], ['20', '350']] as const) {
+		for (const [a, b] of [
+			['350', '20'],
+			['20', '350']
+		] as const) {
 			const r = found(a, b, 'full');
 			const o = bisector(350, 20);
 			closeAngle(r.tdcDeg, o.tdc);
@@ -148,7 +165,9 @@ describe('what to do about it', () => {
 		// Model: with the crank at true TDC the pointer reads 4.5 ATDC; ATDC numbers trail 0 past the
 		// pointer, so they sit on the side opposite the tape's travel (hub.test.ts checks the travel
 		// against a 3D model): clockwise crank, tape moves to its right, ATDC on the left.
-		expect(advice.remark).toMatch(/new 0 at 4\.5° ATDC.*3\.0 mm along the rim.*ATDC side.*to the left of it on a tape.*anticlockwise of it on a wheel/);
+		expect(advice.remark).toMatch(
+			/new 0 at 4\.5° ATDC.*3\.0 mm along the rim.*ATDC side.*to the left of it on a tape.*anticlockwise of it on a wheel/
+		);
 		// The old 0 has already passed the pointer: the pointer follows it, the way the crank turns.
 		expect(advice.pointer).toMatch(/4\.5° \(3\.0 mm.*the way the crank turns, over the old 0 \(clockwise seen from the wheel side\)/);
 	});
@@ -156,7 +175,9 @@ describe('what to do about it', () => {
 	it('3° BTDC, crank anticlockwise: the new 0 sits on the BTDC side, to the left on the tape; the pointer moves against the rotation (clockwise)', () => {
 		const advice = tdcAdvice(-3, 'full', { rotation: 'ccw' });
 		expect(advice.finding).toBe("True TDC is 3° BTDC of the scale's 0.");
-		expect(advice.remark).toMatch(/new 0 at 3° BTDC on the old scale \(the 357° graduation\).*to the left of it on a tape.*anticlockwise of it/);
+		expect(advice.remark).toMatch(
+			/new 0 at 3° BTDC on the old scale \(the 357° graduation\).*to the left of it on a tape.*anticlockwise of it/
+		);
 		expect(advice.pointer).toMatch(/against the way the crank turns.*\(clockwise seen from the wheel side\)/);
 		expect(advice.rimMm).toBeNull();
 	});

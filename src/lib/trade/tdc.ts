@@ -39,8 +39,10 @@ export type ReadingAnswer = { ok: true; reading: Reading } | { ok: false; messag
 
 /** How to write a reading on each scale, for refusals. */
 export function howToWrite(field: string, scale: Scale): string {
-	if (scale === 'quadrant') return `${field}: on a 0–90–0 wheel, a number from 0 to 90 and its quadrant, like 10 BTDC, 19 ATDC, 30 BBDC or 30 ABDC`;
-	if (scale === 'full') return `${field}: a reading from 0 to 360 (10 = 10 ATDC, 350 = 10 BTDC), or a number and its side, like 10 BTDC or 19 ATDC`;
+	if (scale === 'quadrant')
+		return `${field}: on a 0–90–0 wheel, a number from 0 to 90 and its quadrant, like 10 BTDC, 19 ATDC, 30 BBDC or 30 ABDC`;
+	if (scale === 'full')
+		return `${field}: a reading from 0 to 360 (10 = 10 ATDC, 350 = 10 BTDC), or a number and its side, like 10 BTDC or 19 ATDC`;
 	return `${field}: a reading from −180 to 180 (negative = BTDC), or a number and its side, like 10 BTDC or 19 ATDC`;
 }
 
@@ -74,13 +76,21 @@ export function parseReading(field: string, text: string, scale: Scale): Reading
 	}
 	const side = sideWords[word];
 	if (!side) return refuse();
-	if (sign) return refuse(`${field}: a side or a sign, not both: write ${m[2]} ${side.length === 1 ? `${side}TDC` : side}${scale === 'quadrant' ? '' : ` or ${sign === '-' ? '−' : ''}${m[2]}`}`);
+	if (sign)
+		return refuse(
+			`${field}: a side or a sign, not both: write ${m[2]} ${side.length === 1 ? `${side}TDC` : side}${scale === 'quadrant' ? '' : ` or ${sign === '-' ? '−' : ''}${m[2]}`}`
+		);
 	if (scale === 'quadrant' && side.length === 1) {
-		return refuse(`${field}: on a 0–90–0 wheel “${side}” reads two ways: write the quadrant in full, ${m[2]} ${side}TDC or ${m[2]} ${side}BDC`);
+		return refuse(
+			`${field}: on a 0–90–0 wheel “${side}” reads two ways: write the quadrant in full, ${m[2]} ${side}TDC or ${m[2]} ${side}BDC`
+		);
 	}
 	const full: Side = side === 'B' ? 'BTDC' : side === 'A' ? 'ATDC' : side;
 	const max = scale === 'quadrant' || full === 'BBDC' || full === 'ABDC' ? 90 : 180;
-	if (value > max) return refuse(`${field}: ${full} readings run from 0 to ${max}${max === 90 ? '; past 90 the quadrant changes (100 ATDC is 80 BBDC)' : ''}`);
+	if (value > max)
+		return refuse(
+			`${field}: ${full} readings run from 0 to ${max}${max === 90 ? '; past 90 the quadrant changes (100 ATDC is 80 BBDC)' : ''}`
+		);
 	const atdc = full === 'BTDC' ? -value : full === 'ATDC' ? value : full === 'BBDC' ? 180 - value : 180 + value;
 	return { ok: true, reading: { atdcDeg: signed(atdc), sided: true } };
 }
@@ -98,7 +108,8 @@ export type TdcAnswer = { ok: true; result: TdcResult } | { ok: false; field: st
 
 export function tdcFromReadings(a: Reading, b: Reading, arc: Arc = 'shorter'): TdcAnswer {
 	let delta = signed(b.atdcDeg - a.atdcDeg);
-	if (Math.abs(delta) < 1e-9) return { ok: false, field: 'b', message: 'b: must differ from a; a piston stop leaves one mark each side of TDC' };
+	if (Math.abs(delta) < 1e-9)
+		return { ok: false, field: 'b', message: 'b: must differ from a; a piston stop leaves one mark each side of TDC' };
 	// Two bare numbers on one side of 0 are what a 0–90–0 wheel's readings look like typed as plain
 	// numbers ("10" and "19"); taken as written they give a TDC between them that is far from true.
 	if (arc === 'shorter' && !a.sided && !b.sided && Math.sign(a.atdcDeg) === Math.sign(b.atdcDeg)) {
@@ -111,11 +122,22 @@ export function tdcFromReadings(a: Reading, b: Reading, arc: Arc = 'shorter'): T
 	}
 	if (arc === 'longer') delta -= 360 * Math.sign(delta);
 	const spread = Math.abs(delta);
-	return { ok: true, result: { tdcDeg: round(signed(a.atdcDeg + delta / 2)), spreadDeg: round(spread), halfSpreadDeg: round(spread / 2), deltaDeg: round(delta) } };
+	return {
+		ok: true,
+		result: {
+			tdcDeg: round(signed(a.atdcDeg + delta / 2)),
+			spreadDeg: round(spread),
+			halfSpreadDeg: round(spread / 2),
+			deltaDeg: round(delta)
+		}
+	};
 }
 
 /** A spread measured along the rim: degrees, and the distance of TDC from either mark (s/2). */
-export function spreadFromRim(distanceMm: number, diameterMm: number): { spreadDeg: number; halfSpreadDeg: number; fromEitherMarkMm: number } {
+export function spreadFromRim(
+	distanceMm: number,
+	diameterMm: number
+): { spreadDeg: number; halfSpreadDeg: number; fromEitherMarkMm: number } {
 	const spread = (360 * distanceMm) / (Math.PI * diameterMm);
 	return { spreadDeg: round(spread), halfSpreadDeg: round(spread / 2), fromEitherMarkMm: round(distanceMm / 2) };
 }
@@ -165,7 +187,11 @@ export interface TdcAdvice {
  * already passed it) and against it when TDC reads BTDC. Left and right on a tape, and clockwise on
  * a wheel, come from hub.ts.
  */
-export function tdcAdvice(tdcDeg: number, scale: Scale, options: { rotation?: Rotation; diameterMm?: number; lengthText?: (mm: number) => string } = {}): TdcAdvice {
+export function tdcAdvice(
+	tdcDeg: number,
+	scale: Scale,
+	options: { rotation?: Rotation; diameterMm?: number; lengthText?: (mm: number) => string } = {}
+): TdcAdvice {
 	const x = signed(tdcDeg);
 	const { rotation, diameterMm } = options;
 	const length = options.lengthText ?? ((mm: number) => `${mm.toFixed(1)} mm`);

@@ -27,6 +27,8 @@ describe('timing-light rows', () => {
 	}
 
 	it('20° BTDC on a 150 mm hub with 0.1 mm paper is 26.20 mm along the tape (20·π·150.1/360)', () => {
-		expect(timingRows([{ rpm: 3000, advanceDeg: 20 }], { hubDiameterMm: 150, paperThicknessMm: 0.1, rotation: 'cw' })[0]!.fromTdcMm).toBe(26.2);
+		expect(timingRows([{ rpm: 3000, advanceDeg: 20 }], { hubDiameterMm: 150, paperThicknessMm: 0.1, rotation: 'cw' })[0]!.fromTdcMm).toBe(
+			26.2
+		);
 	});
 });

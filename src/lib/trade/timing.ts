@@ -36,7 +36,10 @@ export interface CardRow extends AdvancePoint {
 	side: 'left' | 'right' | null;
 }
 
-export function timingRows(points: AdvancePoint[], hub: { hubDiameterMm: number; paperThicknessMm: number; rotation: Rotation }): CardRow[] {
+export function timingRows(
+	points: AdvancePoint[],
+	hub: { hubDiameterMm: number; paperThicknessMm: number; rotation: Rotation }
+): CardRow[] {
 	const k = mmPerDegree(hub);
 	return [...points]
 		.sort((a, b) => a.rpm - b.rpm)

@@ -16,7 +16,12 @@ import { cutContours, drawWheel } from './wheel';
 describe('the outline checker', () => {
 	// A checker that never finds anything proves nothing: each defect kind, made by hand, is caught.
 	const square = (s: number): Contour => {
-		const [a, b, c, d] = [{ x: 0, y: 0 }, { x: s, y: 0 }, { x: s, y: s }, { x: 0, y: s }];
+		const [a, b, c, d] = [
+			{ x: 0, y: 0 },
+			{ x: s, y: 0 },
+			{ x: s, y: s },
+			{ x: 0, y: s }
+		];
 		return { kind: 'chain', segments: [line(a, b), line(b, c), line(c, d), line(d, a)] };
 	};
 
@@ -26,13 +31,35 @@ describe('the outline checker', () => {
 	});
 
 	it('finds an open chain, an arc whose angles do not reach its neighbour, a bow tie, crossing and stray holes', () => {
-		const open: Contour = { kind: 'chain', segments: [line({ x: 0, y: 0 }, { x: 10, y: 0 }), line({ x: 10, y: 0 }, { x: 10, y: 10 }), line({ x: 10, y: 10.001 }, { x: 0, y: 0 })] };
-		expect(outlineDefects([open]).map((d) => d.problem).join()).toMatch(/segment 1 \(line\) ends 0\.001/);
+		const open: Contour = {
+			kind: 'chain',
+			segments: [line({ x: 0, y: 0 }, { x: 10, y: 0 }), line({ x: 10, y: 0 }, { x: 10, y: 10 }), line({ x: 10, y: 10.001 }, { x: 0, y: 0 })]
+		};
+		expect(
+			outlineDefects([open])
+				.map((d) => d.problem)
+				.join()
+		).toMatch(/segment 1 \(line\) ends 0\.001/);
 		// The arc's stored end point agrees with its neighbour, its angles do not (a DXF ARC carries the angles).
-		const liar: Contour = { kind: 'chain', segments: [arc({ x: 0, y: 0 }, 10, 0, 90, true, polar(10, 0), polar(10, 90)), line(polar(10, 90), { x: 0, y: 0 }), line({ x: 0, y: 0 }, polar(10, 0))] };
+		const liar: Contour = {
+			kind: 'chain',
+			segments: [
+				arc({ x: 0, y: 0 }, 10, 0, 90, true, polar(10, 0), polar(10, 90)),
+				line(polar(10, 90), { x: 0, y: 0 }),
+				line({ x: 0, y: 0 }, polar(10, 0))
+			]
+		};
 		(liar.segments[0] as { endDeg: number }).endDeg = 89;
 		expect(outlineDefects([liar])[0]?.problem).toMatch(/segment 0 \(arc\) ends/);
-		const bowTie: Contour = { kind: 'chain', segments: [line({ x: 0, y: 0 }, { x: 10, y: 10 }), line({ x: 10, y: 10 }, { x: 10, y: 0 }), line({ x: 10, y: 0 }, { x: 0, y: 10 }), line({ x: 0, y: 10 }, { x: 0, y: 0 })] };
+		const bowTie: Contour = {
+			kind: 'chain',
+			segments: [
+				line({ x: 0, y: 0 }, { x: 10, y: 10 }),
+				line({ x: 10, y: 10 }, { x: 10, y: 0 }),
+				line({ x: 10, y: 0 }, { x: 0, y: 10 }),
+				line({ x: 0, y: 10 }, { x: 0, y: 0 })
+			]
+		};
 		expect(outlineDefects([bowTie])[0]?.problem).toMatch(/crosses or touches itself/);
 		const hole = (x: number, y: number, radius: number): Contour => ({ kind: 'circle', center: { x, y }, radius });
 		expect(outlineDefects([square(10), hole(9.5, 5, 1)])[0]?.problem).toMatch(/contours 0 and 1 cross/);
@@ -64,9 +91,30 @@ describe('wheels the property found drawn with crossing contours, now refused', 
 	});
 
 	it('a balance hole on top of a bolt hole', () => {
-		const refused = refusedFields({ ...base, bolts: '1', pcd: '5', boltHole: '0.5', balanceCount: '1', balancePcd: '5', balanceHole: '0.5' });
-		expect(refused).toEqual([expect.stringMatching(/^balancePcd \| balancePcd: the balance holes come closer than 1\.00 mm to the bolt holes/)]);
-		expect(refusedFields({ ...base, bolts: '1', pcd: '5', boltHole: '0.5', balanceCount: '1', balancePcd: '5', balanceHole: '0.5', balanceAngle: '180' })).toEqual([]);
+		const refused = refusedFields({
+			...base,
+			bolts: '1',
+			pcd: '5',
+			boltHole: '0.5',
+			balanceCount: '1',
+			balancePcd: '5',
+			balanceHole: '0.5'
+		});
+		expect(refused).toEqual([
+			expect.stringMatching(/^balancePcd \| balancePcd: the balance holes come closer than 1\.00 mm to the bolt holes/)
+		]);
+		expect(
+			refusedFields({
+				...base,
+				bolts: '1',
+				pcd: '5',
+				boltHole: '0.5',
+				balanceCount: '1',
+				balancePcd: '5',
+				balanceHole: '0.5',
+				balanceAngle: '180'
+			})
+		).toEqual([]);
 	});
 
 	it('a wide keyway whose outer corners reach past the tooth roots', () => {
@@ -96,7 +144,10 @@ describe('accepted wheels', () => {
 				// lines and arcs) agrees with the shoelace area of the chords, which cut each arc short by
 				// at most the sampling's sagitta along its length.
 				const outline = polygon(contours[0]!);
-				const perimeter = outline.reduce((s, p, i) => s + Math.hypot(outline[(i + 1) % outline.length]!.x - p.x, outline[(i + 1) % outline.length]!.y - p.y), 0);
+				const perimeter = outline.reduce(
+					(s, p, i) => s + Math.hypot(outline[(i + 1) % outline.length]!.x - p.x, outline[(i + 1) % outline.length]!.y - p.y),
+					0
+				);
 				const exact = contourMoments(contours[0]!).area;
 				expect(polygonArea(outline)).toBeGreaterThan(0);
 				expect(Math.abs(polygonArea(outline) - exact), JSON.stringify(params)).toBeLessThanOrEqual(0.005 * perimeter + 1e-9 * exact);

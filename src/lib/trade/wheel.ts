@@ -92,7 +92,8 @@ export function placeLabel(spec: WheelSpec): PlacedLabel | null {
 	if (!shape) return null;
 	const out = rootRadius(spec) - clearanceMm;
 	const inn = innerRadius(spec) + clearanceMm;
-	const fits = (h: number) => inn + 2 * shape.halfHeight * h <= out && (inn + 2 * shape.halfHeight * h) ** 2 + (shape.halfWidth * h) ** 2 <= out * out;
+	const fits = (h: number) =>
+		inn + 2 * shape.halfHeight * h <= out && (inn + 2 * shape.halfHeight * h) ** 2 + (shape.halfWidth * h) ** 2 <= out * out;
 	let h = Math.min(4, (rootRadius(spec) - innerRadius(spec)) * 0.25);
 	if (!fits(h)) {
 		let lo = 0;
@@ -144,14 +145,24 @@ export function outerProfile(spec: WheelSpec, spans = toothSpans(spec)): Contour
 		const flankHigh1 = polar(tip.along, a1);
 		const flankLow1 = polar(root.along, a1);
 		const rootEnd = polar(r, a1 + root.alpha);
-		if (root.alpha) segments.push(arc(polar(root.centreR, a0 - root.alpha), spec.rootRadiusMm, a0 - root.alpha + 180, a0 + 90, false, rootStart, flankLow0));
+		if (root.alpha)
+			segments.push(
+				arc(polar(root.centreR, a0 - root.alpha), spec.rootRadiusMm, a0 - root.alpha + 180, a0 + 90, false, rootStart, flankLow0)
+			);
 		segments.push(line(root.alpha ? flankLow0 : rootStart, flankHigh0));
-		if (tip.alpha) segments.push(arc(polar(tip.centreR, a0 + tip.alpha), spec.tipRadiusMm, a0 - 90, a0 + tip.alpha, true, flankHigh0, tip0));
-		segments.push(arc({ x: 0, y: 0 }, R, a0 + tip.alpha, a1 - tip.alpha, true, tip.alpha ? tip0 : flankHigh0, tip.alpha ? tip1 : flankHigh1));
-		if (tip.alpha) segments.push(arc(polar(tip.centreR, a1 - tip.alpha), spec.tipRadiusMm, a1 - tip.alpha, a1 + 90, true, tip1, flankHigh1));
+		if (tip.alpha)
+			segments.push(arc(polar(tip.centreR, a0 + tip.alpha), spec.tipRadiusMm, a0 - 90, a0 + tip.alpha, true, flankHigh0, tip0));
+		segments.push(
+			arc({ x: 0, y: 0 }, R, a0 + tip.alpha, a1 - tip.alpha, true, tip.alpha ? tip0 : flankHigh0, tip.alpha ? tip1 : flankHigh1)
+		);
+		if (tip.alpha)
+			segments.push(arc(polar(tip.centreR, a1 - tip.alpha), spec.tipRadiusMm, a1 - tip.alpha, a1 + 90, true, tip1, flankHigh1));
 		const low = root.alpha ? flankLow1 : rootEnd;
 		segments.push(line(flankHigh1, low));
-		if (root.alpha) segments.push(arc(polar(root.centreR, a1 + root.alpha), spec.rootRadiusMm, a1 - 90, a1 + root.alpha + 180, false, flankLow1, rootEnd));
+		if (root.alpha)
+			segments.push(
+				arc(polar(root.centreR, a1 + root.alpha), spec.rootRadiusMm, a1 - 90, a1 + root.alpha + 180, false, flankLow1, rootEnd)
+			);
 		const nextRootStart = i + 1 < spans.length ? polar(r, nextA0 - root.alpha) : firstRootPoint;
 		segments.push(arc({ x: 0, y: 0 }, r, a1 + root.alpha, nextA0 - root.alpha, true, rootEnd, nextRootStart));
 		rootStart = nextRootStart;
@@ -205,7 +216,11 @@ export function holes(spec: WheelSpec): Hole[] {
 /** Each gap's open space in wheel degrees: from the trailing edge before it to the leading edge after it. */
 export function gapOpenings(spec: WheelSpec): { first: number; count: number; fromDeg: number; toDeg: number }[] {
 	const pitch = pitchDeg(spec.pattern.teeth);
-	return gapsOf(spec.pattern).map((g) => ({ ...g, fromDeg: (g.first - 1) * pitch + spec.duty * pitch, toDeg: (g.first + g.count) * pitch }));
+	return gapsOf(spec.pattern).map((g) => ({
+		...g,
+		fromDeg: (g.first - 1) * pitch + spec.duty * pitch,
+		toDeg: (g.first + g.count) * pitch
+	}));
 }
 
 /** The etched index (TDC) mark: a radial line inside the tooth root at the marked wheel angle. */
@@ -263,6 +278,7 @@ function draw(spec: WheelSpec): WheelDrawing {
 }
 
 /** The label's outlines as straight edges, for writers that take segments (DXF). */
-export const labelSegments = (d: WheelDrawing): Segment[] => (d.label ? d.label.outlines.flatMap((o) => o.map((p, i) => line(p, o[(i + 1) % o.length]!))) : []);
+export const labelSegments = (d: WheelDrawing): Segment[] =>
+	d.label ? d.label.outlines.flatMap((o) => o.map((p, i) => line(p, o[(i + 1) % o.length]!))) : [];
 
 export { pitchDeg };

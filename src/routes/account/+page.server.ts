@@ -33,7 +33,10 @@ export const actions: Actions = {
 		if (!changed.ok) {
 			return fail(changed.reason === 'throttled' ? 429 : 400, {
 				action: 'password',
-				errors: { current: changed.reason === 'throttled' ? 'current: too many failed attempts; wait 15 minutes' : 'current: not the current password' }
+				errors: {
+					current:
+						changed.reason === 'throttled' ? 'current: too many failed attempts; wait 15 minutes' : 'current: not the current password'
+				}
 			});
 		}
 		// Every session ended, this one too: sign this browser in again with the new password.

@@ -47,7 +47,12 @@ export const actions: Actions = {
 		const parsed = parseForm(renameSchema, form);
 		if (!parsed.ok) return fail(400, { action: 'rename', buildId: String(form.get('buildId') ?? ''), errors: parsed.errors });
 		const result = await changeBuild(db(), access.workshop.id, parsed.data.buildId, { name: parsed.data.name }, access.user.id);
-		if (!result.ok) return fail(result.reason === 'not-found' ? 404 : 409, { action: 'rename', buildId: parsed.data.buildId, errors: { name: refusals[result.reason] } });
+		if (!result.ok)
+			return fail(result.reason === 'not-found' ? 404 : 409, {
+				action: 'rename',
+				buildId: parsed.data.buildId,
+				errors: { name: refusals[result.reason] }
+			});
 		return { action: 'rename' };
 	},
 

@@ -26,7 +26,42 @@ describe('the phasing form and its registry', () => {
 		expect(shown.filter((n) => !known.has(n))).toEqual([]);
 		// UnitsToggle names its own control `units`.
 		const onPage = new Set([...shown, 'units']);
-		const expected = ['teeth', 'missing', 'duty', 'mount', 'layout', 'vAngle', 'stroke', 'intervals', 'input', 'toothAtTdc', 'sensorAngle', 'keywayAngle', 'keyAngle', 'edge', 'rpm', 'cranking', 'sensor', 'sensorMaxHz', 'windowFrom', 'windowTo', 'resolution', 'target', 'keyFromSensor', 'buildName', 'units', 'od', 'depth', 'thickness', 'bore', 'material', 'paper', 'tdcA', 'tdcB', 'tapeDiameter'];
+		const expected = [
+			'teeth',
+			'missing',
+			'duty',
+			'mount',
+			'layout',
+			'vAngle',
+			'stroke',
+			'intervals',
+			'input',
+			'toothAtTdc',
+			'sensorAngle',
+			'keywayAngle',
+			'keyAngle',
+			'edge',
+			'rpm',
+			'cranking',
+			'sensor',
+			'sensorMaxHz',
+			'windowFrom',
+			'windowTo',
+			'resolution',
+			'target',
+			'keyFromSensor',
+			'buildName',
+			'units',
+			'od',
+			'depth',
+			'thickness',
+			'bore',
+			'material',
+			'paper',
+			'tdcA',
+			'tdcB',
+			'tapeDiameter'
+		];
 		expect(expected.filter((n) => !onPage.has(n))).toEqual([]);
 	});
 
@@ -37,7 +72,8 @@ describe('the phasing form and its registry', () => {
 		const sent = Object.keys({ ...phasingSent(tooth), ...sheetSent(tooth) });
 		expect(sent.filter((n) => !known.has(n))).toEqual([]);
 		// With the tooth given: no measured angles; with a preset layout: no intervals, stroke or V angle; N-M: no gaps or extra tooth.
-		for (const n of ['sensorAngle', 'keyAngle', 'keywayAngle', 'intervals', 'stroke', 'vAngle', 'gaps', 'extraAfter']) expect(sent).not.toContain(n);
+		for (const n of ['sensorAngle', 'keyAngle', 'keywayAngle', 'intervals', 'stroke', 'vAngle', 'gaps', 'extraAfter'])
+			expect(sent).not.toContain(n);
 		expect(sent).toEqual(expect.arrayContaining(['toothAtTdc', 'keyFromSensor', 'layout', 'teeth', 'missing', 'buildName', 'od', 'tdcA']));
 
 		const angles = Object.keys(phasingSent({ ...everything, input: 'angles', layout: 'custom' }));

@@ -77,7 +77,9 @@ export class PhasingPage {
 		const keywayDeg = clockingFor(targetDeg, keyFromSensorDeg, parsed.input.mount);
 		const p = parsed.input.pattern;
 		// The wheel facts given for the build sheet go along to the designer too.
-		const wheelFacts = Object.fromEntries(['units', 'od', 'depth', 'thickness', 'material', 'bore'].filter((k) => this.sheetSent[k]).map((k) => [k, this.sheetSent[k]!]));
+		const wheelFacts = Object.fromEntries(
+			['units', 'od', 'depth', 'thickness', 'material', 'bore'].filter((k) => this.sheetSent[k]).map((k) => [k, this.sheetSent[k]!])
+		);
 		const wheelQuery =
 			p.kind === 'missing' && p.missing >= 1
 				? new URLSearchParams({
@@ -131,7 +133,9 @@ export class PhasingPage {
 	);
 	/** Refusals of the sheet with no field of their own here (the phasing check's are shown at theirs). */
 	readonly sheetLooseErrors = $derived(
-		(this.sheetOutcome.ok ? [] : this.sheetOutcome.refusals).filter((r) => !sheetFormKeys.includes(r.field) && !phasingParams.get(r.field)).map(loose)
+		(this.sheetOutcome.ok ? [] : this.sheetOutcome.refusals)
+			.filter((r) => !sheetFormKeys.includes(r.field) && !phasingParams.get(r.field))
+			.map(loose)
 	);
 	readonly sheetHref = $derived(`/api/v1/build-sheet.pdf?${this.query}`);
 

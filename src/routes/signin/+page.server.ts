@@ -15,7 +15,11 @@ export const load: PageServerLoad = async (event) => {
 	return {
 		redirectTo,
 		passwordReset: event.url.searchParams.has('reset'),
-		message: authError ? (authError === 'Verification' ? signInMessages.Verification : (throttledFrom(event.url) ?? signInMessages.default)) : null
+		message: authError
+			? authError === 'Verification'
+				? signInMessages.Verification
+				: (throttledFrom(event.url) ?? signInMessages.default)
+			: null
 	};
 };
 

@@ -55,12 +55,16 @@ export class TapePage {
 	curve = $derived(curveText(this.rows));
 	cardParams = $derived(cardSent(this.params, this.hubBy, this.curve));
 	/** The address: the tape, and the curve when it is not the example's. */
-	pageQuery = $derived(new URLSearchParams({ ...this.tapeParams, ...(this.curve !== exampleCurveText ? { curve: this.curve } : {}) }).toString());
+	pageQuery = $derived(
+		new URLSearchParams({ ...this.tapeParams, ...(this.curve !== exampleCurveText ? { curve: this.curve } : {}) }).toString()
+	);
 
 	outcome = $derived(checkTape(this.tapeParams));
 	errors: Record<string, string> = $derived(this.outcome.ok ? {} : byField(this.outcome.refusals));
 	/** Each refusal with its field's label, for the list under the drawing. */
-	refusalLines = $derived(Object.entries(this.errors).map(([field, message]) => `${field === 'form' ? 'Tape' : tapeRegistry.label(field)}: ${message}`));
+	refusalLines = $derived(
+		Object.entries(this.errors).map(([field, message]) => `${field === 'form' ? 'Tape' : tapeRegistry.label(field)}: ${message}`)
+	);
 
 	#lastGood: CheckedTape | null = null;
 	/** The last tape that could be made: shown greyed while the current one cannot. */

@@ -5,7 +5,12 @@ import type { PageLoad } from './$types';
  * The form's fields, each empty or at the registry's default, plus where a new form starts: a
  * signed scale and a clockwise crank (the API assumes neither).
  */
-const blank = { ...Object.fromEntries(tdcRegistry.names.map((n) => [n, ''])), ...tdcRegistry.defaults('mm'), scale: 'signed', rotation: 'cw' };
+const blank = {
+	...Object.fromEntries(tdcRegistry.names.map((n) => [n, ''])),
+	...tdcRegistry.defaults('mm'),
+	scale: 'signed',
+	rotation: 'cw'
+};
 
 export const load: PageLoad = ({ url }) => {
 	const params: Record<string, string> = { ...blank };

@@ -10,7 +10,18 @@ import { tdcSent, type Params, type TdcMode } from './sent';
 // measurement they are, and the answer of the TDC finder's one check.
 
 export type TdcOutcome =
-	| { ok: true; kind: 'marks'; a: number; b: number; scale: Scale; delta: number; tdcDeg: number; spreadDeg: number; halfSpreadDeg: number; advice: TdcAdvice }
+	| {
+			ok: true;
+			kind: 'marks';
+			a: number;
+			b: number;
+			scale: Scale;
+			delta: number;
+			tdcDeg: number;
+			spreadDeg: number;
+			halfSpreadDeg: number;
+			advice: TdcAdvice;
+	  }
 	| { ok: true; kind: 'rim'; spreadDeg: number; halfSpreadDeg: number; fromEitherMarkMm: number }
 	| { ok: false; errors: Record<string, string> };
 
@@ -53,12 +64,25 @@ export class TdcPage {
 			lengthText: (mm) => formatLength(mm, this.units)
 		});
 		const { tdcDeg, spreadDeg, halfSpreadDeg, deltaDeg: delta } = result;
-		return { ok: true, kind: 'marks', a: marks.a.atdcDeg, b: marks.b.atdcDeg, scale: marks.scale, delta, tdcDeg, spreadDeg, halfSpreadDeg, advice };
+		return {
+			ok: true,
+			kind: 'marks',
+			a: marks.a.atdcDeg,
+			b: marks.b.atdcDeg,
+			scale: marks.scale,
+			delta,
+			tdcDeg,
+			spreadDeg,
+			halfSpreadDeg,
+			advice
+		};
 	});
 
 	/** Nothing typed yet is not an error to shout about. */
 	untouched = $derived(
-		this.mode === 'marks' ? !this.params.a?.trim() && !this.params.b?.trim() : !this.params.distance?.trim() && !this.params.diameter?.trim()
+		this.mode === 'marks'
+			? !this.params.a?.trim() && !this.params.b?.trim()
+			: !this.params.distance?.trim() && !this.params.diameter?.trim()
 	);
 
 	/** A field's refusal as it stands beside the field, which the page calls by its label. */

@@ -28,7 +28,8 @@ const defaultsFor = (units: string | null | undefined) => newWheel(units === 'in
 /** What a refused look-up says to the person at the designer, who can carry on without it. */
 function refusal(status: number, what: 'wheel design' | 'build', body: { message?: string } | null): string {
 	if (status === 401) return `Sign in to open this ${what}: saved designs belong to a workshop. The designer works without it.`;
-	if (status === 404) return `No such ${what} in your workshops. The link may be mistyped, or the ${what} removed; the designer works without it.`;
+	if (status === 404)
+		return `No such ${what} in your workshops. The link may be mistyped, or the ${what} removed; the designer works without it.`;
 	if (status === 403) return body?.message ?? `Your role does not allow opening this ${what}.`;
 	return `The ${what} could not be opened (the server answered ${status}); the designer works without it.`;
 }
@@ -43,10 +44,18 @@ async function getJson(fetcher: typeof fetch, path: string): Promise<{ status: n
 	}
 }
 
-async function buildName(fetcher: typeof fetch, buildId: string): Promise<{ status: number; name: string | null; role: string | null; message?: string }> {
+async function buildName(
+	fetcher: typeof fetch,
+	buildId: string
+): Promise<{ status: number; name: string | null; role: string | null; message?: string }> {
 	const { status, body } = await getJson(fetcher, `/api/v1/builds/${encodeURIComponent(buildId)}`);
 	const build = body?.build as { name?: string } | undefined;
-	return { status, name: build?.name ?? null, role: (body?.role as string | undefined) ?? null, message: body?.message as string | undefined };
+	return {
+		status,
+		name: build?.name ?? null,
+		role: (body?.role as string | undefined) ?? null,
+		message: body?.message as string | undefined
+	};
 }
 
 /**
@@ -76,7 +85,10 @@ export const load: PageLoad = async ({ url, fetch }) => {
 	if (designId) {
 		const { status, body } = await getJson(fetch, `/api/v1/designs/${encodeURIComponent(designId)}`);
 		if (status !== 200 || !body) {
-			openError = status === 0 ? 'The wheel design could not be fetched: no answer from the server. The designer works without it.' : refusal(status, 'wheel design', body);
+			openError =
+				status === 0
+					? 'The wheel design could not be fetched: no answer from the server. The designer works without it.'
+					: refusal(status, 'wheel design', body);
 		} else {
 			const design = body.design as { id: string; name: string; buildId: string };
 			const revisions = (body.revisions as ApiRevision[]) ?? [];
@@ -104,7 +116,11 @@ export const load: PageLoad = async ({ url, fetch }) => {
 		}
 	} else if (buildId) {
 		const build = await buildName(fetch, buildId);
-		if (build.status !== 200) openError = build.status === 0 ? 'The build could not be fetched: no answer from the server. The designer works without it.' : refusal(build.status, 'build', { message: build.message });
+		if (build.status !== 200)
+			openError =
+				build.status === 0
+					? 'The build could not be fetched: no answer from the server. The designer works without it.'
+					: refusal(build.status, 'build', { message: build.message });
 		else opened = { kind: 'build', build: { id: buildId, name: build.name }, role: build.role };
 	}
 

@@ -40,7 +40,8 @@ export const actions: Actions = {
 			return fail(400, { action: 'invite', email: String(form.get('email') ?? ''), errors: parsed.errors });
 		}
 		const fromBuild = parsed.data.buildId ? await objectAccess(event, 'manage', 'build', parsed.data.buildId) : null;
-		if (fromBuild && parsed.data.workshopId && fromBuild.workshop.id !== parsed.data.workshopId) return fail(400, { action: 'invite', errors: { buildId: 'buildId: a build of the workshop invited into' } });
+		if (fromBuild && parsed.data.workshopId && fromBuild.workshop.id !== parsed.data.workshopId)
+			return fail(400, { action: 'invite', errors: { buildId: 'buildId: a build of the workshop invited into' } });
 		const access = fromBuild ?? (await workshopAccess(event, 'manage', parsed.data.workshopId));
 		const allowed = await reserveMail(db(), 'invitation', { address: parsed.data.email, client: event.getClientAddress() });
 		if (!allowed.ok) return fail(429, { action: 'invite', email: parsed.data.email, message: mailRefusal(allowed) });
@@ -59,7 +60,13 @@ export const actions: Actions = {
 				url: linkTo(`/invite/${token}`)
 			})
 		);
-		if (fromBuild) await logActivity(db(), { buildId: fromBuild.buildId, actorId: access.user.id, kind: 'invitation', summary: `${parsed.data.email} invited into ${access.workshop.name} as ${parsed.data.role}` });
+		if (fromBuild)
+			await logActivity(db(), {
+				buildId: fromBuild.buildId,
+				actorId: access.user.id,
+				kind: 'invitation',
+				summary: `${parsed.data.email} invited into ${access.workshop.name} as ${parsed.data.role}`
+			});
 		return { action: 'invite', invited: parsed.data.email };
 	},
 

@@ -30,11 +30,23 @@ export async function cuttingSpecPdf(s: CuttingSpec): Promise<Buffer> {
 	const notes = printable(s.notes);
 	const missing = [...new Set([...design.missing, ...build.missing, ...notes.missing])];
 	let y = margin;
-	doc.font('bold').fontSize(15).text(`Cutting spec: ${design.text}, revision ${s.revision}`, mm(margin), mm(y), { width: mm(width) });
+	doc
+		.font('bold')
+		.fontSize(15)
+		.text(`Cutting spec: ${design.text}, revision ${s.revision}`, mm(margin), mm(y), { width: mm(width) });
 	y += 9;
-	doc.font('text').fontSize(9).fillColor('#444').text(`${build.text} · ${s.date} · drawing: ${s.dxfName}`, mm(margin), mm(y), { width: mm(width) });
+	doc
+		.font('text')
+		.fontSize(9)
+		.fillColor('#444')
+		.text(`${build.text} · ${s.date} · drawing: ${s.dxfName}`, mm(margin), mm(y), { width: mm(width) });
 	y += 5;
-	if (missing.length) doc.font('text').fontSize(8).fillColor('#8a5200').text(missingNote(missing), mm(margin), mm(y), { width: mm(width) });
+	if (missing.length)
+		doc
+			.font('text')
+			.fontSize(8)
+			.fillColor('#8a5200')
+			.text(missingNote(missing), mm(margin), mm(y), { width: mm(width) });
 	y += 5;
 	const order: [string, string][] = [
 		['Quantity', String(s.quantity)],
@@ -46,9 +58,16 @@ export async function cuttingSpecPdf(s: CuttingSpec): Promise<Buffer> {
 	];
 	const rows = (list: [string, string][], fontSize: number) => {
 		for (const [k, v] of list) {
-			doc.font('text').fontSize(fontSize).fillColor('black').text(k, mm(margin), mm(y), { width: mm(48) });
-			doc.font('mono').fontSize(fontSize).text(v, mm(margin + 50), mm(y), { width: mm(width - 50) });
-			y += Math.max(5.5, (doc.heightOfString(v, { width: mm(width - 50) }) / mm(1)) + 1.5);
+			doc
+				.font('text')
+				.fontSize(fontSize)
+				.fillColor('black')
+				.text(k, mm(margin), mm(y), { width: mm(48) });
+			doc
+				.font('mono')
+				.fontSize(fontSize)
+				.text(v, mm(margin + 50), mm(y), { width: mm(width - 50) });
+			y += Math.max(5.5, doc.heightOfString(v, { width: mm(width - 50) }) / mm(1) + 1.5);
 		}
 	};
 	doc.font('bold').fontSize(11).text('Order', mm(margin), mm(y));
@@ -62,9 +81,21 @@ export async function cuttingSpecPdf(s: CuttingSpec): Promise<Buffer> {
 		y += 4;
 		doc.font('bold').fontSize(11).fillColor('black').text('Notes', mm(margin), mm(y));
 		y += 7;
-		doc.font('text').fontSize(9.5).text(notes.text, mm(margin), mm(y), { width: mm(width) });
+		doc
+			.font('text')
+			.fontSize(9.5)
+			.text(notes.text, mm(margin), mm(y), { width: mm(width) });
 		y += doc.heightOfString(notes.text, { width: mm(width) }) / mm(1) + 4;
 	}
-	doc.font('text').fontSize(8).fillColor('#444').text('Deburr all edges: cut parts are sharp. Keep the outline to the drawing; the gap and tooth edges set the engine’s timing.', mm(margin), mm(size.heightMm - margin - 8), { width: mm(width) });
+	doc
+		.font('text')
+		.fontSize(8)
+		.fillColor('#444')
+		.text(
+			'Deburr all edges: cut parts are sharp. Keep the outline to the drawing; the gap and tooth edges set the engine’s timing.',
+			mm(margin),
+			mm(size.heightMm - margin - 8),
+			{ width: mm(width) }
+		);
 	return finish(doc);
 }

@@ -43,22 +43,21 @@ const specs = fc
 		label: fc.constantFrom('', 'A', 'crank 60-2', 'Wheel 12.0203'),
 		rotation: fc.constantFrom('cw' as const, 'ccw' as const)
 	})
-	.map(
-		(g): WheelSpec =>
-			exampleSpec({
-				pattern: { kind: 'missing', teeth: g.teeth, missing: Math.min(g.missing, g.teeth - 1) },
-				odMm: g.odMm,
-				depthMm: g.depthMm,
-				tipRadiusMm: g.tipRadiusMm,
-				rootRadiusMm: g.rootRadiusMm,
-				boreMm: g.boreMm,
-				keyway: g.keyway && g.boreMm > 0 ? { widthMm: 4, depthMm: 1.8, source: 'custom keyway' } : null,
-				keywayDeg: g.keywayDeg,
-				bolts: g.bolts ? { count: 3, pcdMm: g.odMm * 0.55, holeMm: 4, clockDeg: 10 } : null,
-				indexMarkDeg: g.indexMarkDeg,
-				label: g.label,
-				rotation: g.rotation
-			})
+	.map((g): WheelSpec =>
+		exampleSpec({
+			pattern: { kind: 'missing', teeth: g.teeth, missing: Math.min(g.missing, g.teeth - 1) },
+			odMm: g.odMm,
+			depthMm: g.depthMm,
+			tipRadiusMm: g.tipRadiusMm,
+			rootRadiusMm: g.rootRadiusMm,
+			boreMm: g.boreMm,
+			keyway: g.keyway && g.boreMm > 0 ? { widthMm: 4, depthMm: 1.8, source: 'custom keyway' } : null,
+			keywayDeg: g.keywayDeg,
+			bolts: g.bolts ? { count: 3, pcdMm: g.odMm * 0.55, holeMm: 4, clockDeg: 10 } : null,
+			indexMarkDeg: g.indexMarkDeg,
+			label: g.label,
+			rotation: g.rotation
+		})
 	)
 	.filter((spec) => summarize(spec, 'mm', running).ok);
 

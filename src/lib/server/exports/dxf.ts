@@ -16,7 +16,11 @@ export const layers = {
 
 // makerjs's rounding (to 1e-7, integers as they are) and its fixed tables, as its toDXF writes them.
 const r = makerjs.round;
-const lineTypes = ['0\nLTYPE\n72\n65\n70\n0\n2\nCONTINUOUS\n3\n______\n73\n0\n40\n0', '0\nLTYPE\n72\n65\n70\n0\n2\nDASHED\n3\n_ _ _ \n73\n2\n40\n7.5\n49\n5\n49\n-2.5', '0\nLTYPE\n72\n65\n70\n0\n2\nDOTTED\n3\n. . . \n73\n2\n40\n1.5\n49\n0.5\n49\n-1'].join('\n');
+const lineTypes = [
+	'0\nLTYPE\n72\n65\n70\n0\n2\nCONTINUOUS\n3\n______\n73\n0\n40\n0',
+	'0\nLTYPE\n72\n65\n70\n0\n2\nDASHED\n3\n_ _ _ \n73\n2\n40\n7.5\n49\n5\n49\n-2.5',
+	'0\nLTYPE\n72\n65\n70\n0\n2\nDOTTED\n3\n. . . \n73\n2\n40\n1.5\n49\n0.5\n49\n-1'
+].join('\n');
 const layerRow = (l: { name: string; color: number }) => `0\nLAYER\n2\n${l.name}\n70\n0\n62\n${l.color}\n6\nCONTINUOUS`;
 
 /**
@@ -30,7 +34,8 @@ export function dxfAngle(deg: number): number {
 }
 
 function entity(s: Segment, k: number, layer: string): string {
-	if (s.kind === 'line') return `0\nLINE\n8\n${layer}\n6\nCONTINUOUS\n10\n${r(s.from.x * k)}\n20\n${r(s.from.y * k)}\n11\n${r(s.to.x * k)}\n21\n${r(s.to.y * k)}`;
+	if (s.kind === 'line')
+		return `0\nLINE\n8\n${layer}\n6\nCONTINUOUS\n10\n${r(s.from.x * k)}\n20\n${r(s.from.y * k)}\n11\n${r(s.to.x * k)}\n21\n${r(s.to.y * k)}`;
 	const [start, end] = s.ccw ? [s.startDeg, s.endDeg] : [s.endDeg, s.startDeg];
 	return `0\nARC\n8\n${layer}\n6\nCONTINUOUS\n10\n${r(s.center.x * k)}\n20\n${r(s.center.y * k)}\n40\n${r(s.radius * k)}\n50\n${dxfAngle(start)}\n51\n${dxfAngle(end)}`;
 }
@@ -52,7 +57,8 @@ export function dxfHeader(units: Units): string {
 }
 
 function contourEntities(c: Contour, k: number, layer: string): string[] {
-	if (c.kind === 'circle') return [`0\nCIRCLE\n8\n${layer}\n6\nCONTINUOUS\n10\n${r(c.center.x * k)}\n20\n${r(c.center.y * k)}\n40\n${r(c.radius * k)}`];
+	if (c.kind === 'circle')
+		return [`0\nCIRCLE\n8\n${layer}\n6\nCONTINUOUS\n10\n${r(c.center.x * k)}\n20\n${r(c.center.y * k)}\n40\n${r(c.radius * k)}`];
 	return c.segments.map((s) => entity(s, k, layer));
 }
 

@@ -10,7 +10,9 @@ import type { WheelSpec } from '$lib/trade/wheel';
  */
 export function exportName(spec: WheelSpec, units: Units, ext: 'dxf' | 'svg' | 'pdf', revision?: number, paper?: Paper): string {
 	const od = Number(fromMm(spec.odMm, units).toFixed(units === 'in' ? 3 : 2));
-	const pattern = patternName(spec.pattern).split(' ')[0]!.replace(/[^0-9+-]/g, '');
+	const pattern = patternName(spec.pattern)
+		.split(' ')[0]!
+		.replace(/[^0-9+-]/g, '');
 	return `wheel-${pattern || 'custom'}-${od}${units}${paper ? `-${paper}` : ''}${revision ? `-r${revision}` : ''}.${ext}`;
 }
 

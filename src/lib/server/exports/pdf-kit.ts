@@ -77,7 +77,12 @@ export const missingNote = (missing: string[]) =>
 
 /** A document with the shipped fonts; its first page `size`, or none yet when size is null (add it with addPageMm). */
 export function newDocument(title: string, size: { widthMm: number; heightMm: number } | null) {
-	const doc = new PDFDocument({ size: size ? [mm(size.widthMm), mm(size.heightMm)] : 'A4', margin: 0, info: { Title: title, Creator: 'Phasewright' }, autoFirstPage: size !== null });
+	const doc = new PDFDocument({
+		size: size ? [mm(size.widthMm), mm(size.heightMm)] : 'A4',
+		margin: 0,
+		info: { Title: title, Creator: 'Phasewright' },
+		autoFirstPage: size !== null
+	});
 	// pdfkit takes a parsed font (anything with layout()), though its types list only files and bytes.
 	doc.registerFont('text', parsedFont(pdfFonts.text) as unknown as PDFKit.Mixins.PDFFontSource);
 	doc.registerFont('bold', parsedFont(pdfFonts.bold) as unknown as PDFKit.Mixins.PDFFontSource);
@@ -144,19 +149,35 @@ export const printNote = 'Print at 100% / actual size (no "fit to page"). Measur
 export function calibrationBars(doc: PDFKit.PDFDocument, xMm: number, yMm: number) {
 	doc.save().lineWidth(0.5).strokeColor('black').fillColor('black');
 	const bar = (y: number, lengthMm: number, step: number, major: number, labels: (i: number) => string | null) => {
-		doc.moveTo(mm(xMm), mm(y)).lineTo(mm(xMm + lengthMm), mm(y)).stroke();
+		doc
+			.moveTo(mm(xMm), mm(y))
+			.lineTo(mm(xMm + lengthMm), mm(y))
+			.stroke();
 		const count = Math.round(lengthMm / step);
 		for (let i = 0; i <= count; i++) {
 			const x = mm(xMm + i * step);
 			const tall = i % major === 0;
-			doc.moveTo(x, mm(y)).lineTo(x, mm(y - (tall ? 3 : 1.5))).stroke();
+			doc
+				.moveTo(x, mm(y))
+				.lineTo(x, mm(y - (tall ? 3 : 1.5)))
+				.stroke();
 			const label = labels(i);
-			if (label) doc.font('mono').fontSize(6).text(label, x - 10, mm(y + 1), { width: 20, align: 'center' });
+			if (label)
+				doc
+					.font('mono')
+					.fontSize(6)
+					.text(label, x - 10, mm(y + 1), { width: 20, align: 'center' });
 		}
 	};
 	bar(yMm, 100, 1, 10, (i) => (i % 10 === 0 ? `${i}` : null));
-	doc.font('text').fontSize(7).text('100 mm', mm(xMm + 102), mm(yMm - 2));
+	doc
+		.font('text')
+		.fontSize(7)
+		.text('100 mm', mm(xMm + 102), mm(yMm - 2));
 	bar(yMm + 10, 101.6, 25.4 / 4, 4, (i) => (i % 4 === 0 ? `${i / 4}` : null));
-	doc.font('text').fontSize(7).text('4 in', mm(xMm + 104), mm(yMm + 8));
+	doc
+		.font('text')
+		.fontSize(7)
+		.text('4 in', mm(xMm + 104), mm(yMm + 8));
 	doc.restore();
 }

@@ -15,7 +15,9 @@ export function wheelSvg(spec: WheelSpec, units: Units): string {
 	const strokeWidth = 0.2 * k;
 	const half = fromMm(spec.odMm, units) / 2 + strokeWidth;
 	const size = 2 * half;
-	const cut = cutContours(d).map((c) => contourPath(c, k)).join('');
+	const cut = cutContours(d)
+		.map((c) => contourPath(c, k))
+		.join('');
 	// The label's letters as outlines, the same the DXF carries: no font left for a reader to choose.
 	const label = d.label ? `<path id="label" d="${outlinesPath(d.label.outlines, k)}"/>` : '';
 	const stroke = strokeWidth.toFixed(4);

@@ -1,7 +1,18 @@
 // The degree tape as a PDF to print at actual size: strips stacked on the page, tiled over pages
 // with overlap and join marks when the hub is large, calibration bars on every page.
 import { tapeEnds, tapeTravel, tdcSideOf, travelWords, type Rotation } from '$lib/trade/hub';
-import { fittingWords, mmPerDegree, tapeMarks, tapePage, tapeStrips, tapeWarnings, tapeX, ticks, type Strip, type TapeSpec } from '$lib/trade/tape';
+import {
+	fittingWords,
+	mmPerDegree,
+	tapeMarks,
+	tapePage,
+	tapeStrips,
+	tapeWarnings,
+	tapeX,
+	ticks,
+	type Strip,
+	type TapeSpec
+} from '$lib/trade/tape';
 import { formatLength, type Units } from '$lib/trade/units';
 import { calibrationBars, finish, mm, newDocument, papers, printable, printNote } from './pdf-kit';
 import { keyOf, Recent } from './recent';
@@ -36,60 +47,139 @@ async function drawTape(spec: TapeSpec, units: Units, paper: keyof typeof papers
 
 	for (let page = 1; page <= pages; page++) {
 		if (page > 1) doc.addPage({ size: [mm(size.widthMm), mm(size.heightMm)], margin: 0 });
-		doc.font('bold').fontSize(11).fillColor('black').text(`Degree tape: ${formatLength(spec.hubDiameterMm, units)} hub, ${(units === 'in' ? k / 25.4 : k).toFixed(4)} ${units} per degree`, mm(margin), mm(margin), { width: mm(textWidth) });
-		doc.font('text').fontSize(7).text(printNote, mm(margin), doc.y + 2, { width: mm(textWidth) });
+		doc
+			.font('bold')
+			.fontSize(11)
+			.fillColor('black')
+			.text(
+				`Degree tape: ${formatLength(spec.hubDiameterMm, units)} hub, ${(units === 'in' ? k / 25.4 : k).toFixed(4)} ${units} per degree`,
+				mm(margin),
+				mm(margin),
+				{ width: mm(textWidth) }
+			);
+		doc
+			.font('text')
+			.fontSize(7)
+			.text(printNote, mm(margin), doc.y + 2, { width: mm(textWidth) });
 		doc.text(`${fittingWords} ${travelWords(spec.rotation)}`, mm(margin), doc.y + 2, { width: mm(textWidth) });
-		doc.text(`Page ${page} of ${pages}. Cut along the dashed lines; glue each strip's end over the grey end of the next strip, their join marks one on the other.`, mm(margin), doc.y + 2, { width: mm(textWidth) });
+		doc.text(
+			`Page ${page} of ${pages}. Cut along the dashed lines; glue each strip's end over the grey end of the next strip, their join marks one on the other.`,
+			mm(margin),
+			doc.y + 2,
+			{ width: mm(textWidth) }
+		);
 		tapeWarnings(spec).forEach((w) => doc.fillColor('#8a5200').text(w, mm(margin), doc.y + 1, { width: mm(textWidth) }));
 		fittingDiagram(doc, spec.rotation, size.widthMm - margin - fitting.widthMm, margin);
 
-		strips.filter((s) => s.page === page).forEach((strip, row) => {
-			const top = margin + header + row * (stripHeight + rowGap);
-			const width = strip.toMm - strip.fromMm;
-			const x = (tapeMm: number) => mm(margin + tapeMm - strip.fromMm);
-			const i = strip.index - 1;
-			doc.save().lineWidth(0.3).dash(2, { space: 1.5 }).strokeColor('#888').rect(mm(margin), mm(top), mm(width), mm(stripHeight)).stroke().undash().restore();
-			// Join marks: the same tape point on both strips of a join, so lining them up lines up the scale.
-			const joinMark = (at: number, join: number) => {
-				doc.save().fillColor('black').polygon([x(at), mm(top + stripHeight)], [x(at) - mm(1.2), mm(top + stripHeight + 2)], [x(at) + mm(1.2), mm(top + stripHeight + 2)]).fill().restore();
-				doc.font('text').fontSize(5.5).fillColor('black').text(`join ${join}`, x(at) - mm(6), mm(top + stripHeight + 2.5), { width: mm(12), align: 'center', lineBreak: false });
-			};
-			if (i > 0) {
-				// The overlap: the previous strip's end is glued over it.
-				doc.save().fillColor('#eeeeee').rect(mm(margin), mm(top), mm(strips[i - 1]!.toMm - strip.fromMm), mm(stripHeight)).fill().restore();
-				doc.font('text').fontSize(5).fillColor('#555').text(`glue strip ${i} here`, mm(margin + 0.5), mm(top + stripHeight - 4), { lineBreak: false });
-				joinMark(joinMm(strips, i - 1), i);
-			}
-			if (i < strips.length - 1) joinMark(joinMm(strips, i), i + 1);
-			const labelAt = i > 0 ? strips[i - 1]!.toMm - strip.fromMm + 1 : 0;
-			doc.font('text').fontSize(5.5).fillColor('#555').text(`strip ${strip.index} of ${strips.length}`, mm(margin + labelAt), mm(top + stripHeight + 2.5), { lineBreak: false });
-
-			doc.lineWidth(0.25).strokeColor('black').fillColor('black').font('mono').fontSize(7);
-			for (const t of all) {
-				if (t.xMm < strip.fromMm - 1e-9 || t.xMm > strip.toMm + 1e-9) continue;
-				const length = t.size === 'major' ? 9 : t.size === 'mid' ? 6 : 3.5;
-				doc.moveTo(x(t.xMm), mm(top)).lineTo(x(t.xMm), mm(top + length)).stroke();
-				if (t.label) {
-					const w = doc.widthOfString(t.label);
-					// Only whole labels: a label cut by the strip's end would be read wrongly.
-					if (x(t.xMm) - w / 2 < mm(margin) || x(t.xMm) + w / 2 > mm(margin + width)) continue;
-					doc.text(t.label, x(t.xMm) - w / 2, mm(top + 10), { lineBreak: false });
-					doc.font(t.atdcDeg === 0 ? 'bold' : 'text').fontSize(4.5).text(side(t.atdcDeg), x(t.xMm) - mm(2.5), mm(top + 14), { width: mm(5), align: 'center', lineBreak: false });
-					doc.font('mono').fontSize(7);
+		strips
+			.filter((s) => s.page === page)
+			.forEach((strip, row) => {
+				const top = margin + header + row * (stripHeight + rowGap);
+				const width = strip.toMm - strip.fromMm;
+				const x = (tapeMm: number) => mm(margin + tapeMm - strip.fromMm);
+				const i = strip.index - 1;
+				doc
+					.save()
+					.lineWidth(0.3)
+					.dash(2, { space: 1.5 })
+					.strokeColor('#888')
+					.rect(mm(margin), mm(top), mm(width), mm(stripHeight))
+					.stroke()
+					.undash()
+					.restore();
+				// Join marks: the same tape point on both strips of a join, so lining them up lines up the scale.
+				const joinMark = (at: number, join: number) => {
+					doc
+						.save()
+						.fillColor('black')
+						.polygon(
+							[x(at), mm(top + stripHeight)],
+							[x(at) - mm(1.2), mm(top + stripHeight + 2)],
+							[x(at) + mm(1.2), mm(top + stripHeight + 2)]
+						)
+						.fill()
+						.restore();
+					doc
+						.font('text')
+						.fontSize(5.5)
+						.fillColor('black')
+						.text(`join ${join}`, x(at) - mm(6), mm(top + stripHeight + 2.5), { width: mm(12), align: 'center', lineBreak: false });
+				};
+				if (i > 0) {
+					// The overlap: the previous strip's end is glued over it.
+					doc
+						.save()
+						.fillColor('#eeeeee')
+						.rect(mm(margin), mm(top), mm(strips[i - 1]!.toMm - strip.fromMm), mm(stripHeight))
+						.fill()
+						.restore();
+					doc
+						.font('text')
+						.fontSize(5)
+						.fillColor('#555')
+						.text(`glue strip ${i} here`, mm(margin + 0.5), mm(top + stripHeight - 4), { lineBreak: false });
+					joinMark(joinMm(strips, i - 1), i);
 				}
-			}
-			for (const m of tapeMarks(spec)) {
-				if (!m.onTape) continue;
-				const at = tapeX(spec, m.atdcDeg);
-				const color = m.kind === 'timing' ? '#8a5200' : '#1d47b0';
-				if (at < strip.fromMm || at > strip.toMm) continue;
-				doc.save().lineWidth(0.6).strokeColor(color).moveTo(x(at), mm(top + 16.5)).lineTo(x(at), mm(top + stripHeight)).stroke().restore();
-				// A mark's own name: a character the font lacks shows as "?" rather than vanishing (pdf-kit.ts).
-				doc.font('text').fontSize(5.5).fillColor(color).text(printable(m.label).text, x(at) + mm(0.8), mm(top + 18), { lineBreak: false });
-				doc.fillColor('black');
-			}
-		});
-		doc.font('text').fontSize(6.5).fillColor('black').text('Engine off and ignition off while fitting the tape. Verify timing with a timing light before load; keep hands and leads clear of the pulley.', mm(margin), mm(size.heightMm - margin - footer + 1), { width: mm(size.widthMm - 2 * margin), lineBreak: false });
+				if (i < strips.length - 1) joinMark(joinMm(strips, i), i + 1);
+				const labelAt = i > 0 ? strips[i - 1]!.toMm - strip.fromMm + 1 : 0;
+				doc
+					.font('text')
+					.fontSize(5.5)
+					.fillColor('#555')
+					.text(`strip ${strip.index} of ${strips.length}`, mm(margin + labelAt), mm(top + stripHeight + 2.5), { lineBreak: false });
+
+				doc.lineWidth(0.25).strokeColor('black').fillColor('black').font('mono').fontSize(7);
+				for (const t of all) {
+					if (t.xMm < strip.fromMm - 1e-9 || t.xMm > strip.toMm + 1e-9) continue;
+					const length = t.size === 'major' ? 9 : t.size === 'mid' ? 6 : 3.5;
+					doc
+						.moveTo(x(t.xMm), mm(top))
+						.lineTo(x(t.xMm), mm(top + length))
+						.stroke();
+					if (t.label) {
+						const w = doc.widthOfString(t.label);
+						// Only whole labels: a label cut by the strip's end would be read wrongly.
+						if (x(t.xMm) - w / 2 < mm(margin) || x(t.xMm) + w / 2 > mm(margin + width)) continue;
+						doc.text(t.label, x(t.xMm) - w / 2, mm(top + 10), { lineBreak: false });
+						doc
+							.font(t.atdcDeg === 0 ? 'bold' : 'text')
+							.fontSize(4.5)
+							.text(side(t.atdcDeg), x(t.xMm) - mm(2.5), mm(top + 14), { width: mm(5), align: 'center', lineBreak: false });
+						doc.font('mono').fontSize(7);
+					}
+				}
+				for (const m of tapeMarks(spec)) {
+					if (!m.onTape) continue;
+					const at = tapeX(spec, m.atdcDeg);
+					const color = m.kind === 'timing' ? '#8a5200' : '#1d47b0';
+					if (at < strip.fromMm || at > strip.toMm) continue;
+					doc
+						.save()
+						.lineWidth(0.6)
+						.strokeColor(color)
+						.moveTo(x(at), mm(top + 16.5))
+						.lineTo(x(at), mm(top + stripHeight))
+						.stroke()
+						.restore();
+					// A mark's own name: a character the font lacks shows as "?" rather than vanishing (pdf-kit.ts).
+					doc
+						.font('text')
+						.fontSize(5.5)
+						.fillColor(color)
+						.text(printable(m.label).text, x(at) + mm(0.8), mm(top + 18), { lineBreak: false });
+					doc.fillColor('black');
+				}
+			});
+		doc
+			.font('text')
+			.fontSize(6.5)
+			.fillColor('black')
+			.text(
+				'Engine off and ignition off while fitting the tape. Verify timing with a timing light before load; keep hands and leads clear of the pulley.',
+				mm(margin),
+				mm(size.heightMm - margin - footer + 1),
+				{ width: mm(size.widthMm - 2 * margin), lineBreak: false }
+			);
 		calibrationBars(doc, margin, size.heightMm - margin - 12);
 	}
 	return finish(doc);
@@ -114,7 +204,10 @@ function fittingDiagram(doc: PDFKit.PDFDocument, rotation: Rotation, left: numbe
 	const cx = left + 15;
 	const cy = top + 19;
 	const r = 9;
-	const at = (deg: number, radius: number): [number, number] => [P(cx + radius * Math.cos((deg * Math.PI) / 180)), P(cy - radius * Math.sin((deg * Math.PI) / 180))];
+	const at = (deg: number, radius: number): [number, number] => [
+		P(cx + radius * Math.cos((deg * Math.PI) / 180)),
+		P(cy - radius * Math.sin((deg * Math.PI) / 180))
+	];
 	doc.lineWidth(0.5).strokeColor('black').circle(P(cx), P(cy), P(r)).stroke();
 	doc.circle(P(cx), P(cy), P(1.2)).fill('black');
 	// The tape on the rim round the pointer.
@@ -122,12 +215,20 @@ function fittingDiagram(doc: PDFKit.PDFDocument, rotation: Rotation, left: numbe
 	doc.path(`M ${at(150, r + 0.7).join(' ')} A ${P(r + 0.7)} ${P(r + 0.7)} 0 0 1 ${at(30, r + 0.7).join(' ')}`).stroke();
 	doc.lineWidth(0.3).strokeColor('black');
 	doc.polygon([P(cx), P(cy - r - 1.6)], [P(cx - 1.3), P(cy - r - 4)], [P(cx + 1.3), P(cy - r - 4)]).fill('black');
-	doc.font('text').fontSize(5).fillColor('black').text('pointer', P(cx + 1.8), P(cy - r - 4.6), { lineBreak: false });
+	doc
+		.font('text')
+		.fontSize(5)
+		.fillColor('black')
+		.text('pointer', P(cx + 1.8), P(cy - r - 4.6), { lineBreak: false });
 	// Rotation arrow inside the hub.
 	const a0 = 120;
 	const a1 = 60;
 	const [from, to] = travel === 1 ? [a0, a1] : [a1, a0];
-	doc.lineWidth(0.5).strokeColor('black').path(`M ${at(from, 5.5).join(' ')} A ${P(5.5)} ${P(5.5)} 0 0 ${travel === 1 ? 1 : 0} ${at(to, 5.5).join(' ')}`).stroke();
+	doc
+		.lineWidth(0.5)
+		.strokeColor('black')
+		.path(`M ${at(from, 5.5).join(' ')} A ${P(5.5)} ${P(5.5)} 0 0 ${travel === 1 ? 1 : 0} ${at(to, 5.5).join(' ')}`)
+		.stroke();
 	const tip = at(to - travel * 14, 5.5);
 	const b1 = at(to, 4.2);
 	const b2 = at(to, 6.8);
@@ -139,34 +240,76 @@ function fittingDiagram(doc: PDFKit.PDFDocument, rotation: Rotation, left: numbe
 	const ink = (word: string) => (word === 'BTDC' ? '#8a5200' : 'black');
 	doc.fillColor(ink(ends.left)).text(ends.left, leftEnd[0] - P(8), leftEnd[1] - P(2), { width: P(8), align: 'right', lineBreak: false });
 	doc.fillColor(ink(ends.right)).text(ends.right, rightEnd[0], rightEnd[1] - P(2), { lineBreak: false });
-	doc.font('text').fontSize(5).fillColor('black').text(`seen from the wheel side, turning ${rotation === 'cw' ? 'clockwise' : 'counter-clockwise'}`, P(left + 1), P(top + fitting.heightMm - 4.5), { width: P(30), align: 'center' });
+	doc
+		.font('text')
+		.fontSize(5)
+		.fillColor('black')
+		.text(
+			`seen from the wheel side, turning ${rotation === 'cw' ? 'clockwise' : 'counter-clockwise'}`,
+			P(left + 1),
+			P(top + fitting.heightMm - 4.5),
+			{ width: P(30), align: 'center' }
+		);
 
 	// The tape at the pointer, looking at the rim: engine beyond, wheel face toward you.
 	const bx = left + 33;
 	const bw = fitting.widthMm - 35;
 	doc.rect(P(bx), P(top + 2), P(bw), P(4)).fill('#dddddd');
-	doc.fillColor('black').font('bold').fontSize(5.5).text('ENGINE', P(bx), P(top + 2.8), { width: P(bw), align: 'center', lineBreak: false });
+	doc
+		.fillColor('black')
+		.font('bold')
+		.fontSize(5.5)
+		.text('ENGINE', P(bx), P(top + 2.8), { width: P(bw), align: 'center', lineBreak: false });
 	const tx = bx + bw / 2;
 	doc.polygon([P(tx), P(top + 9.5)], [P(tx - 1.3), P(top + 6.5)], [P(tx + 1.3), P(top + 6.5)]).fill('black');
 	const tapeTop = top + 9.5;
 	const tapeH = 9;
-	doc.lineWidth(0.4).strokeColor('black').rect(P(bx + 1), P(tapeTop), P(bw - 2), P(tapeH)).stroke();
+	doc
+		.lineWidth(0.4)
+		.strokeColor('black')
+		.rect(P(bx + 1), P(tapeTop), P(bw - 2), P(tapeH))
+		.stroke();
 	for (let d = -7; d <= 7; d++) {
 		const xx = tx + d * 2.2;
-		doc.lineWidth(d === 0 ? 0.6 : 0.25).moveTo(P(xx), P(tapeTop)).lineTo(P(xx), P(tapeTop + (d === 0 ? 3.5 : d % 5 === 0 ? 2.5 : 1.5))).stroke();
+		doc
+			.lineWidth(d === 0 ? 0.6 : 0.25)
+			.moveTo(P(xx), P(tapeTop))
+			.lineTo(P(xx), P(tapeTop + (d === 0 ? 3.5 : d % 5 === 0 ? 2.5 : 1.5)))
+			.stroke();
 	}
-	doc.font('bold').fontSize(4.5).text('TDC', P(tx - 3), P(tapeTop + 3.4), { width: P(6), align: 'center', lineBreak: false });
-	doc.font('bold').fontSize(4.5).fillColor(ink(ends.left)).text(ends.left, P(tx - 13), P(tapeTop + 3.4), { width: P(8), align: 'center', lineBreak: false });
+	doc
+		.font('bold')
+		.fontSize(4.5)
+		.text('TDC', P(tx - 3), P(tapeTop + 3.4), { width: P(6), align: 'center', lineBreak: false });
+	doc
+		.font('bold')
+		.fontSize(4.5)
+		.fillColor(ink(ends.left))
+		.text(ends.left, P(tx - 13), P(tapeTop + 3.4), { width: P(8), align: 'center', lineBreak: false });
 	doc.fillColor(ink(ends.right)).text(ends.right, P(tx + 5), P(tapeTop + 3.4), { width: P(8), align: 'center', lineBreak: false });
-	doc.font('text').fontSize(4.5).text('top edge (header side) toward the engine', P(bx), P(tapeTop + tapeH - 2.9), { width: P(bw), align: 'center', lineBreak: false });
+	doc
+		.font('text')
+		.fontSize(4.5)
+		.text('top edge (header side) toward the engine', P(bx), P(tapeTop + tapeH - 2.9), { width: P(bw), align: 'center', lineBreak: false });
 	// The way the tape moves past the pointer.
 	const ay = tapeTop + tapeH + 3;
 	const half = bw / 2 - 5;
 	const [ax0, ax1] = [tx - travel * half, tx + travel * half];
-	doc.lineWidth(0.6).moveTo(P(ax0), P(ay)).lineTo(P(ax1 - travel * 1.8), P(ay)).stroke();
+	doc
+		.lineWidth(0.6)
+		.moveTo(P(ax0), P(ay))
+		.lineTo(P(ax1 - travel * 1.8), P(ay))
+		.stroke();
 	doc.polygon([P(ax1), P(ay)], [P(ax1 - travel * 2.2), P(ay - 1.2)], [P(ax1 - travel * 2.2), P(ay + 1.2)]).fill('black');
-	doc.font('text').fontSize(5).text('tape moves this way', P(bx), P(ay + 1.6), { width: P(bw), align: 'center', lineBreak: false });
+	doc
+		.font('text')
+		.fontSize(5)
+		.text('tape moves this way', P(bx), P(ay + 1.6), { width: P(bw), align: 'center', lineBreak: false });
 	doc.rect(P(bx), P(ay + 5), P(bw), P(4)).fill('#eef3ff');
-	doc.fillColor('black').font('bold').fontSize(5.5).text('WHEEL FACE: YOU', P(bx), P(ay + 5.8), { width: P(bw), align: 'center', lineBreak: false });
+	doc
+		.fillColor('black')
+		.font('bold')
+		.fontSize(5.5)
+		.text('WHEEL FACE: YOU', P(bx), P(ay + 5.8), { width: P(bw), align: 'center', lineBreak: false });
 	doc.restore();
 }

@@ -24,7 +24,14 @@ export async function wheelFile(kind: WheelFileKind, wheel: ParsedWheel, summary
 	const key = keyOf(kind === 'pdf' ? [kind, spec, units, running, paper] : [kind, spec, units]);
 	let made = recent.get(key);
 	if (!made) {
-		made = recent.set(key, kind === 'dxf' ? Promise.resolve(wheelDxf(spec, units)) : kind === 'svg' ? Promise.resolve(wheelSvg(spec, units)) : wheelPdf(spec, summary, units, paper));
+		made = recent.set(
+			key,
+			kind === 'dxf'
+				? Promise.resolve(wheelDxf(spec, units))
+				: kind === 'svg'
+					? Promise.resolve(wheelSvg(spec, units))
+					: wheelPdf(spec, summary, units, paper)
+		);
 		made.catch(() => recent.delete(key));
 	}
 	return { body: await made, contentType: types[kind], name: exportName(spec, units, kind, revision, kind === 'pdf' ? paper : undefined) };

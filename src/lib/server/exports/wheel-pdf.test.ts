@@ -29,7 +29,13 @@ interface Page {
 	words: Word[];
 }
 
-const unescape = (s: string) => s.replace(/&lt;/g, '<').replace(/&gt;/g, '>').replace(/&quot;/g, '"').replace(/&apos;/g, "'").replace(/&amp;/g, '&');
+const unescape = (s: string) =>
+	s
+		.replace(/&lt;/g, '<')
+		.replace(/&gt;/g, '>')
+		.replace(/&quot;/g, '"')
+		.replace(/&apos;/g, "'")
+		.replace(/&amp;/g, '&');
 
 /** Each page's word boxes (pt, y down), as poppler's pdftotext -bbox reports them. */
 function pdfWords(pdf: Buffer): Page[] {
@@ -41,13 +47,15 @@ function pdfWords(pdf: Buffer): Page[] {
 		.slice(1)
 		.map((chunk) => {
 			const [, w, h] = /width="([\d.]+)" height="([\d.]+)"/.exec(chunk)!;
-			const words = [...chunk.matchAll(/<word xMin="([-\d.]+)" yMin="([-\d.]+)" xMax="([-\d.]+)" yMax="([-\d.]+)">(.*?)<\/word>/g)].map((m) => ({
-				x0: Number(m[1]),
-				y0: Number(m[2]),
-				x1: Number(m[3]),
-				y1: Number(m[4]),
-				text: unescape(m[5]!)
-			}));
+			const words = [...chunk.matchAll(/<word xMin="([-\d.]+)" yMin="([-\d.]+)" xMax="([-\d.]+)" yMax="([-\d.]+)">(.*?)<\/word>/g)].map(
+				(m) => ({
+					x0: Number(m[1]),
+					y0: Number(m[2]),
+					x1: Number(m[3]),
+					y1: Number(m[4]),
+					text: unescape(m[5]!)
+				})
+			);
 			return { width: Number(w), height: Number(h), words };
 		});
 }
@@ -56,14 +64,17 @@ function pdfWords(pdf: Buffer): Page[] {
 function overlaps(pages: Page[]): string[] {
 	const found: string[] = [];
 	pages.forEach((p, n) => {
-		for (const w of p.words) if (w.x0 < -0.01 || w.y0 < -0.01 || w.x1 > p.width + 0.01 || w.y1 > p.height + 0.01) found.push(`page ${n + 1}: "${w.text}" off the page`);
+		for (const w of p.words)
+			if (w.x0 < -0.01 || w.y0 < -0.01 || w.x1 > p.width + 0.01 || w.y1 > p.height + 0.01)
+				found.push(`page ${n + 1}: "${w.text}" off the page`);
 		const ws = [...p.words].sort((a, b) => a.y0 - b.y0);
 		for (let i = 0; i < ws.length; i++)
 			for (let j = i + 1; j < ws.length && ws[j]!.y0 < ws[i]!.y1; j++) {
 				const [a, b] = [ws[i]!, ws[j]!];
 				const dx = Math.min(a.x1, b.x1) - Math.max(a.x0, b.x0);
 				const dy = Math.min(a.y1, b.y1) - Math.max(a.y0, b.y0);
-				if (dx > 0.01 && dy > 0.01) found.push(`page ${n + 1}: "${a.text}" [${a.x0},${a.y0},${a.x1},${a.y1}] and "${b.text}" [${b.x0},${b.y0},${b.x1},${b.y1}]`);
+				if (dx > 0.01 && dy > 0.01)
+					found.push(`page ${n + 1}: "${a.text}" [${a.x0},${a.y0},${a.x1},${a.y1}] and "${b.text}" [${b.x0},${b.y0},${b.x1},${b.y1}]`);
 			}
 	});
 	return found;
@@ -84,7 +95,12 @@ const accepted = (p: WheelParams) => {
 };
 
 // A label as long as the field allows (40 characters), wide letters and non-ASCII ones among them.
-const longLabel = fc.constantFrom('WWWWWWWWWWWWWWWWWWWWWWWWWWWWWWWWWWWWWWWW', 'Kawasaki Z1 crank 36-1 rev B, 2026-12-02', 'MMMM mmmm WWWW wwww ÄÖÜ ß 0123456789 ....', 'Übersetzung Kurbelwelle 60-2 / Zündung!!');
+const longLabel = fc.constantFrom(
+	'WWWWWWWWWWWWWWWWWWWWWWWWWWWWWWWWWWWWWWWW',
+	'Kawasaki Z1 crank 36-1 rev B, 2026-12-02',
+	'MMMM mmmm WWWW wwww ÄÖÜ ß 0123456789 ....',
+	'Übersetzung Kurbelwelle 60-2 / Zündung!!'
+);
 
 describe('the wheel PDF template, read by poppler', () => {
 	it('never prints one word over another, on A4 and Letter (property test over generated wheels)', async () => {
@@ -108,33 +124,37 @@ describe('the wheel PDF template, read by poppler', () => {
 		);
 	}, 120_000);
 
-	it.each(['a4', 'letter'])('keeps a wrapped keyway row, two-line warnings and a long table apart, and flows it on (%s)', async (paper) => {
-		// 60-2 on a narrow ring: a B17.1 keyway (its row wraps), a long label, thin web and shallow
-		// teeth (warnings over two lines), 90 gaps listed (a Pattern row of many lines: page 2).
-		const gaps = Array.from({ length: 90 }, (_, i) => 2 * i + 1).join(',');
-		const { pdf } = await template({
-			units: 'mm',
-			pattern: 'custom',
-			teeth: '240',
-			gaps,
-			od: '180',
-			depth: '0.8',
-			bore: '60',
-			keyway: 'b17.1',
-			shaft: '60',
-			label: 'Kawasaki Z1 crank 36-1 rev B, 2026-12-02',
-			rpm: '20000',
-			paper
-		});
-		const pages = pdfWords(pdf);
-		expect(pages.length).toBeGreaterThan(1);
-		expect(overlaps(pages)).toEqual([]);
-		const words = pages.flatMap((p) => p.words.map((w) => w.text));
-		expect(words).toContain('continued');
-		expect(words).toContain('Warnings');
-		expect(words).toContain('Layers');
-		for (const page of pages) expect(page.words.map((w) => w.text)).toContain('sharp');
-	}, 30_000);
+	it.each(['a4', 'letter'])(
+		'keeps a wrapped keyway row, two-line warnings and a long table apart, and flows it on (%s)',
+		async (paper) => {
+			// 60-2 on a narrow ring: a B17.1 keyway (its row wraps), a long label, thin web and shallow
+			// teeth (warnings over two lines), 90 gaps listed (a Pattern row of many lines: page 2).
+			const gaps = Array.from({ length: 90 }, (_, i) => 2 * i + 1).join(',');
+			const { pdf } = await template({
+				units: 'mm',
+				pattern: 'custom',
+				teeth: '240',
+				gaps,
+				od: '180',
+				depth: '0.8',
+				bore: '60',
+				keyway: 'b17.1',
+				shaft: '60',
+				label: 'Kawasaki Z1 crank 36-1 rev B, 2026-12-02',
+				rpm: '20000',
+				paper
+			});
+			const pages = pdfWords(pdf);
+			expect(pages.length).toBeGreaterThan(1);
+			expect(overlaps(pages)).toEqual([]);
+			const words = pages.flatMap((p) => p.words.map((w) => w.text));
+			expect(words).toContain('continued');
+			expect(words).toContain('Warnings');
+			expect(words).toContain('Layers');
+			for (const page of pages) expect(page.words.map((w) => w.text)).toContain('sharp');
+		},
+		30_000
+	);
 });
 
 /** The words of the Layers row's value: right of its key, from its line down to the next key. */
@@ -174,10 +194,26 @@ describe('the Layers row says where the index mark is (from the mark option)', (
 	it.each([
 		['0', 'cw', 'etch: blue index mark at the leading edge of the first tooth after the gap'],
 		['0', 'ccw', 'etch: blue index mark at the leading edge of the first tooth after the gap'],
-		['90', 'cw', 'etch: blue index mark 90° after the leading edge of the first tooth after the gap (it passes a fixed point 90° of rotation later)'],
-		['90', 'ccw', 'etch: blue index mark 90° after the leading edge of the first tooth after the gap (it passes a fixed point 90° of rotation later)'],
-		['-30', 'cw', 'etch: blue index mark 30° before the leading edge of the first tooth after the gap (it passes a fixed point 30° of rotation earlier)'],
-		['330', 'ccw', 'etch: blue index mark 30° before the leading edge of the first tooth after the gap (it passes a fixed point 30° of rotation earlier)'],
+		[
+			'90',
+			'cw',
+			'etch: blue index mark 90° after the leading edge of the first tooth after the gap (it passes a fixed point 90° of rotation later)'
+		],
+		[
+			'90',
+			'ccw',
+			'etch: blue index mark 90° after the leading edge of the first tooth after the gap (it passes a fixed point 90° of rotation later)'
+		],
+		[
+			'-30',
+			'cw',
+			'etch: blue index mark 30° before the leading edge of the first tooth after the gap (it passes a fixed point 30° of rotation earlier)'
+		],
+		[
+			'330',
+			'ccw',
+			'etch: blue index mark 30° before the leading edge of the first tooth after the gap (it passes a fixed point 30° of rotation earlier)'
+		],
 		['none', 'cw', 'cut: red outline; nothing etched']
 	] as const)('mark=%s, %s', async (mark, rotation, words) => {
 		const params = { ...base, mark, rotation };
@@ -197,7 +233,23 @@ describe('the Layers row says where the index mark is (from the mark option)', (
 
 	it('names the label on the etch layer, and position 0 on a wheel with no gap', async () => {
 		expect(layersWords(pdfWords((await template({ ...base, mark: 'none', label: 'crank' })).pdf))).toContain('etch: blue label');
-		const cam = layersWords(pdfWords((await template({ units: 'mm', pattern: 'extra', teeth: '4', extraAfter: '0', duty: '0.2', od: '120', depth: '5', bore: '20', mark: '0' })).pdf));
+		const cam = layersWords(
+			pdfWords(
+				(
+					await template({
+						units: 'mm',
+						pattern: 'extra',
+						teeth: '4',
+						extraAfter: '0',
+						duty: '0.2',
+						od: '120',
+						depth: '5',
+						bore: '20',
+						mark: '0'
+					})
+				).pdf
+			)
+		);
 		expect(cam).toContain('index mark at the leading edge of tooth position 0');
 		expect(cam).not.toContain('gap');
 	});

@@ -17,12 +17,26 @@ export function specRows(spec: WheelSpec, summary: WheelSummary, units: Units): 
 		['Tooth depth, width', `${L(spec.depthMm)}, ${summary.toothWidthDeg}° (duty ${spec.duty})`],
 		['Corner radius tip / root', `${L(spec.tipRadiusMm)} / ${L(spec.rootRadiusMm)}`],
 		['Bore', spec.boreMm > 0 ? L(spec.boreMm) : 'none'],
-		['Keyway', spec.keyway ? `${L(spec.keyway.widthMm)} wide, ${L(spec.keyway.depthMm)} deep at ${spec.keywayDeg}° (${spec.keyway.source})` : 'none'],
-		['Bolt holes', spec.bolts ? `${spec.bolts.count} x ${L(spec.bolts.holeMm)} on ${L(spec.bolts.pcdMm)} PCD from ${spec.bolts.clockDeg}°` : 'none'],
-		['Balance holes', spec.balanceHoles ? `${spec.balanceHoles.count} x ${L(spec.balanceHoles.holeMm)} on ${L(spec.balanceHoles.pcdMm)} PCD from ${spec.balanceHoles.clockDeg.toFixed(1)}°` : 'none'],
+		[
+			'Keyway',
+			spec.keyway ? `${L(spec.keyway.widthMm)} wide, ${L(spec.keyway.depthMm)} deep at ${spec.keywayDeg}° (${spec.keyway.source})` : 'none'
+		],
+		[
+			'Bolt holes',
+			spec.bolts ? `${spec.bolts.count} x ${L(spec.bolts.holeMm)} on ${L(spec.bolts.pcdMm)} PCD from ${spec.bolts.clockDeg}°` : 'none'
+		],
+		[
+			'Balance holes',
+			spec.balanceHoles
+				? `${spec.balanceHoles.count} x ${L(spec.balanceHoles.holeMm)} on ${L(spec.balanceHoles.pcdMm)} PCD from ${spec.balanceHoles.clockDeg.toFixed(1)}°`
+				: 'none'
+		],
 		['Material, thickness', `${spec.materialLabel}, ${L(spec.thicknessMm)}`],
 		['Mass', `${summary.massG.toFixed(1)} g`],
-		['Static unbalance', `${summary.unbalance.gmm.toFixed(1)} g·mm (ISO 21940-11 G ${summary.permissible.grade} at ${summary.unbalance.rpm} rpm allows ${summary.permissible.gmm.toFixed(1)} g·mm)`],
+		[
+			'Static unbalance',
+			`${summary.unbalance.gmm.toFixed(1)} g·mm (ISO 21940-11 G ${summary.permissible.grade} at ${summary.unbalance.rpm} rpm allows ${summary.permissible.gmm.toFixed(1)} g·mm)`
+		],
 		['Rotation (seen from this face)', spec.rotation === 'cw' ? 'clockwise' : 'counter-clockwise'],
 		['Label', spec.label ? `"${spec.label}"` : 'none'],
 		['Layers', layersRow(spec)]
@@ -60,7 +74,8 @@ const gapMm = 1.2;
 /** The key column's width and where the value column starts, mm from the margin. */
 const keyMm = 45;
 const valueAtMm = 47;
-const caution = 'Cut parts have sharp edges: deburr them. A missing-tooth wheel is out of balance by design; check it before running at speed.';
+const caution =
+	'Cut parts have sharp edges: deburr them. A missing-tooth wheel is out of balance by design; check it before running at speed.';
 
 type Size = { widthMm: number; heightMm: number };
 type Font = { font: 'text' | 'bold' | 'mono'; size: number };
@@ -197,7 +212,11 @@ export async function wheelPdf(spec: WheelSpec, summary: WheelSummary, units: Un
 		for (let i = 0; i < n; i++) {
 			flow.room(lh, continued);
 			if (keyLines[i]) flow.use(key).fillColor('black').text(keyLines[i]!, mm(margin), mm(flow.y), { lineBreak: false });
-			if (valueLines[i]) flow.use(value).fillColor('black').text(valueLines[i]!, mm(margin + valueAtMm), mm(flow.y), { lineBreak: false });
+			if (valueLines[i])
+				flow
+					.use(value)
+					.fillColor('black')
+					.text(valueLines[i]!, mm(margin + valueAtMm), mm(flow.y), { lineBreak: false });
 			flow.y += lh;
 		}
 		flow.y += gapMm;

@@ -96,7 +96,11 @@ export function fitCircle(points: Pt[]): Outline | null {
 export function fitEllipse(points: Pt[], inside: Pt, scale: number): Outline | null {
 	if (points.length < 5) return null;
 	const local = points.map((p) => ({ x: (p.x - inside.x) / scale, y: -(p.y - inside.y) / scale }));
-	const s = leastSquares(local, (x, y) => [x * x, x * y, y * y, x, y], () => 1);
+	const s = leastSquares(
+		local,
+		(x, y) => [x * x, x * y, y * y, x, y],
+		() => 1
+	);
 	if (!s) return null;
 	const [a, b, c, d, e] = s as [number, number, number, number, number];
 	const det = 4 * a * c - b * b;

@@ -56,7 +56,11 @@ function crc32(bytes: Uint8Array): number {
 
 /** A 1 x 1 PNG whose IHDR claims `side` x `side`: the shape of a decompression bomb. */
 async function bombPng(side: number): Promise<Buffer> {
-	const png = Buffer.from(await sharp({ create: { width: 1, height: 1, channels: 3, background: blue } }).png().toBuffer());
+	const png = Buffer.from(
+		await sharp({ create: { width: 1, height: 1, channels: 3, background: blue } })
+			.png()
+			.toBuffer()
+	);
 	// PNG spec: 8-byte signature, then IHDR: length at 8, type at 12, width at 16, height at 20,
 	// 13 data bytes, CRC over type + data at 29.
 	expect(png.subarray(12, 16).toString('latin1')).toBe('IHDR');
@@ -112,7 +116,9 @@ describe('intakePhoto', () => {
 	it('takes a PNG, drops XMP and converts its ICC profile to sRGB', async () => {
 		const input = await sharp({ create: { width: 1000, height: 500, channels: 3, background: { r: 200, g: 60, b: 40 } } })
 			.png()
-			.withXmp('<x:xmpmeta xmlns:x="adobe:ns:meta/"><rdf:RDF xmlns:rdf="http://www.w3.org/1999/02/22-rdf-syntax-ns#"><rdf:Description xmlns:dc="http://purl.org/dc/elements/1.1/"><dc:creator>Secret Owner</dc:creator></rdf:Description></rdf:RDF></x:xmpmeta>')
+			.withXmp(
+				'<x:xmpmeta xmlns:x="adobe:ns:meta/"><rdf:RDF xmlns:rdf="http://www.w3.org/1999/02/22-rdf-syntax-ns#"><rdf:Description xmlns:dc="http://purl.org/dc/elements/1.1/"><dc:creator>Secret Owner</dc:creator></rdf:Description></rdf:RDF></x:xmpmeta>'
+			)
 			.withIccProfile('p3')
 			.toBuffer();
 		// The file holds Display P3 numbers, not sRGB ones (read with the profile ignored).
@@ -148,7 +154,9 @@ describe('intakePhoto', () => {
 		expect(text).toMatchObject({ status: 400, message: "file: JPEG, PNG or WebP only; this file's bytes are plain text" });
 		const svg = Buffer.from('<?xml version="1.0"?>\n<svg xmlns="http://www.w3.org/2000/svg" width="10" height="10"/>');
 		expect((await refused(svg, 'wheel.png')).message).toMatch(/bytes are SVG$/);
-		const gif = await sharp({ create: { width: 4, height: 4, channels: 3, background: red } }).gif().toBuffer();
+		const gif = await sharp({ create: { width: 4, height: 4, channels: 3, background: red } })
+			.gif()
+			.toBuffer();
 		expect((await refused(gif)).message).toMatch(/bytes are a GIF$/);
 		expect((await refused(Buffer.from('%PDF-1.7\n%\xe2\xe3\xcf\xd3\n', 'latin1'))).message).toMatch(/bytes are a PDF$/);
 		// ISO/IEC 23008-12 (HEIF): a box of type 'ftyp' with major brand 'heic' first.
@@ -160,12 +168,16 @@ describe('intakePhoto', () => {
 		expect((await refused(Buffer.alloc(0))).message).toBe('file: a JPEG, PNG or WebP photo; this file is empty');
 		// Noise so that most of the file is scan data, which the cut then loses.
 		const noise = Buffer.from(Array.from({ length: 400 * 300 * 3 }, (_, i) => (i * 2654435761) >>> 24));
-		const jpeg = await sharp(noise, { raw: { width: 400, height: 300, channels: 3 } }).jpeg().toBuffer();
+		const jpeg = await sharp(noise, { raw: { width: 400, height: 300, channels: 3 } })
+			.jpeg()
+			.toBuffer();
 		const cut = await refused(jpeg.subarray(0, Math.floor(jpeg.length * 0.6)));
 		expect(cut).toMatchObject({ status: 400, message: 'file: a complete, undamaged JPEG, PNG or WebP; this JPEG is truncated or damaged' });
 		// Right signature, nothing after it.
 		expect((await refused(Buffer.from([0xff, 0xd8, 0xff, 0xe0, 1, 2, 3]))).message).toMatch(/this JPEG is truncated or damaged$/);
-		const png = await sharp(noise, { raw: { width: 400, height: 300, channels: 3 } }).png().toBuffer();
+		const png = await sharp(noise, { raw: { width: 400, height: 300, channels: 3 } })
+			.png()
+			.toBuffer();
 		expect((await refused(png.subarray(0, 2000), 'wheel.png')).message).toMatch(/this PNG is truncated or damaged$/);
 	});
 

@@ -104,7 +104,7 @@ function refuse(message: string, status: 400 | 413 = 400): IntakeResult {
 
 const mb = (n: number) => `${(n / 1024 / 1024).toFixed(1)} MB`;
 const tooManyPixels = (w: number, h: number) =>
-	refuse(`file: at most ${photoLimits.maxPixels / 1e6} megapixels; this image is ${w} x ${h} (${(w * h / 1e6).toFixed(1)} megapixels)`);
+	refuse(`file: at most ${photoLimits.maxPixels / 1e6} megapixels; this image is ${w} x ${h} (${((w * h) / 1e6).toFixed(1)} megapixels)`);
 const damaged = (type: PhotoType) =>
 	refuse(`file: a complete, undamaged JPEG, PNG or WebP; this ${formats[type].label} is truncated or damaged`);
 

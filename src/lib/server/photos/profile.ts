@@ -28,7 +28,7 @@ function runsOf(on: boolean[]): Run[] {
 	const first = on.findIndex((v, i) => v !== on[(i - 1 + n) % n]);
 	if (first < 0) return [];
 	const runs: Run[] = [];
-	for (let i = 0; i < n; ) {
+	for (let i = 0; i < n;) {
 		const start = (first + i) % n;
 		let len = 0;
 		while (i + len < n && on[(first + i + len) % n] === on[start]) len++;
@@ -140,7 +140,8 @@ export function readProfile(s: Float64Array): ProfileReading | ProfileFailure {
 	let lo = 0;
 	let nh = 0;
 	let nl = 0;
-	for (let i = 0; i < n; i++) if (on[i]) [hi, nh] = [hi + s[i]!, nh + 1];
+	for (let i = 0; i < n; i++)
+		if (on[i]) [hi, nh] = [hi + s[i]!, nh + 1];
 		else [lo, nl] = [lo + s[i]!, nl + 1];
 	const separation = (nh ? hi / nh : 0) - (nl ? lo / nl : 0);
 	const fSpacing = clamp01(1 - (best.err - 0.12) / 0.3);

@@ -82,7 +82,8 @@ function checkTaps(taps: PhotoTaps, width: number, height: number): Failure | nu
 	const dists = taps.tips.map((t) => Math.hypot(t.x - taps.centre.x, t.y - taps.centre.y));
 	const small = Math.min(...dists);
 	if (small < 20) return fail('tips', 'tips: tap the tips of the teeth, away from the centre (the wheel must be at least 40 px across)');
-	if (Math.max(...dists) > 1.35 * small) return fail('tips', 'tips: the tips tapped are at different distances from the centre; tap the tips of teeth on the same wheel');
+	if (Math.max(...dists) > 1.35 * small)
+		return fail('tips', 'tips: the tips tapped are at different distances from the centre; tap the tips of teeth on the same wheel');
 	return null;
 }
 
@@ -132,13 +133,23 @@ async function read(image: Buffer, taps: PhotoTaps, started: number): Promise<Ph
 		return fail('image', 'image: the photo could not be decoded; upload it again as a JPEG or PNG');
 	}
 	const [sx, sy] = [ow / cw, oh / ch];
-	const toWork = (o: Outline): Outline => ({ cx: (o.cx - left) * sx, cy: (o.cy - top) * sy, A: [o.A[0] * sx, o.A[1] * sx, o.A[2] * sy, o.A[3] * sy] });
+	const toWork = (o: Outline): Outline => ({
+		cx: (o.cx - left) * sx,
+		cy: (o.cy - top) * sy,
+		A: [o.A[0] * sx, o.A[1] * sx, o.A[2] * sy, o.A[3] * sy]
+	});
 
 	let outline = toWork(initial);
 	// Radial steps in working px: coarse while finding the outline, about one pixel for the teeth.
 	const radial = (o: Outline, from: number, to: number, px = 1) => Math.max(16, Math.ceil(((to - from) * semiAxes(o)[0]) / px));
 	// Pass 1: wide bands, for the taps' guess may be far off; pass 2: bands hugging the teeth found.
-	let ring = normalise(samplePolar(grey, outline, 2048, 0.55, 1.34, radial(outline, 0.55, 1.34, 2)), [0.6, 1], [1.16, 1.34], undefined, 0.85);
+	let ring = normalise(
+		samplePolar(grey, outline, 2048, 0.55, 1.34, radial(outline, 0.55, 1.34, 2)),
+		[0.6, 1],
+		[1.16, 1.34],
+		undefined,
+		0.85
+	);
 	const light = ring.lightOnDark;
 	if (ring.contrast < 8) return fail('image', `image: the wheel hardly stands out from the background where the taps put it; ${ADVICE}`);
 	let rootRatio = 0.85;
@@ -149,7 +160,13 @@ async function read(image: Buffer, taps: PhotoTaps, started: number): Promise<Ph
 	const inner = (r: number): [number, number] => [Math.max(0.3, r - 0.07), Math.max(0.35, r - 0.02)];
 	if (first) {
 		const [from] = inner(rootRatio);
-		ring = normalise(samplePolar(grey, outline, 2048, from, 1.28, radial(outline, from, 1.28, 1.5)), inner(rootRatio), [1.1, 1.28], light, 0.5);
+		ring = normalise(
+			samplePolar(grey, outline, 2048, from, 1.28, radial(outline, from, 1.28, 1.5)),
+			inner(rootRatio),
+			[1.1, 1.28],
+			light,
+			0.5
+		);
 		const second = refineOutline(outline, boundary(ring));
 		if (second) [outline, rootRatio] = [second.outline, second.rootRatio];
 	}
@@ -162,10 +179,15 @@ async function read(image: Buffer, taps: PhotoTaps, started: number): Promise<Ph
 	ring = normalise(samplePolar(grey, outline, na, from, 1.22, radial(outline, from, 1.22)), inner(rootRatio), [1.08, 1.22], light, 0.5);
 	const { profile: s, unknown } = bandMean(ring, rootRatio + 0.25 * depth, 1 - 0.25 * depth);
 	if (!s) return fail('image', UNREADABLE);
-	if (unknown > na * 0.02) return fail('image', 'image: part of the ring of teeth is outside the photo or lost in shadow or glare; photograph the whole wheel, with some background all round, in even light');
+	if (unknown > na * 0.02)
+		return fail(
+			'image',
+			'image: part of the ring of teeth is outside the photo or lost in shadow or glare; photograph the whole wheel, with some background all round, in even light'
+		);
 	const read = readProfile(s);
 	if ('failure' in read) {
-		if (read.failure === 'nogap') return fail('image', 'image: the teeth are evenly spaced all round with no gap; this reading is for missing-tooth wheels');
+		if (read.failure === 'nogap')
+			return fail('image', 'image: the teeth are evenly spaced all round with no gap; this reading is for missing-tooth wheels');
 		return fail('image', UNREADABLE);
 	}
 	if (read.confidence < 0.2 || read.missing * 2 > read.teeth) return fail('image', UNREADABLE);

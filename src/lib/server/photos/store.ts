@@ -48,7 +48,12 @@ export async function storePhoto(database: Database, where: { workshopId: string
 				thumbnailKey,
 				uploadedBy
 			});
-			await logActivity(tx, { buildId: where.buildId, actorId: uploadedBy, kind: 'photo', summary: `Photo “${photo.name}” (${photo.width} × ${photo.height})` });
+			await logActivity(tx, {
+				buildId: where.buildId,
+				actorId: uploadedBy,
+				kind: 'photo',
+				summary: `Photo “${photo.name}” (${photo.width} × ${photo.height})`
+			});
 			await touchBuild(tx, where.buildId);
 		});
 	} catch (err) {
@@ -59,7 +64,12 @@ export async function storePhoto(database: Database, where: { workshopId: string
 }
 
 export async function photosOf(database: Queryable, buildId: string) {
-	return database.select(photoColumns).from(wheelPhoto).leftJoin(user, eq(user.id, wheelPhoto.uploadedBy)).where(eq(wheelPhoto.buildId, buildId)).orderBy(desc(wheelPhoto.createdAt));
+	return database
+		.select(photoColumns)
+		.from(wheelPhoto)
+		.leftJoin(user, eq(user.id, wheelPhoto.uploadedBy))
+		.where(eq(wheelPhoto.buildId, buildId))
+		.orderBy(desc(wheelPhoto.createdAt));
 }
 
 export async function photoRow(database: Queryable, photoId: string) {
@@ -71,9 +81,18 @@ export async function photoBytes(key: string) {
 	return (await getObject(key)).body;
 }
 
-export async function saveReading(database: Database, photo: { id: string; buildId: string; name: string }, reading: Record<string, unknown>, summary: string, actorId: string) {
+export async function saveReading(
+	database: Database,
+	photo: { id: string; buildId: string; name: string },
+	reading: Record<string, unknown>,
+	summary: string,
+	actorId: string
+) {
 	await database.transaction(async (tx) => {
-		await tx.update(wheelPhoto).set({ photoReading: reading }).where(and(eq(wheelPhoto.id, photo.id), eq(wheelPhoto.buildId, photo.buildId)));
+		await tx
+			.update(wheelPhoto)
+			.set({ photoReading: reading })
+			.where(and(eq(wheelPhoto.id, photo.id), eq(wheelPhoto.buildId, photo.buildId)));
 		await logActivity(tx, { buildId: photo.buildId, actorId, kind: 'reading', summary: `Photo reading of “${photo.name}”: ${summary}` });
 	});
 }
@@ -81,7 +100,10 @@ export async function saveReading(database: Database, photo: { id: string; build
 /** Removes the row, then the objects (an orphaned object is harmless; a row without its object is not). */
 export async function deletePhoto(database: Database, photoId: string, buildId: string, actorId: string): Promise<boolean> {
 	const removed = await database.transaction(async (tx) => {
-		const rows = await tx.delete(wheelPhoto).where(and(eq(wheelPhoto.id, photoId), eq(wheelPhoto.buildId, buildId))).returning();
+		const rows = await tx
+			.delete(wheelPhoto)
+			.where(and(eq(wheelPhoto.id, photoId), eq(wheelPhoto.buildId, buildId)))
+			.returning();
 		const row = rows[0];
 		if (row) await logActivity(tx, { buildId, actorId, kind: 'photo', summary: `Photo “${row.name}” removed` });
 		return row;
@@ -93,6 +115,9 @@ export async function deletePhoto(database: Database, photoId: string, buildId: 
 
 /** Every object key of a build's photos, for removing them with the build. */
 export async function photoKeysOf(database: Queryable, buildId: string): Promise<string[]> {
-	const rows = await database.select({ a: wheelPhoto.storageKey, b: wheelPhoto.thumbnailKey }).from(wheelPhoto).where(eq(wheelPhoto.buildId, buildId));
+	const rows = await database
+		.select({ a: wheelPhoto.storageKey, b: wheelPhoto.thumbnailKey })
+		.from(wheelPhoto)
+		.where(eq(wheelPhoto.buildId, buildId));
 	return rows.flatMap((r) => [r.a, r.b]);
 }

@@ -11,6 +11,7 @@ export const day = (d: string | Date) => iso(d).slice(0, 10);
 export const queryOf = (params: Record<string, string>) => new URLSearchParams(params).toString();
 
 export const numberClass = 'num whitespace-nowrap';
-export const linkClass = 'inline-flex min-h-tap items-center text-layout underline decoration-line underline-offset-4 hover:decoration-layout';
+export const linkClass =
+	'inline-flex min-h-tap items-center text-layout underline decoration-line underline-offset-4 hover:decoration-layout';
 export const chipClass =
 	'inline-flex min-h-tap items-center justify-center rounded-part border border-line bg-panel px-3 text-sm font-medium text-ink hover:border-layout hover:bg-sunken';

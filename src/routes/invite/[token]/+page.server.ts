@@ -35,7 +35,8 @@ export const actions: Actions = {
 	default: async (event) => {
 		const me = await requireUser(event);
 		const result = await acceptInvitation(db(), event.params.token, me);
-		if (!result.ok) return fail(refusalStatus[result.reason], { message: refusals[result.reason], unconfirmed: result.reason === 'unconfirmed' });
+		if (!result.ok)
+			return fail(refusalStatus[result.reason], { message: refusals[result.reason], unconfirmed: result.reason === 'unconfirmed' });
 		await chooseWorkshop(event, result.workshopId);
 		redirect(303, '/builds');
 	}

@@ -20,6 +20,14 @@ export async function POST(event) {
 	const body = await jsonBody(event.request, createSchema);
 	if (!body.ok) return body.response;
 	const result = await createBuild(db(), access.workshop.id, body.data, access.user.id);
-	if (!result.ok) return json({ message: 'name: another build in this workshop has that name', code: 'conflict', errors: { name: 'name: another build in this workshop has that name' } }, { status: 409 });
+	if (!result.ok)
+		return json(
+			{
+				message: 'name: another build in this workshop has that name',
+				code: 'conflict',
+				errors: { name: 'name: another build in this workshop has that name' }
+			},
+			{ status: 409 }
+		);
 	return json({ id: result.id }, { status: 201, headers: { location: `/api/v1/builds/${result.id}` } });
 }

@@ -15,7 +15,9 @@ export function GET({ url }) {
 		input: measured ? 'angles' : 'tooth',
 		// Worked out from the angles with input=angles; as given otherwise.
 		toothAtTdc: Math.round(input.toothAtTdc * 1e4) / 1e4,
-		measured: measured ? { sensorAngleDeg: measured.sensorFromTdcDeg, keywayAngleDeg: measured.keywayDeg, keyAngleDeg: measured.keyFromTdcDeg } : null,
+		measured: measured
+			? { sensorAngleDeg: measured.sensorFromTdcDeg, keywayAngleDeg: measured.keywayDeg, keyAngleDeg: measured.keyFromTdcDeg }
+			: null,
 		...phasing(input),
 		clocking: clocking ? { ...clocking, keywayAngleDeg: clockingFor(clocking.targetDeg, clocking.keyFromSensorDeg, input.mount) } : null
 	});

@@ -12,11 +12,24 @@ export function GET({ url }) {
 	if (found.value.kind === 'rim') {
 		const v = found.value;
 		const r = spreadFromRim(v.distanceMm, v.diameterMm);
-		return json({ units: v.units, spreadDeg: r.spreadDeg, halfSpreadDeg: r.halfSpreadDeg, fromEitherMark: r6(fromMm(r.fromEitherMarkMm, v.units)) });
+		return json({
+			units: v.units,
+			spreadDeg: r.spreadDeg,
+			halfSpreadDeg: r.halfSpreadDeg,
+			fromEitherMark: r6(fromMm(r.fromEitherMarkMm, v.units))
+		});
 	}
 	const { marks, result } = found.value;
-	const advice = tdcAdvice(result.tdcDeg, marks.scale, { rotation: marks.rotation ?? undefined, diameterMm: marks.diameterMm ?? undefined, lengthText: (mm) => formatLength(mm, marks.units) });
-	const reading = (atdcDeg: number) => ({ atdcDeg: r6(atdcDeg), written: readingParam(atdcDeg, marks.scale), onScale: scaleText(atdcDeg, marks.scale) });
+	const advice = tdcAdvice(result.tdcDeg, marks.scale, {
+		rotation: marks.rotation ?? undefined,
+		diameterMm: marks.diameterMm ?? undefined,
+		lengthText: (mm) => formatLength(mm, marks.units)
+	});
+	const reading = (atdcDeg: number) => ({
+		atdcDeg: r6(atdcDeg),
+		written: readingParam(atdcDeg, marks.scale),
+		onScale: scaleText(atdcDeg, marks.scale)
+	});
 	return json({
 		scale: marks.scale,
 		arc: marks.arc,

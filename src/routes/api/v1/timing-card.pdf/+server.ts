@@ -7,5 +7,9 @@ export async function GET({ url }) {
 	const parsed = checkTimingCard(Object.fromEntries(url.searchParams));
 	if (!parsed.ok) return refuse(parsed.refusals);
 	const { hub, points, rotation, units, paper } = parsed.value;
-	return fileResponse(await timingCardPdf(timingRows(points, { ...hub, rotation }), hub, rotation, units, paper), 'application/pdf', 'timing-light-card.pdf');
+	return fileResponse(
+		await timingCardPdf(timingRows(points, { ...hub, rotation }), hub, rotation, units, paper),
+		'application/pdf',
+		'timing-light-card.pdf'
+	);
 }

@@ -19,7 +19,15 @@ export async function PATCH(event) {
 	const body = await jsonBody(event.request, updateSchema);
 	if (!body.ok) return body.response;
 	const result = await changeBuild(db(), access.workshop.id, access.buildId, body.data, access.user.id);
-	if (!result.ok) return json({ message: 'name: another build in this workshop has that name', code: 'conflict', errors: { name: 'name: another build in this workshop has that name' } }, { status: 409 });
+	if (!result.ok)
+		return json(
+			{
+				message: 'name: another build in this workshop has that name',
+				code: 'conflict',
+				errors: { name: 'name: another build in this workshop has that name' }
+			},
+			{ status: 409 }
+		);
 	return json({ id: result.id });
 }
 

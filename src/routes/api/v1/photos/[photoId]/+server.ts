@@ -17,6 +17,7 @@ export async function GET(event) {
 
 export async function DELETE(event) {
 	const access = await objectAccess(event, 'edit', 'photo', event.params.photoId);
-	if (!(await deletePhoto(db(), event.params.photoId, access.buildId, access.user.id))) error(404, { message: 'No such photo in your workshops.', code: 'not-found' });
+	if (!(await deletePhoto(db(), event.params.photoId, access.buildId, access.user.id)))
+		error(404, { message: 'No such photo in your workshops.', code: 'not-found' });
 	return new Response(null, { status: 204 });
 }

@@ -6,7 +6,10 @@ import { buildSheetFor } from '$lib/server/build-sheet';
 import { db } from '$lib/server/db';
 import { buildSheetPdf } from '$lib/server/exports/build-sheet-pdf';
 
-const query = z.object({ design: z.uuid({ error: 'design: a wheel design id of this build' }).optional(), revision: revisionNumber.optional() });
+const query = z.object({
+	design: z.uuid({ error: 'design: a wheel design id of this build' }).optional(),
+	revision: revisionNumber.optional()
+});
 
 /** The build sheet of the saved build (src/lib/server/build-sheet.ts says what it takes from it). */
 export async function GET(event) {

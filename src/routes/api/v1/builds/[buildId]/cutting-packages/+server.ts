@@ -21,22 +21,50 @@ export async function POST(event) {
 	const body = await jsonBody(event.request, cuttingPackageInput);
 	if (!body.ok) return body.response;
 	const design = await getDesign(db(), body.data.designId);
-	if (!design || design.buildId !== access.buildId) error(404, { message: 'designId: no such wheel design in this build', code: 'not-found' });
+	if (!design || design.buildId !== access.buildId)
+		error(404, { message: 'designId: no such wheel design in this build', code: 'not-found' });
 	const revision = await revisionOf(db(), design.id, body.data.revision);
 	if (!revision) error(404, { message: `revision: “${design.name}” has no revision ${body.data.revision}`, code: 'not-found' });
 	const wheel = checkWheel(revision.params);
-	if (!wheel.ok) error(422, { message: `Revision ${revision.number} no longer passes the wheel checks: ${Object.values(wheel.errors).join('; ')}`, code: 'invalid' });
+	if (!wheel.ok)
+		error(422, {
+			message: `Revision ${revision.number} no longer passes the wheel checks: ${Object.values(wheel.errors).join('; ')}`,
+			code: 'invalid'
+		});
 	const build = (await getBuild(db(), access.buildId))!;
-	const allowed = await reserveMail(db(), 'cutting-package', { address: body.data.to, client: event.getClientAddress(), workshopId: access.workshop.id });
-	if (!allowed.ok) return json({ message: mailRefusal(allowed), code: 'throttled' }, { status: 429, headers: { 'retry-after': String(allowed.retryAfterS) } });
+	const allowed = await reserveMail(db(), 'cutting-package', {
+		address: body.data.to,
+		client: event.getClientAddress(),
+		workshopId: access.workshop.id
+	});
+	if (!allowed.ok)
+		return json(
+			{ message: mailRefusal(allowed), code: 'throttled' },
+			{ status: 429, headers: { 'retry-after': String(allowed.retryAfterS) } }
+		);
 	try {
-		const sent = await sendCuttingPackage(db(), { build, design, revision: revision.number, wheel, to: body.data.to, quantity: body.data.quantity, notes: body.data.notes, sender: access.user });
+		const sent = await sendCuttingPackage(db(), {
+			build,
+			design,
+			revision: revision.number,
+			wheel,
+			to: body.data.to,
+			quantity: body.data.quantity,
+			notes: body.data.notes,
+			sender: access.user
+		});
 		return json({ ...sent, revision: revision.number, to: body.data.to }, { status: 201 });
 	} catch (err) {
 		const reason = err instanceof Error ? err.message : String(err);
 		// The mail server refused or was unreachable: nothing was recorded; say so rather than 500.
 		if (/ECONNREFUSED|ETIMEDOUT|EENVELOPE|EAUTH|EMESSAGE|ESOCKET|ECONNECTION/.test(`${(err as { code?: string }).code} ${reason}`)) {
-			return json({ message: `The mail server did not take the message (${reason}); nothing was sent or recorded. Try again later.`, code: 'mail-failed' }, { status: 502 });
+			return json(
+				{
+					message: `The mail server did not take the message (${reason}); nothing was sent or recorded. Try again later.`,
+					code: 'mail-failed'
+				},
+				{ status: 502 }
+			);
 		}
 		throw err;
 	}

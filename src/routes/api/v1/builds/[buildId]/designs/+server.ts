@@ -17,6 +17,14 @@ export async function POST(event) {
 	if (!body.ok) return body.response;
 	const result = await createDesign(db(), access.buildId, body.data, access.user.id);
 	if (!result.ok && result.reason === 'invalid') return refuse(result.refusals);
-	if (!result.ok) return json({ message: 'name: this build has a wheel design of that name', code: 'conflict', errors: { name: 'name: this build has a wheel design of that name' } }, { status: 409 });
+	if (!result.ok)
+		return json(
+			{
+				message: 'name: this build has a wheel design of that name',
+				code: 'conflict',
+				errors: { name: 'name: this build has a wheel design of that name' }
+			},
+			{ status: 409 }
+		);
 	return json({ id: result.designId, revision: 1 }, { status: 201, headers: { location: `/api/v1/designs/${result.designId}` } });
 }

@@ -47,7 +47,8 @@ export async function POST(event) {
 		accepted.push(result.photo);
 	}
 	const ids = [];
-	for (const photo of accepted) ids.push(await storePhoto(db(), { workshopId: access.workshop.id, buildId: access.buildId }, photo, access.user.id));
+	for (const photo of accepted)
+		ids.push(await storePhoto(db(), { workshopId: access.workshop.id, buildId: access.buildId }, photo, access.user.id));
 	const mine = new Set(ids);
 	return json({ photos: (await photosOf(db(), access.buildId)).filter((p) => mine.has(p.id)) }, { status: 201 });
 }

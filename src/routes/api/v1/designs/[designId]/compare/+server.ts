@@ -11,7 +11,11 @@ export async function GET(event) {
 	await objectAccess(event, 'read', 'design', event.params.designId);
 	const query = queryOf(event.url, compareQuery);
 	if (!query.ok) return query.response;
-	const [a, b] = await Promise.all([revisionOf(db(), event.params.designId, query.data.a), revisionOf(db(), event.params.designId, query.data.b)]);
-	if (!a || !b) error(404, { message: `${!a ? 'a' : 'b'}: this design has no revision ${!a ? query.data.a : query.data.b}`, code: 'not-found' });
+	const [a, b] = await Promise.all([
+		revisionOf(db(), event.params.designId, query.data.a),
+		revisionOf(db(), event.params.designId, query.data.b)
+	]);
+	if (!a || !b)
+		error(404, { message: `${!a ? 'a' : 'b'}: this design has no revision ${!a ? query.data.a : query.data.b}`, code: 'not-found' });
 	return json({ a, b, changes: diffParams(a.params, b.params) });
 }

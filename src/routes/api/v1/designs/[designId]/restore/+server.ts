@@ -13,7 +13,11 @@ export async function POST(event) {
 	const design = (await getDesign(db(), event.params.designId))!;
 	const result = await restoreRevision(db(), design, body.data, access.user.id);
 	if (result.ok) return json({ revision: result.revision }, { status: 201 });
-	if (result.reason === 'not-found') error(404, { message: `revision: this design has no revision ${body.data.revision}`, code: 'not-found' });
+	if (result.reason === 'not-found')
+		error(404, { message: `revision: this design has no revision ${body.data.revision}`, code: 'not-found' });
 	if (result.reason === 'invalid') return refuse(result.refusals);
-	return conflict(`Revision ${result.head.number} was saved after revision ${body.data.baseRevision}; look at it before restoring.`, { baseRevision: body.data.baseRevision, head: result.head });
+	return conflict(`Revision ${result.head.number} was saved after revision ${body.data.baseRevision}; look at it before restoring.`, {
+		baseRevision: body.data.baseRevision,
+		head: result.head
+	});
 }

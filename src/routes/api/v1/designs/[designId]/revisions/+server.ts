@@ -22,9 +22,12 @@ export async function POST(event) {
 	const result = await saveRevision(db(), design, body.data, access.user.id);
 	if (result.ok) return json({ revision: result.revision }, { status: 201 });
 	if (result.reason === 'invalid') return refuse(result.refusals);
-	return conflict(`Revision ${result.head.number} was saved by ${result.head.author ?? 'someone'} after revision ${body.data.baseRevision}, which this edit started from.`, {
-		baseRevision: body.data.baseRevision,
-		head: result.head,
-		yours: { params: result.params, message: body.data.message }
-	});
+	return conflict(
+		`Revision ${result.head.number} was saved by ${result.head.author ?? 'someone'} after revision ${body.data.baseRevision}, which this edit started from.`,
+		{
+			baseRevision: body.data.baseRevision,
+			head: result.head,
+			yours: { params: result.params, message: body.data.message }
+		}
+	);
 }

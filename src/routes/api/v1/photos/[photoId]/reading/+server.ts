@@ -30,7 +30,13 @@ export async function POST(event) {
 	if (!reading.ok) return refuse([refusal(reading.field, reading.message)]);
 	const design = readingToDesign(reading, taps.value.odMm, taps.value.units);
 	if (access.can.edit) {
-		await saveReading(db(), row, { taps: taps.value, ...reading }, `${reading.teeth}-${reading.missing}, confidence ${Math.round(reading.confidence * 100)} %`, access.user.id);
+		await saveReading(
+			db(),
+			row,
+			{ taps: taps.value, ...reading },
+			`${reading.teeth}-${reading.missing}, confidence ${Math.round(reading.confidence * 100)} %`,
+			access.user.id
+		);
 	}
 	return json({ reading, design, stored: access.can.edit });
 }

@@ -6,7 +6,9 @@ import { deleteRecord } from '$lib/server/records';
 
 export async function DELETE(event) {
 	const access = await objectAccess(event, 'edit', 'build', event.params.buildId);
-	const ok = z.uuid().safeParse(event.params.recordId).success && (await deleteRecord(db(), 'tdc', access.buildId, event.params.recordId, access.user.id));
+	const ok =
+		z.uuid().safeParse(event.params.recordId).success &&
+		(await deleteRecord(db(), 'tdc', access.buildId, event.params.recordId, access.user.id));
 	if (!ok) error(404, { message: 'No such record in this build.', code: 'not-found' });
 	return new Response(null, { status: 204 });
 }
