@@ -5,11 +5,11 @@ import { summarize, type WheelSummary } from '$lib/trade/summary';
 import type { TdcResult } from '$lib/trade/tdc';
 import { parseLength, toMm, type Units } from '$lib/trade/units';
 import { common } from './common-params';
-import { firstPerField, refusal, refusalsFromMap, type Checked, type Refusal } from './refusal';
+import { firstPerField, refusal, type Checked, type Refusal } from './refusal';
 import { allows, defineRegistry, givenParams, type Params } from './registry';
-import { findTdc } from './tdc';
+import { checkTdc } from './tdc';
 import { singleLine } from './text';
-import { gapsField, parseWheel, patternOf, type ParsedWheel } from './wheel';
+import { gapsField, patternOf, readWheel, type ParsedWheel } from './wheel';
 
 // The phasing check's public parameters (query or form), flat strings; and the build sheet's.
 // Where the sensor is can be said two ways (`input`): `tooth`, the tooth under the sensor with
@@ -400,10 +400,6 @@ export interface ParsedBuildSheet {
 	tapeHubMm: number | null;
 }
 
-/** A check's refusals, whether it answers them as refusals or (written the older way) as a field → message map. */
-const refusalsOfAnswer = (answer: { refusals: readonly Refusal[] } | { errors: Record<string, string> }): Refusal[] =>
-	'refusals' in answer ? [...answer.refusals] : refusalsFromMap(answer.errors);
-
 /** The sheet's own text fields: one line each. */
 const sheetText = { buildName: singleLine('buildName', 80), build: singleLine('build', 80), revision: singleLine('revision', 20) };
 
@@ -413,10 +409,10 @@ const sheetText = { buildName: singleLine('buildName', 80), build: singleLine('b
  */
 export function checkBuildSheet(params: Partial<Record<string, string>>): Checked<ParsedBuildSheet> {
 	const given = givenParams(params);
-	const wheel = parseWheel(given);
+	const wheel = readWheel(given);
 	const phase = checkPhasing(given);
 	// Where both refuse a shared name (teeth …), the phasing check's reason: its ranges are the narrower.
-	const found: Refusal[] = [...(phase.ok ? [] : phase.refusals), ...(wheel.ok ? [] : refusalsOfAnswer(wheel))];
+	const found: Refusal[] = [...(phase.ok ? [] : phase.refusals), ...(wheel.ok ? [] : wheel.refusals)];
 	const text: Record<string, string> = {};
 	for (const [field, schema] of Object.entries(sheetText)) {
 		const read = schema.safeParse(given[field] ?? '');
@@ -427,14 +423,12 @@ export function checkBuildSheet(params: Partial<Record<string, string>>): Checke
 	let tdc: ParsedBuildSheet['tdc'] = null;
 	const { tdcA, tdcB, tapeDiameter } = given;
 	if (tdcA !== undefined || tdcB !== undefined) {
-		const marks = findTdc({ a: tdcA, b: tdcB });
-		if (marks.ok === false) {
-			// findTdc names its fields a and b: here they are tdcA and tdcB.
-			for (const r of refusalsOfAnswer(marks)) {
-				const message = r.message.startsWith(`${r.field}: `) ? r.message.slice(r.field.length + 2) : r.message;
-				found.push(refusal(`tdc${r.field.toUpperCase()}`, message.replace(/^must differ from a\b/, 'must differ from tdcA')));
-			}
-		} else if (marks.ok === 'rim') found.push(refusal('tdcA', 'a piston-stop reading in degrees'));
+		const marks = checkTdc({ a: tdcA, b: tdcB });
+		if (!marks.ok) {
+			// The TDC check names its readings a and b: here they are tdcA and tdcB.
+			for (const r of marks.refusals)
+				found.push(refusal(`tdc${r.field.toUpperCase()}`, r.message.replace(/^must differ from a\b/, 'must differ from tdcA')));
+		} else if (marks.value.kind === 'rim') found.push(refusal('tdcA', 'a piston-stop reading in degrees'));
 		else tdc = { a: marks.value.marks.a.atdcDeg, b: marks.value.marks.b.atdcDeg, result: marks.value.result };
 	}
 	let tapeHubMm: number | null = null;

@@ -2,7 +2,7 @@ import { error } from '@sveltejs/kit';
 import { lengthText } from '$lib/params';
 import { checkBuildSheet, type ParsedBuildSheet } from '$lib/schemas/phasing';
 import type { Checked } from '$lib/schemas/refusal';
-import { parseTape } from '$lib/schemas/tape';
+import { checkTape } from '$lib/schemas/tape';
 import { phasing } from '$lib/trade/phasing';
 import { getBuild } from './builds';
 import type { Queryable } from './db';
@@ -64,7 +64,7 @@ export async function buildSheetFor(
 	const [tdc] = await tdcRecordsOf(database, access.buildId);
 	if (tdc?.params.a !== undefined && tdc.params.b !== undefined) Object.assign(params, { tdcA: tdc.params.a, tdcB: tdc.params.b });
 	const [tape] = await tapesOf(database, access.buildId);
-	const hub = tape ? parseTape(tape.params) : null;
+	const hub = tape ? checkTape(tape.params) : null;
 	if (hub?.ok) params.tapeDiameter = lengthText(hub.value.spec.hubDiameterMm, params.units === 'in' ? 'in' : 'mm');
 
 	const parsed = checkBuildSheet(params);
