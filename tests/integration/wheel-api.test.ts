@@ -4,6 +4,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { checkWheel } from '../../src/lib/schemas/wheel';
+import { wheel36x1x1Bolts, wheel60x2InchB17 } from '$support/example-wheels';
 
 const app = process.env.APP_URL!;
 const dir = mkdtempSync(join(tmpdir(), 'phasewright-wheel-'));
@@ -62,20 +63,7 @@ const cases: Case[] = [
 	},
 	{
 		name: '60-2, inches, B17.1 keyway, filleted',
-		params: {
-			teeth: '60',
-			missing: '2',
-			od: '6',
-			depth: '3/16',
-			duty: '0.45',
-			bore: '1',
-			keyway: 'b17.1',
-			shaft: '1',
-			tipRadius: '0.02',
-			rootRadius: '0.02',
-			thickness: '1/8',
-			units: 'in'
-		},
+		params: wheel60x2InchB17,
 		od: 6,
 		teeth: 58,
 		pitch: 6,
@@ -84,18 +72,7 @@ const cases: Case[] = [
 	},
 	{
 		name: '36-1-1 (two gaps 180° apart), bolt circle',
-		params: {
-			pattern: 'custom',
-			teeth: '36',
-			gaps: '17,35',
-			od: '120',
-			depth: '6',
-			bore: '25',
-			bolts: '4',
-			pcd: '60',
-			boltHole: '6.5',
-			units: 'mm'
-		},
+		params: wheel36x1x1Bolts,
 		od: 120,
 		teeth: 34,
 		pitch: 10,

@@ -11,6 +11,7 @@ import { promisify } from 'node:util';
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { acceptedSpec, wheelParams } from '../support/wheel-params';
+import { wheel36x1x1Bolts, wheel60x2InchB17 } from '$support/example-wheels';
 
 const app = process.env.APP_URL!;
 const dir = mkdtempSync(join(tmpdir(), 'phasewright-wheel-dxf-'));
@@ -85,40 +86,8 @@ describe('the wheel DXF in ezdxf and OpenSCAD', () => {
 	}, 60_000);
 
 	it.each([
-		[
-			'60-2, inches, B17.1 keyway, filleted',
-			'in',
-			{
-				teeth: '60',
-				missing: '2',
-				od: '6',
-				depth: '3/16',
-				duty: '0.45',
-				bore: '1',
-				keyway: 'b17.1',
-				shaft: '1',
-				tipRadius: '0.02',
-				rootRadius: '0.02',
-				thickness: '1/8',
-				units: 'in'
-			}
-		],
-		[
-			'36-1-1, bolt circle',
-			'mm',
-			{
-				pattern: 'custom',
-				teeth: '36',
-				gaps: '17,35',
-				od: '120',
-				depth: '6',
-				bore: '25',
-				bolts: '4',
-				pcd: '60',
-				boltHole: '6.5',
-				units: 'mm'
-			}
-		],
+		['60-2, inches, B17.1 keyway, filleted', 'in', wheel60x2InchB17],
+		['36-1-1, bolt circle', 'mm', wheel36x1x1Bolts],
 		[
 			"24-2, DIN 6885-1 keyway at 12 o'clock, label past ASCII",
 			'mm',
