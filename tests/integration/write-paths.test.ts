@@ -150,3 +150,21 @@ describe('deleting a build', () => {
 		expect(await me.client.action('/builds', 'delete', { buildId: byPage })).toMatchObject({ type: 'failure', status: 404 });
 	}, 60_000);
 });
+
+describe('removing a record', () => {
+	it('moves the build up the "updated" sort, as saving one does', async () => {
+		const me = await owner('record-delete');
+		const buildId = await newBuild(me.client, 'Record removed');
+		const updatedAt = async () =>
+			(await database.execute<{ t: string }>(sql`select updated_at::text as t from build where id = ${buildId}`)).rows[0]!.t;
+		const saved = await me.client.send<{ id: string }>('POST', `/api/v1/builds/${buildId}/tdc-records`, {
+			params: { a: '20 BTDC', b: '30 ATDC' }
+		});
+		expect(saved.status).toBe(201);
+		const afterSave = await updatedAt();
+
+		expect((await me.client.send('DELETE', `/api/v1/builds/${buildId}/tdc-records/${saved.body.id}`)).status).toBe(204);
+		// Timestamps as PostgreSQL prints them sort as text within one time zone.
+		expect((await updatedAt()) > afterSave).toBe(true);
+	});
+});

@@ -114,6 +114,8 @@ export async function deleteRecord(
 			.where(and(eq(table.id, id), eq(table.buildId, buildId)))
 			.returning({ label: table.label });
 		if (!rows[0]) return false;
+		// A removal is a change to the build like any other: it moves the build up the "updated" sort.
+		await touchBuild(tx, buildId);
 		await logActivity(tx, {
 			buildId,
 			actorId,
