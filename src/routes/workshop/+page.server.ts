@@ -45,11 +45,22 @@ export const actions: Actions = {
 		const access = fromBuild ?? (await workshopAccess(event, 'manage', parsed.data.workshopId));
 		const allowed = await reserveMail(db(), 'invitation', { address: parsed.data.email, client: event.getClientAddress() });
 		if (!allowed.ok) return fail(429, { action: 'invite', email: parsed.data.email, message: mailRefusal(allowed) });
-		const { token } = await createInvitation(db(), {
-			workshopId: access.workshop.id,
-			email: parsed.data.email,
-			role: parsed.data.role as 'editor' | 'viewer',
-			invitedBy: access.user.id
+		// The invitation and the build's log entry that tells of it are written together or not at all.
+		const token = await db().transaction(async (tx) => {
+			const created = await createInvitation(tx, {
+				workshopId: access.workshop.id,
+				email: parsed.data.email,
+				role: parsed.data.role as 'editor' | 'viewer',
+				invitedBy: access.user.id
+			});
+			if (fromBuild)
+				await logActivity(tx, {
+					buildId: fromBuild.buildId,
+					actorId: access.user.id,
+					kind: 'invitation',
+					summary: `${parsed.data.email} invited into ${access.workshop.name} as ${parsed.data.role}`
+				});
+			return created.token;
 		});
 		await sendMail(
 			invitationMessage({
@@ -60,13 +71,6 @@ export const actions: Actions = {
 				url: linkTo(`/invite/${token}`)
 			})
 		);
-		if (fromBuild)
-			await logActivity(db(), {
-				buildId: fromBuild.buildId,
-				actorId: access.user.id,
-				kind: 'invitation',
-				summary: `${parsed.data.email} invited into ${access.workshop.name} as ${parsed.data.role}`
-			});
 		return { action: 'invite', invited: parsed.data.email };
 	},
 
