@@ -148,7 +148,9 @@ export async function start(bin: string, dir: string) {
 			`Stop that program, or choose another port for the private cluster with PW_PG_PORT=<port>.`
 		);
 	}
-	const res = pgCtl(bin, dir, ['start', '-w', '-t', '60', '-l', log]);
+	// The port of this run (PW_PORT_OFFSET, PW_PG_PORT) wins over the one written at initdb, so one
+	// checkout's cluster can serve stacks on different ports.
+	const res = pgCtl(bin, dir, ['start', '-w', '-t', '60', '-l', log, '-o', `-p ${postgres.port}`]);
 	if (res.status !== 0) {
 		const tail = existsSync(log) ? readFileSync(log, 'utf8').trim().split('\n').slice(-5).join('\n    ') : '';
 		throw new StepError(`PostgreSQL did not start:\n    ${tail || res.stderr.trim()}`, `Read ${log}; \`npm run stop\` then try again.`);
