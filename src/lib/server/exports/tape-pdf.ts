@@ -3,7 +3,9 @@
 import { tapeEnds, tapeTravel, tdcSideOf, travelWords, type Rotation } from '$lib/trade/hub';
 import {
 	fittingWords,
+	markName,
 	mmPerDegree,
+	outsideNote,
 	tapeMarks,
 	tapePage,
 	tapeStrips,
@@ -69,6 +71,7 @@ async function drawTape(spec: TapeSpec, units: Units, paper: keyof typeof papers
 			{ width: mm(textWidth) }
 		);
 		tapeWarnings(spec).forEach((w) => doc.fillColor('#8a5200').text(w, mm(margin), doc.y + 1, { width: mm(textWidth) }));
+		marksNote(doc, spec, textWidth);
 		fittingDiagram(doc, spec.rotation, size.widthMm - margin - fitting.widthMm, margin);
 
 		strips
@@ -166,7 +169,7 @@ async function drawTape(spec: TapeSpec, units: Units, paper: keyof typeof papers
 						.font('text')
 						.fontSize(5.5)
 						.fillColor(color)
-						.text(printable(m.label).text, x(at) + mm(0.8), mm(top + 18), { lineBreak: false });
+						.text(printable(markName(m)).text, x(at) + mm(0.8), mm(top + 18), { lineBreak: false });
 					doc.fillColor('black');
 				}
 			});
@@ -183,6 +186,33 @@ async function drawTape(spec: TapeSpec, units: Units, paper: keyof typeof papers
 		calibrationBars(doc, margin, size.heightMm - margin - 12);
 	}
 	return finish(doc);
+}
+
+/**
+ * Under the header: which cylinder the 0 belongs to when others are marked, and every mark the
+ * window leaves off, said rather than dropped; as many as the header holds, then how many more.
+ */
+function marksNote(doc: PDFKit.PDFDocument, spec: TapeSpec, widthMm: number) {
+	const off = tapeMarks(spec).filter((m) => !m.onTape);
+	const zero = spec.otherTdc.length
+		? "0 is cylinder 1's TDC; each other cylinder's TDC and spec timings are marked in blue and brown."
+		: '';
+	if (!zero && !off.length) return;
+	const bottom = mm(margin + header - 1);
+	const width = mm(widthMm);
+	doc.font('text').fontSize(6.5).fillColor('black');
+	if (zero) doc.text(zero, mm(margin), doc.y + 1, { width });
+	const notes = off.map((m) => printable(outsideNote(spec, m)).text);
+	if (!notes.length) return;
+	for (let shown = notes.length; shown >= 0; shown--) {
+		const rest = notes.length - shown;
+		const text = `Not on this tape: ${notes.slice(0, shown).join('; ')}${rest ? `${shown ? '; and ' : ''}${rest} more outside its window` : ''}.`;
+		if (doc.y + 1 + doc.heightOfString(text, { width }) <= bottom || shown === 0) {
+			doc.fillColor('#8a5200').text(text, mm(margin), doc.y + 1, { width });
+			doc.fillColor('black');
+			return;
+		}
+	}
 }
 
 /** The fitting diagram's box, mm. */
