@@ -346,15 +346,16 @@ export function checkPhasing(params: Partial<Record<string, string>>): Checked<P
 /**
  * The wheel's parameters as the sheet's form takes them: every one the phasing check does not
  * already name (that one holds `teeth`, `missing`, `duty` … with the same meaning), without its
- * default, so an empty field is sent as nothing and the wheel's own check (readWheel) fills it in.
+ * default, so an empty field is sent as nothing (the address stays short) and the wheel's own check
+ * (readWheel) fills it in.
  * `od` and `depth` are asked for: the sheet prints the wheel that is cut, not an example's.
  */
 const wheelOnSheet: ParamDef[] = wheelParams.params
 	.filter((p) => !phasingParams.get(p.name) && !['od', 'depth'].includes(p.name))
 	.map((p) => {
 		const copy: ParamDef = { ...p };
-		// A choice keeps its default: its control always shows one of its values.
-		if (copy.kind !== 'choice') delete copy.default;
+		// The choices the sheet's own form shows keep their default (a control shows one of its values).
+		if (!['units', 'material', 'paper'].includes(copy.name)) delete copy.default;
 		return copy;
 	});
 
