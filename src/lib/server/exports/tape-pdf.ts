@@ -71,7 +71,14 @@ async function drawTape(spec: TapeSpec, units: Units, paper: keyof typeof papers
 			{ width: mm(textWidth) }
 		);
 		tapeWarnings(spec).forEach((w) => doc.fillColor('#8a5200').text(w, mm(margin), doc.y + 1, { width: mm(textWidth) }));
-		marksNote(doc, spec, textWidth);
+		if (spec.otherTdc.length)
+			doc
+				.font('text')
+				.fontSize(6.5)
+				.fillColor('black')
+				.text("0 is cylinder 1's TDC; each other cylinder's TDC (blue) and spec timings (brown) are marked too.", mm(margin), doc.y + 1, {
+					width: mm(textWidth)
+				});
 		fittingDiagram(doc, spec.rotation, size.widthMm - margin - fitting.widthMm, margin);
 
 		strips
@@ -169,10 +176,13 @@ async function drawTape(spec: TapeSpec, units: Units, paper: keyof typeof papers
 						.font('text')
 						.fontSize(5.5)
 						.fillColor(color)
-						.text(printable(markName(m)).text, x(at) + mm(0.8), mm(top + 18), { lineBreak: false });
+						// Timing labels on a line of their own: a long one never runs over a TDC label beside it.
+						.text(printable(markName(m)).text, x(at) + mm(0.8), mm(top + (m.kind === 'tdc' ? 18 : 21)), { lineBreak: false });
 					doc.fillColor('black');
 				}
 			});
+		const onPage = strips.filter((s) => s.page === page).length;
+		outsideNotes(doc, spec, margin + header + onPage * (stripHeight + rowGap), size.heightMm - margin - footer, size.widthMm - 2 * margin);
 		doc
 			.font('text')
 			.fontSize(6.5)
@@ -189,26 +199,21 @@ async function drawTape(spec: TapeSpec, units: Units, paper: keyof typeof papers
 }
 
 /**
- * Under the header: which cylinder the 0 belongs to when others are marked, and every mark the
- * window leaves off, said rather than dropped; as many as the header holds, then how many more.
+ * Below the page's strips, above the footer: every mark the window leaves off, said rather than
+ * dropped; as many as the room holds, then how many more.
  */
-function marksNote(doc: PDFKit.PDFDocument, spec: TapeSpec, widthMm: number) {
-	const off = tapeMarks(spec).filter((m) => !m.onTape);
-	const zero = spec.otherTdc.length
-		? "0 is cylinder 1's TDC; each other cylinder's TDC and spec timings are marked in blue and brown."
-		: '';
-	if (!zero && !off.length) return;
-	const bottom = mm(margin + header - 1);
-	const width = mm(widthMm);
-	doc.font('text').fontSize(6.5).fillColor('black');
-	if (zero) doc.text(zero, mm(margin), doc.y + 1, { width });
-	const notes = off.map((m) => printable(outsideNote(spec, m)).text);
+function outsideNotes(doc: PDFKit.PDFDocument, spec: TapeSpec, fromMm: number, toMm: number, widthMm: number) {
+	const notes = tapeMarks(spec)
+		.filter((m) => !m.onTape)
+		.map((m) => printable(outsideNote(spec, m)).text);
 	if (!notes.length) return;
+	const width = mm(widthMm);
+	doc.font('text').fontSize(6.5);
 	for (let shown = notes.length; shown >= 0; shown--) {
 		const rest = notes.length - shown;
 		const text = `Not on this tape: ${notes.slice(0, shown).join('; ')}${rest ? `${shown ? '; and ' : ''}${rest} more outside its window` : ''}.`;
-		if (doc.y + 1 + doc.heightOfString(text, { width }) <= bottom || shown === 0) {
-			doc.fillColor('#8a5200').text(text, mm(margin), doc.y + 1, { width });
+		if (fromMm + doc.heightOfString(text, { width }) / mm(1) <= toMm || shown === 0) {
+			doc.fillColor('#8a5200').text(text, mm(margin), mm(fromMm), { width });
 			doc.fillColor('black');
 			return;
 		}
