@@ -98,7 +98,17 @@ function readTape(pdf: string) {
 			}
 			if (w.text === 'join' && /^\d+$/.test(next[0]?.text ?? ''))
 				joins.push({ page: p, join: Number(next[0]!.text), x: (w.x0 + next[0]!.x1) / 2, y: w.y0 });
-			if (w.text === 'idle' || w.text === 'cyl') named.push({ page: p, text: w.text, x0: w.x0, y: w.y0 });
+			if (['idle', 'base', 'cyl'].includes(w.text)) {
+				// A mark's whole name: the words that follow it on its line, close after each other.
+				let text = w.text;
+				for (let k = i + 1, last = w; k < words.length; k++) {
+					const n = words[k]!;
+					if (Math.abs(n.y0 - last.y0) > 0.5 || n.x0 - last.x1 > 4 || n.x0 < last.x1 - 0.5) break;
+					text += ` ${n.text}`;
+					last = n;
+				}
+				named.push({ page: p, text, x0: w.x0, y: w.y0 });
+			}
 		});
 	});
 	/** The strip a word belongs to: the first "strip N of M" line at or below it on its page, within a strip's height and a bit. */
@@ -159,8 +169,13 @@ function readTape(pdf: string) {
 	const labels: PrintedLabel[] = [...strips].flatMap(([n, s]) =>
 		s.labels.map((l) => ({ tapeMm: at(n, l.x), value: l.value, side: l.side }))
 	);
-	const marks = [...strips].flatMap(([n, s]) => s.named.map((m) => ({ text: m.text, tapeMm: at(n, m.x0) })));
-	return { strips: strips.size, pages: pages.length, labels, marks };
+	const marks = [...strips].flatMap(([n, s]) => s.named.map((m) => ({ text: m.text, tapeMm: at(n, m.x0), strip: n })));
+	/** The stretch of tape each strip prints, as far as its whole labels show it. */
+	const extents = [...strips].map(([n, s]) => {
+		const along = s.labels.map((l) => at(n, l.x));
+		return { strip: n, fromMm: Math.min(...along), toMm: Math.max(...along) };
+	});
+	return { strips: strips.size, pages: pages.length, labels, marks, extents };
 }
 
 interface TapeCase {
@@ -279,10 +294,58 @@ describe('degree tape PDF against the turning engine (pdftotext -bbox)', () => {
 			const idle = tape.marks.filter((m) => m.text === 'idle');
 			expect(idle.length).toBeGreaterThanOrEqual(1);
 			for (const m of idle) expect(Math.abs(m.tapeMm - 0.8 - underPointer(engine, -15))).toBeLessThan(0.3);
-			const cyl2 = tape.marks.filter((m) => m.text === 'cyl');
+			const cyl2 = tape.marks.filter((m) => m.text === 'cyl 2 TDC');
 			expect(cyl2.length).toBeGreaterThanOrEqual(1);
 			for (const m of cyl2) expect(Math.abs(m.tapeMm - 0.8 - underPointer(engine, 270))).toBeLessThan(0.3);
 		}
+	});
+
+	it.each(['cw', 'ccw'] as const)(
+		'%s: a 270° twin’s marks, each cylinder’s TDC and spec timing, in every strip that holds them',
+		async (rotation) => {
+			// A 150 mm hub, full circle, A4: tiled into strips that overlap. Cylinder 2 reaches TDC 270°
+			// after cylinder 1 (a 270° twin, common practice), and fires 10° before that, at 260°.
+			const params = { diameter: '150', rotation, paper: 'a4', tdc2: 'cyl 2:270', timing: 'base:10' };
+			const tape = readTape(await download('/api/v1/tape.pdf', params, `twin-${rotation}.pdf`));
+			const engine = { hubDiameterMm: 150, paperThicknessMm: 0.1, rotation };
+			const expected = [
+				{ text: 'base', crank: -10 },
+				{ text: 'cyl 2 TDC', crank: 270 },
+				{ text: 'cyl 2: base 10° BTDC', crank: 260 }
+			];
+			let overlapSeen = false;
+			for (const { text, crank } of expected) {
+				const want = underPointer(engine, crank);
+				// Every strip whose printed scale runs over the mark's place shows it there (0.8 mm right of its line).
+				const holding = tape.extents.filter((e) => e.fromMm - 0.5 <= want && want <= e.toMm + 0.5).map((e) => e.strip);
+				expect(holding.length, `${text}: a strip holds ${want.toFixed(2)} mm`).toBeGreaterThanOrEqual(1);
+				const found = tape.marks.filter((m) => m.text === text);
+				for (const strip of holding) {
+					const there = found.filter((m) => m.strip === strip);
+					expect(there.length, `${text} on strip ${strip}`).toBe(1);
+					expect(Math.abs(there[0]!.tapeMm - 0.8 - want)).toBeLessThan(0.3);
+				}
+				for (const m of found) expect(Math.abs(m.tapeMm - 0.8 - want), `${text} on strip ${m.strip}`).toBeLessThan(0.3);
+				if (holding.length > 1) overlapSeen = true;
+			}
+			// Turning clockwise, cylinder 2's TDC lies 270 × π·150.1/360 ≈ 354 mm along the tape, in the
+			// overlap of strips 2 and 3 (each A4 strip 186 mm, 12 mm overlap): printed on both.
+			if (rotation === 'cw') expect(overlapSeen).toBe(true);
+		}
+	);
+
+	it('says which marks a narrow window leaves off instead of dropping them', async () => {
+		const params = { diameter: '150', rotation: 'cw', window: '60', tdc2: 'cyl 2:270', timing: 'base:10' };
+		const pdf = await download('/api/v1/tape.pdf', params, 'twin-window-60.pdf');
+		const text = execFileSync('pdftotext', [pdf, '-'], { encoding: 'utf8' }).replace(/\s+/g, ' ');
+		// 270° after cylinder 1's TDC is 90° before it on a hub turning once per crank turn: past a ±60° window.
+		expect(text).toContain(
+			"cyl 2 TDC at 270° after cylinder 1's TDC, 90° BTDC on this scale: outside this tape's 60° BTDC to 60° ATDC window"
+		);
+		expect(text).toContain("cyl 2: base 10° BTDC at 260° after cylinder 1's TDC, 100° BTDC on this scale: outside this tape's");
+		// Cylinder 1's own timing at 10° BTDC is on the tape, and said nowhere as outside.
+		expect(readTape(pdf).marks.filter((m) => m.text === 'base').length).toBeGreaterThanOrEqual(1);
+		expect(text).not.toMatch(/base at 10° BTDC: outside/);
 	});
 
 	it.each(['cw', 'ccw'] as const)('/api/v1/tape says in words on which side BTDC lies (%s), as the model has it', async (rotation) => {
@@ -308,6 +371,23 @@ describe('degree tape PDF against the turning engine (pdftotext -bbox)', () => {
 });
 
 describe('timing-light card against the turning engine (pdftotext -layout)', () => {
+	it.each(['cw', 'ccw'] as const)('%s: carries the name given and the direction the marks pass the pointer', async (rotation) => {
+		const pdf = await download(
+			'/api/v1/timing-card.pdf',
+			{ diameter: '150', rotation, curve: '1200:10, 3000:20', name: 'Whole sheet 270 twin' },
+			`card-named-${rotation}.pdf`
+		);
+		const text = execFileSync('pdftotext', [pdf, '-'], { encoding: 'utf8' }).replace(/\s+/g, ' ');
+		expect(text).toContain('Timing-light card: Whole sheet 270 twin');
+		// The model: as the crank turns on (θ growing) the point under the pointer moves along the tape;
+		// the tape itself moves the other way past the pointer.
+		const engine = { hubDiameterMm: 150, paperThicknessMm: 0.1, rotation };
+		const tapeMoves = underPointer(engine, 10) - underPointer(engine, 0) < 0 ? 'left to right' : 'right to left';
+		expect(text).toContain(`Direction of travel: the tape moves ${tapeMoves} past the pointer`);
+		const btdc = sideOf(underPointer(engine, -10));
+		expect(text).toContain(`BTDC marks (${btdc} of TDC) reach it first`);
+	});
+
 	it.each([
 		['cw', 'mm', '150', 150.0],
 		['ccw', 'mm', '150', 150.0],

@@ -6,10 +6,11 @@ import type { TdcResult } from '$lib/trade/tdc';
 import { parseLength, toMm, type Units } from '$lib/trade/units';
 import { common } from './common-params';
 import { firstPerField, refusal, type Checked, type Refusal } from './refusal';
-import { allows, defineRegistry, givenParams, type Params } from './registry';
+import { allows, defineRegistry, givenParams, type ParamDef, type Params } from './registry';
 import { checkTdc } from './tdc';
 import { singleLine } from './text';
 import { gapsField, patternOf, readWheel, type ParsedWheel } from './wheel';
+import { wheelParams } from './wheel-params';
 
 // The phasing check's public parameters (query or form), flat strings; and the build sheet's.
 // Where the sensor is can be said two ways (`input`): `tooth`, the tooth under the sensor with
@@ -343,9 +344,25 @@ export function checkPhasing(params: Partial<Record<string, string>>): Checked<P
 // share `teeth`, `missing`, `duty`, `rpm` and `keywayAngle` with one meaning, plus its own.
 
 /**
- * The build sheet's parameters besides the phasing check's: its own, then the wheel's that its form
- * asks for (it reads every wheel parameter). The name is `buildName`: on the tools' pages `build` in
- * the address is the id of the build being worked on (src/lib/address-query.svelte.ts).
+ * The wheel's parameters as the sheet's form takes them: every one the phasing check does not
+ * already name (that one holds `teeth`, `missing`, `duty` … with the same meaning), without its
+ * default, so an empty field is sent as nothing (the address stays short) and the wheel's own check
+ * (readWheel) fills it in.
+ * `od` and `depth` are asked for: the sheet prints the wheel that is cut, not an example's.
+ */
+const wheelOnSheet: ParamDef[] = wheelParams.params
+	.filter((p) => !phasingParams.get(p.name) && !['od', 'depth'].includes(p.name))
+	.map((p) => {
+		const copy: ParamDef = { ...p };
+		// The choices the sheet's own form shows keep their default (a control shows one of its values).
+		if (!['units', 'material', 'paper'].includes(copy.name)) delete copy.default;
+		return copy;
+	});
+
+/**
+ * The build sheet's parameters besides the phasing check's: its own, then every wheel parameter
+ * (composed from wheelParams, never a copy of it). The name is `buildName`: on the tools' pages
+ * `build` in the address is the id of the build being worked on (src/lib/address-query.svelte.ts).
  */
 export const buildSheetParams = defineRegistry([
 	{
@@ -378,13 +395,9 @@ export const buildSheetParams = defineRegistry([
 		minMm: 10,
 		maxMm: 2000
 	},
-	common.units,
 	{ ...common.od, required: true },
 	{ ...common.depth, required: true },
-	common.thickness,
-	common.bore,
-	common.material,
-	common.paper
+	...wheelOnSheet
 ]);
 
 /** The names the sheet takes besides the wheel's and the phasing check's; `build` is `buildName`'s earlier spelling, still read. */

@@ -14,6 +14,13 @@ const minus = (n: number) => (n < 0 ? `−${-n}` : String(n));
 export const timingCardRegistry = defineRegistry([
 	...hubParams,
 	{
+		name: 'name',
+		label: 'Name on the card',
+		help: 'The build or engine the card is for, printed at its top; up to 80 characters.',
+		kind: 'text',
+		max: 80
+	},
+	{
 		name: 'curve',
 		label: 'Advance curve',
 		help: 'Engine speed and advance (degrees BTDC) pairs, like 1200:10, 3000:20.',
@@ -68,6 +75,8 @@ export interface CheckedCard {
 	hub: { hubDiameterMm: number; paperThicknessMm: number };
 	rotation: Rotation;
 	points: AdvancePoint[];
+	/** The build's or engine's name, empty when none was given. */
+	name: string;
 }
 
 /** The card's parameters as flat strings read and checked: the card, or the first reason per field. */
@@ -88,7 +97,8 @@ export function checkTimingCard(params: Partial<Record<string, string>>): Checke
 			paper: v.paper as CheckedCard['paper'],
 			rotation: v.rotation as Rotation,
 			hub: { hubDiameterMm: hub.value, paperThicknessMm: v.paperThickness as number },
-			points: curve.value
+			points: curve.value,
+			name: (v.name as string | undefined) ?? ''
 		}
 	};
 }

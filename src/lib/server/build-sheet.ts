@@ -2,12 +2,18 @@ import { error } from '@sveltejs/kit';
 import { lengthText } from '$lib/params';
 import { checkBuildSheet, type ParsedBuildSheet } from '$lib/schemas/phasing';
 import type { Checked } from '$lib/schemas/refusal';
-import { checkTape } from '$lib/schemas/tape';
+import type { Params } from '$lib/schemas/registry';
+import { checkTape, type CheckedTape } from '$lib/schemas/tape';
+import { readCurve } from '$lib/schemas/timing-card';
+import { wheelParams } from '$lib/schemas/wheel-params';
+import { firingTdcs } from '$lib/trade/engine';
 import { phasing } from '$lib/trade/phasing';
+import { fromTdcLine, tapeMarks } from '$lib/trade/tape';
+import { timingRows } from '$lib/trade/timing';
 import { getBuild } from './builds';
 import type { Queryable } from './db';
 import { designsOf, getDesign, revisionOf } from './designs';
-import type { BuildSheet } from './exports/build-sheet-pdf';
+import type { BuildSheet, SheetCard, SheetTape } from './exports/build-sheet-pdf';
 import { buildSheetName } from './exports/names';
 import { tapesOf, tdcRecordsOf } from './records';
 
@@ -19,17 +25,78 @@ export interface SheetFile {
 	filename: string;
 }
 
-const printed = (parsed: ParsedBuildSheet): BuildSheet => ({
-	...parsed,
-	date: new Date().toISOString().slice(0, 10),
-	result: phasing(parsed.phasing.input)
-});
+/** The wheel's parameters as given (not defaulted): the sheet lists them, so nothing of the design is left unsaid. */
+const wheelGiven = (params: Partial<Record<string, string>>): Params =>
+	Object.fromEntries(
+		wheelParams.names.flatMap((name) => {
+			const value = params[name]?.trim();
+			return value ? [[name, value]] : [];
+		})
+	);
+
+/**
+ * The tape as the sheet prints it: a saved tape's own hub, rotation, window and marks, each
+ * cylinder's TDC from the engine profile; or, from a hub diameter alone, the wheel's rotation (the
+ * same public `rotation`: the crank seen from the wheel side) on office paper.
+ */
+function sheetTape(parsed: ParsedBuildSheet, saved: CheckedTape | null, label: string | null): SheetTape | null {
+	const base = saved?.spec ?? null;
+	const hubDiameterMm = base?.hubDiameterMm ?? parsed.tapeHubMm;
+	if (hubDiameterMm === null) return null;
+	const input = parsed.phasing.input;
+	// On the hub the crank's angle counts once a turn: a four-stroke's cylinder at 450° comes round at 90°.
+	const tdcs = firingTdcs(input.intervals).slice(1);
+	const spec = {
+		hubDiameterMm,
+		paperThicknessMm: base?.paperThicknessMm ?? 0.1,
+		rotation: base?.rotation ?? parsed.wheel.spec.rotation,
+		windowDeg: base?.windowDeg ?? 180,
+		tickDeg: 1,
+		midEveryDeg: 5,
+		labelEveryDeg: 10,
+		timingMarks: base?.timingMarks ?? [],
+		otherTdc: tdcs.map((deg, i) => ({ label: `cyl ${i + 2}`, atdcDeg: deg }))
+	};
+	return { spec, label, saved: saved !== null, marks: tapeMarks(spec) };
+}
+
+/** The timing-light card's rows: the advance curve saved with the tape, else its spec timings. */
+function sheetCard(tape: SheetTape | null, savedParams: Params | null): SheetCard | null {
+	if (!tape) return null;
+	const curve = savedParams?.curve ? readCurve(savedParams.curve) : null;
+	if (curve?.ok)
+		return {
+			from: 'the advance curve saved with the tape',
+			rows: timingRows(curve.value, tape.spec).map((r) => ({ ...r, what: `${r.rpm} rpm` }))
+		};
+	if (!tape.spec.timingMarks.length) return null;
+	return {
+		from: "the tape's spec timings",
+		rows: tape.spec.timingMarks.map((m) => ({ what: m.label, advanceDeg: m.btdcDeg, ...fromTdcLine(tape.spec, -m.btdcDeg) }))
+	};
+}
+
+const printed = (
+	parsed: ParsedBuildSheet,
+	given: Params,
+	saved: { tape: CheckedTape; label: string; params: Params } | null
+): BuildSheet => {
+	const tape = sheetTape(parsed, saved?.tape ?? null, saved?.label ?? null);
+	return {
+		...parsed,
+		date: new Date().toISOString().slice(0, 10),
+		result: phasing(parsed.phasing.input),
+		given,
+		tape,
+		card: sheetCard(tape, saved?.params ?? null)
+	};
+};
 
 /** A build sheet from the wheel's, the phasing check's and the sheet's own parameters. */
 export function sheetFromParams(params: Partial<Record<string, string>>): Checked<SheetFile> {
 	const parsed = checkBuildSheet(params);
 	if (!parsed.ok) return parsed;
-	return { ok: true, value: { sheet: printed(parsed.value), filename: buildSheetName(parsed.value.buildName) } };
+	return { ok: true, value: { sheet: printed(parsed.value, wheelGiven(params), null), filename: buildSheetName(parsed.value.buildName) } };
 }
 
 /**
@@ -69,6 +136,10 @@ export async function buildSheetFor(
 
 	const parsed = checkBuildSheet(params);
 	if (!parsed.ok) return parsed;
-	const sheet = printed({ ...parsed.value, buildName: build.name, revision: `${revision.number} of “${design.name}”` });
+	const sheet = printed(
+		{ ...parsed.value, buildName: build.name, revision: `${revision.number} of “${design.name}”` },
+		wheelGiven(revision.params),
+		tape && hub?.ok ? { tape: hub.value, label: tape.label, params: tape.params } : null
+	);
 	return { ok: true, value: { sheet, filename: buildSheetName(build.name, revision.number) } };
 }

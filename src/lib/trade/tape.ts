@@ -51,15 +51,64 @@ export interface TapeMark {
 	atdcDeg: number;
 	/** Within the tape's window, so printed. */
 	onTape: boolean;
+	/** The cylinder the mark belongs to, 1 for the tape's own 0. */
+	cylinder: number;
+	/** Where the crank stands at the mark, degrees after cylinder 1's TDC as the cycle counts them, [0, 360). */
+	cycleDeg: number;
 }
 
-/** The extra marks of a tape, spec timings first, each where the crank stands when it reaches the pointer. */
+/** Degrees into (−180, 180]: where a crank angle comes round on one turn of the hub. */
+const onTurn = (deg: number) => {
+	const d = (((deg % 360) + 360) % 360) as number;
+	return d > 180 ? d - 360 : d;
+};
+
+/** A mark's name as printed beside it: another cylinder's TDC says TDC. */
+export const markName = (m: Pick<TapeMark, 'kind' | 'label'>) =>
+	m.kind === 'tdc' && !/\btdc\b/i.test(m.label) ? `${m.label} TDC` : m.label;
+
+/**
+ * The extra marks of a tape, each where the crank stands when it reaches the pointer: cylinder 1's
+ * spec timings, then each other cylinder's TDC followed by the same spec timings before it (each
+ * cylinder fires at the same advance before its own TDC). The hub turns once per crank turn, so a
+ * mark sits at its crank angle modulo 360°.
+ */
 export function tapeMarks(spec: TapeSpec): TapeMark[] {
-	const marks = [
-		...spec.timingMarks.map((m) => ({ kind: 'timing' as const, label: m.label, atdcDeg: -m.btdcDeg })),
-		...spec.otherTdc.map((m) => ({ kind: 'tdc' as const, label: m.label, atdcDeg: m.atdcDeg > 180 ? m.atdcDeg - 360 : m.atdcDeg }))
-	];
-	return marks.map((m) => ({ ...m, onTape: Math.abs(m.atdcDeg) <= spec.windowDeg }));
+	const at = (kind: TapeMark['kind'], label: string, cylinder: number, atdc: number): TapeMark => {
+		const atdcDeg = onTurn(atdc);
+		return { kind, label, atdcDeg, onTape: Math.abs(atdcDeg) <= spec.windowDeg, cylinder, cycleDeg: ((atdc % 360) + 360) % 360 };
+	};
+	const marks = spec.timingMarks.map((m) => at('timing', m.label, 1, -m.btdcDeg));
+	spec.otherTdc.forEach((c, i) => {
+		marks.push(at('tdc', c.label, i + 2, c.atdcDeg));
+		// The label names the cylinder and the degrees, so it reads alone beside cylinder 1's.
+		for (const m of spec.timingMarks) {
+			const timing = m.label.includes('°') ? m.label : `${m.label} ${m.btdcDeg}° BTDC`;
+			marks.push(at('timing', `${c.label}: ${timing}`, i + 2, c.atdcDeg - m.btdcDeg));
+		}
+	});
+	return marks;
+}
+
+/** The window a tape shows, in words: `60° BTDC to 60° ATDC`, or the whole circle. */
+export const windowWords = (spec: Pick<TapeSpec, 'windowDeg'>) =>
+	spec.windowDeg >= 180 ? 'full-circle' : `${spec.windowDeg}° BTDC to ${spec.windowDeg}° ATDC`;
+
+/** Why a mark is not printed, said instead of leaving it out: `cyl 2 TDC at 270° …: outside this tape's … window`. */
+export function outsideNote(spec: Pick<TapeSpec, 'windowDeg'>, m: TapeMark): string {
+	const side = m.atdcDeg < 0 ? `${Number((-m.atdcDeg).toFixed(2))}° BTDC` : `${Number(m.atdcDeg.toFixed(2))}° ATDC`;
+	const where =
+		m.cylinder === 1 && m.kind === 'timing' ? side : `${Number(m.cycleDeg.toFixed(2))}° after cylinder 1's TDC, ${side} on this scale`;
+	return `${markName(m)} at ${where}: outside this tape's ${windowWords(spec)} window`;
+}
+
+/** Where a crank angle sits from the tape's TDC line: the distance along the tape (mm, never negative) and the side, read upright. */
+export function fromTdcLine(
+	spec: Pick<TapeSpec, 'hubDiameterMm' | 'paperThicknessMm' | 'rotation'>,
+	atdcDeg: number
+): { fromTdcMm: number; side: 'left' | 'right' | null } {
+	const offset = tapeOffsetDeg(spec.rotation, atdcDeg);
+	return { fromTdcMm: Math.abs(offset) * mmPerDegree(spec), side: offset === 0 ? null : offset > 0 ? 'right' : 'left' };
 }
 
 export interface Tick {

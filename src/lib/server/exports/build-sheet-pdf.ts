@@ -1,15 +1,35 @@
-// The build sheet: one page the tuner and the fabricator can work from.
+// The build sheet: the tuner's and the fabricator's record of one build, on as many pages as it
+// takes (one for most): the whole wheel, the engine, the phasing for the wheel's own pattern, the
+// TDC record, the tape with its direction of travel and the timing-light card's rows.
 import type { ParsedPhasing } from '$lib/schemas/phasing';
+import type { Params } from '$lib/schemas/registry';
 import type { ParsedWheel } from '$lib/schemas/wheel';
+import { wheelParams } from '$lib/schemas/wheel-params';
 import { firingTdcs } from '$lib/trade/engine';
+import { tdcSideOf, travelWords } from '$lib/trade/hub';
 import { gapsOf } from '$lib/trade/pattern';
 import { clockingFor, type PhasingResult } from '$lib/trade/phasing';
 import type { WheelSummary } from '$lib/trade/summary';
-import { mmPerDegree } from '$lib/trade/tape';
+import { fromTdcLine, markName, mmPerDegree, outsideNote, windowWords, type TapeMark, type TapeSpec } from '$lib/trade/tape';
 import { sideText, type TdcResult } from '$lib/trade/tdc';
 import { formatLength } from '$lib/trade/units';
 import { finish, missingNote, mm, newDocument, papers, printable } from './pdf-kit';
 import { specRows } from './wheel-pdf';
+
+/** The tape on the sheet: its spec (each cylinder's TDC from the engine), the saved tape's label, its marks. */
+export interface SheetTape {
+	spec: TapeSpec;
+	label: string | null;
+	/** A degree tape saved to the build (else the hub diameter alone was given). */
+	saved: boolean;
+	marks: TapeMark[];
+}
+
+/** The timing-light card's rows as the sheet prints them. */
+export interface SheetCard {
+	from: string;
+	rows: { what: string; advanceDeg: number; fromTdcMm: number; side: 'left' | 'right' | null }[];
+}
 
 export interface BuildSheet {
 	buildName: string;
@@ -21,32 +41,56 @@ export interface BuildSheet {
 	result: PhasingResult;
 	tdc: { a: number; b: number; result: TdcResult } | null;
 	tapeHubMm: number | null;
+	/** The wheel's parameters as given or saved: listed whole, so no part of the design goes unsaid. */
+	given: Params;
+	tape: SheetTape | null;
+	card: SheetCard | null;
 }
 
 const margin = 15;
+const caution =
+	"Verify timing with a timing light before putting the engine under load; wrong timing can kick back. Follow the ECU maker's instructions, local codes and licensed professionals.";
 
 export async function buildSheetPdf(s: BuildSheet): Promise<Buffer> {
 	const size = papers[s.wheel.paper];
 	const doc = newDocument(`Build sheet: ${s.buildName}`, size);
 	const width = mm(size.widthMm - 2 * margin);
+	const valueWidth = mm(size.widthMm - 2 * margin - 54);
+	/** Where text stops: the caution sits below, on every page. */
+	const bottom = size.heightMm - margin - 12;
+	const foot = () =>
+		doc
+			.font('text')
+			.fontSize(7.5)
+			.fillColor('black')
+			.text(caution, mm(margin), mm(size.heightMm - margin - 8), { width });
+	foot();
 	let y = margin;
+	const room = (needMm: number) => {
+		if (y + needMm <= bottom) return;
+		doc.addPage({ size: [mm(size.widthMm), mm(size.heightMm)], margin: 0 });
+		foot();
+		y = margin;
+	};
 	const section = (title: string) => {
-		y += 3;
+		room(13);
+		y += 2.5;
 		doc.font('bold').fontSize(10).fillColor('black').text(title, mm(margin), mm(y));
-		y += 5.5;
+		y += 5;
 	};
 	const row = (k: string, v: string) => {
+		const h = Math.max(4, doc.font('mono').fontSize(8).heightOfString(v, { width: valueWidth }) / mm(1) + 0.8);
+		room(h);
 		doc
 			.font('text')
 			.fontSize(8)
 			.fillColor('black')
 			.text(k, mm(margin), mm(y), { width: mm(52) });
-		const h = doc
+		doc
 			.font('mono')
 			.fontSize(8)
-			.heightOfString(v, { width: mm(size.widthMm - 2 * margin - 54) });
-		doc.text(v, mm(margin + 54), mm(y), { width: mm(size.widthMm - 2 * margin - 54) });
-		y += Math.max(4.4, h / mm(1) + 1);
+			.text(v, mm(margin + 54), mm(y), { width: valueWidth });
+		y += h;
 	};
 
 	const name = printable(s.buildName, 'bold');
@@ -68,8 +112,29 @@ export async function buildSheetPdf(s: BuildSheet): Promise<Buffer> {
 	const { spec } = s.wheel;
 	const p = s.phasing.input;
 	const r = s.result;
+	const L = (v: number) => formatLength(v, s.wheel.units);
 	section('Wheel');
 	for (const [k, v] of specRows(spec, s.summary, s.wheel.units)) row(k, v);
+	// What the shared rows leave out: the shaft a standard key was looked up by, the balance holes' spacing.
+	const shaft = s.given.shaft;
+	if (spec.keyway && shaft)
+		row('Shaft (key looked up by)', /^[\d.\s/]+$/.test(shaft) ? `${shaft} ${s.wheel.units}` : printable(shaft).text);
+	if (spec.balanceHoles?.spacingDeg !== undefined) row('Balance hole spacing', `${spec.balanceHoles.spacingDeg}° between neighbours`);
+	row(
+		'Residual unbalance',
+		s.summary.unbalance.gmm <= s.summary.permissible.gmm
+			? `within ISO 21940-11 G ${s.summary.permissible.grade}: ${s.summary.unbalance.gmm.toFixed(2)} of ${s.summary.permissible.gmm.toFixed(2)} g·mm allowed`
+			: `over ISO 21940-11 G ${s.summary.permissible.grade}: ${s.summary.unbalance.gmm.toFixed(2)} g·mm, ${s.summary.permissible.gmm.toFixed(2)} allowed`
+	);
+	const given = wheelParams.names.filter((n) => s.given[n] !== undefined).map((n) => `${n}=${s.given[n]}`);
+	row('Parameters as given', printable(given.join(', '), 'mono').text || 'the defaults');
+
+	section('Engine');
+	const tdcs = firingTdcs(p.intervals);
+	row('Engine', `${s.phasing.layoutLabel}; firing intervals ${p.intervals.join(' / ')}°`);
+	row('Stroke', `${p.stroke}-stroke (${p.stroke === 4 ? 720 : 360} crank degrees a cycle)`);
+	row('Cylinder TDCs', tdcs.map((t, i) => `cyl ${i + 1} at ${t}°`).join(', ') + " after cylinder 1's TDC, crank degrees");
+	row('Rev limit, cranking', `${p.revLimitRpm} rpm, ${p.crankingRpm} rpm`);
 
 	section('Sensor and phasing');
 	row('Wheel on', p.mount === 'crank' ? 'the crank' : 'the cam (half speed: one wheel degree is two crank degrees)');
@@ -109,8 +174,6 @@ export async function buildSheetPdf(s: BuildSheet): Promise<Buffer> {
 			? `no gap on this wheel (${p.pattern.kind === 'extra' ? 'it keeps its cam sync by the extra tooth' : 'the ECU needs another sync signal'})`
 			: `${r.gapAtCrankingMs} ms at ${p.crankingRpm} rpm${gaps.length > 1 ? ' (the shortest gap)' : ''}`
 	);
-	row('Engine', `${s.phasing.layoutLabel}; firing intervals ${p.intervals.join(' / ')}°`);
-	const tdcs = firingTdcs(p.intervals);
 	row(
 		'Gap clearance',
 		gaps.length
@@ -127,30 +190,53 @@ export async function buildSheetPdf(s: BuildSheet): Promise<Buffer> {
 			? `${sideText(s.tdc.a)} and ${sideText(s.tdc.b)}: true TDC ${sideText(s.tdc.result.tdcDeg)} of the scale's 0, spread ${s.tdc.result.spreadDeg}° (${s.tdc.result.halfSpreadDeg}° each side)`
 			: 'not recorded'
 	);
-	row(
-		'Degree tape',
-		s.tapeHubMm
-			? `hub ${formatLength(s.tapeHubMm, s.wheel.units)}, ${formatLength(mmPerDegree({ hubDiameterMm: s.tapeHubMm, paperThicknessMm: 0.1 }), s.wheel.units)} per degree`
-			: 'not recorded'
-	);
+	const tape = s.tape;
+	if (!tape) row('Degree tape', 'not recorded');
+	else {
+		const t = tape.spec;
+		const perDeg = mmPerDegree(t);
+		row(
+			'Degree tape',
+			`${tape.label ? `“${printable(tape.label).text}”: ` : ''}hub ${L(t.hubDiameterMm)}, ${formatLength(perDeg, s.wheel.units)} per degree, ${windowWords(t)} window${tape.saved ? '' : ' (from the hub diameter given; the crank turning as the wheel says)'}`
+		);
+		row('Direction of travel', travelWords(t.rotation));
+		const where = (atdc: number) => {
+			const at = fromTdcLine(t, atdc);
+			return at.side ? `${L(at.fromTdcMm)} ${at.side} of TDC` : 'on the TDC line';
+		};
+		const marks = tape.marks.filter((m) => m.kind === 'tdc' || m.cylinder === 1);
+		if (marks.length)
+			row(
+				'Marks on the tape',
+				marks
+					.map((m) =>
+						m.onTape ? `${printable(markName(m)).text} (${sideText(m.atdcDeg)}): ${where(m.atdcDeg)}` : printable(outsideNote(t, m)).text
+					)
+					.join('; ')
+			);
+	}
+
+	section('Timing-light card');
+	const card = s.card;
+	if (!card) row('Rows', tape ? 'no advance curve or spec timings saved with the tape' : 'no degree tape recorded');
+	else {
+		row('From', card.from);
+		for (const r of card.rows)
+			row(
+				printable(r.what).text,
+				`${r.advanceDeg === 0 ? 'TDC' : `${Math.abs(r.advanceDeg)}° ${tdcSideOf(-r.advanceDeg)}`}: ${r.side ? `${L(r.fromTdcMm)} ${r.side} of TDC` : 'on the TDC line'}`
+			);
+	}
 
 	section('Warnings outstanding');
 	const warnings = [...s.summary.warnings.map((w) => w.message), ...r.warnings.map((w) => w.message)];
 	if (!warnings.length) row('', 'none');
 	for (const w of warnings) {
 		const h = doc.font('text').fontSize(7.5).heightOfString(`• ${w}`, { width });
+		room(h / mm(1) + 1.2);
 		doc.fillColor('#8a5200').text(`• ${w}`, mm(margin), mm(y), { width });
 		y += h / mm(1) + 1.2;
 	}
-	doc
-		.font('text')
-		.fontSize(7.5)
-		.fillColor('black')
-		.text(
-			"Verify timing with a timing light before putting the engine under load; wrong timing can kick back. Follow the ECU maker's instructions, local codes and licensed professionals.",
-			mm(margin),
-			mm(size.heightMm - margin - 8),
-			{ width }
-		);
+	doc.fillColor('black');
 	return finish(doc);
 }

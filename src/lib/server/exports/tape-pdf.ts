@@ -3,7 +3,9 @@
 import { tapeEnds, tapeTravel, tdcSideOf, travelWords, type Rotation } from '$lib/trade/hub';
 import {
 	fittingWords,
+	markName,
 	mmPerDegree,
+	outsideNote,
 	tapeMarks,
 	tapePage,
 	tapeStrips,
@@ -69,6 +71,14 @@ async function drawTape(spec: TapeSpec, units: Units, paper: keyof typeof papers
 			{ width: mm(textWidth) }
 		);
 		tapeWarnings(spec).forEach((w) => doc.fillColor('#8a5200').text(w, mm(margin), doc.y + 1, { width: mm(textWidth) }));
+		if (spec.otherTdc.length)
+			doc
+				.font('text')
+				.fontSize(6.5)
+				.fillColor('black')
+				.text("0 is cylinder 1's TDC; each other cylinder's TDC (blue) and spec timings (brown) are marked too.", mm(margin), doc.y + 1, {
+					width: mm(textWidth)
+				});
 		fittingDiagram(doc, spec.rotation, size.widthMm - margin - fitting.widthMm, margin);
 
 		strips
@@ -166,10 +176,13 @@ async function drawTape(spec: TapeSpec, units: Units, paper: keyof typeof papers
 						.font('text')
 						.fontSize(5.5)
 						.fillColor(color)
-						.text(printable(m.label).text, x(at) + mm(0.8), mm(top + 18), { lineBreak: false });
+						// Timing labels on a line of their own: a long one never runs over a TDC label beside it.
+						.text(printable(markName(m)).text, x(at) + mm(0.8), mm(top + (m.kind === 'tdc' ? 18 : 21)), { lineBreak: false });
 					doc.fillColor('black');
 				}
 			});
+		const onPage = strips.filter((s) => s.page === page).length;
+		outsideNotes(doc, spec, margin + header + onPage * (stripHeight + rowGap), size.heightMm - margin - footer, size.widthMm - 2 * margin);
 		doc
 			.font('text')
 			.fontSize(6.5)
@@ -183,6 +196,28 @@ async function drawTape(spec: TapeSpec, units: Units, paper: keyof typeof papers
 		calibrationBars(doc, margin, size.heightMm - margin - 12);
 	}
 	return finish(doc);
+}
+
+/**
+ * Below the page's strips, above the footer: every mark the window leaves off, said rather than
+ * dropped; as many as the room holds, then how many more.
+ */
+function outsideNotes(doc: PDFKit.PDFDocument, spec: TapeSpec, fromMm: number, toMm: number, widthMm: number) {
+	const notes = tapeMarks(spec)
+		.filter((m) => !m.onTape)
+		.map((m) => printable(outsideNote(spec, m)).text);
+	if (!notes.length) return;
+	const width = mm(widthMm);
+	doc.font('text').fontSize(6.5);
+	for (let shown = notes.length; shown >= 0; shown--) {
+		const rest = notes.length - shown;
+		const text = `Not on this tape: ${notes.slice(0, shown).join('; ')}${rest ? `${shown ? '; and ' : ''}${rest} more outside its window` : ''}.`;
+		if (fromMm + doc.heightOfString(text, { width }) / mm(1) <= toMm || shown === 0) {
+			doc.fillColor('#8a5200').text(text, mm(margin), mm(fromMm), { width });
+			doc.fillColor('black');
+			return;
+		}
+	}
 }
 
 /** The fitting diagram's box, mm. */

@@ -1,10 +1,10 @@
 // The timing-light card: a table to take to the engine of where the mark should appear at each
 // speed, on this hub's tape.
-import { tdcSideOf, travelWords, type Rotation } from '$lib/trade/hub';
+import { btdcSide, tdcSideOf, travelWords, type Rotation } from '$lib/trade/hub';
 import { fittingWords, mmPerDegree } from '$lib/trade/tape';
 import type { CardRow } from '$lib/trade/timing';
 import { formatLength, fromMm, type Units } from '$lib/trade/units';
-import { calibrationBars, finish, mm, newDocument, papers, printNote } from './pdf-kit';
+import { calibrationBars, finish, missingNote, mm, newDocument, papers, printable, printNote } from './pdf-kit';
 
 const margin = 15;
 
@@ -13,22 +13,41 @@ export async function timingCardPdf(
 	hub: { hubDiameterMm: number; paperThicknessMm: number },
 	rotation: Rotation,
 	units: Units,
-	paper: keyof typeof papers
+	paper: keyof typeof papers,
+	name = ''
 ): Promise<Buffer> {
 	const size = papers[paper];
-	const doc = newDocument('Timing-light card', size);
+	const title = printable(name, 'bold');
+	const doc = newDocument(title.text ? `Timing-light card: ${title.text}` : 'Timing-light card', size);
 	const k = mmPerDegree(hub);
-	doc.font('bold').fontSize(14).text('Timing-light card', mm(margin), mm(margin));
+	const width = mm(size.widthMm - 2 * margin);
+	doc
+		.font('bold')
+		.fontSize(14)
+		.text(title.text ? `Timing-light card: ${title.text}` : 'Timing-light card', mm(margin), mm(margin), { width });
+	if (title.missing.length)
+		doc.font('text').fontSize(8).fillColor('#8a5200').text(missingNote(title.missing), { width }).fillColor('black');
+	// The direction of travel on a line of its own: what a person checks first with the engine turning.
+	const toward = btdcSide(rotation);
+	doc
+		.font('bold')
+		.fontSize(9.5)
+		.text(
+			`Direction of travel: the tape moves ${toward === 'right' ? 'left to right' : 'right to left'} past the pointer; BTDC marks (${toward} of TDC) reach it first.`,
+			mm(margin),
+			doc.y + mm(1.5),
+			{ width }
+		);
 	doc
 		.font('text')
 		.fontSize(8.5)
 		.text(
 			`Hub ${formatLength(hub.hubDiameterMm, units)}, ${formatLength(k, units)} per degree on the tape. ${travelWords(rotation)} Left and right below are as you read the tape upright. ${printNote}`,
 			mm(margin),
-			mm(margin + 8),
-			{ width: mm(size.widthMm - 2 * margin) }
+			doc.y + mm(1.5),
+			{ width }
 		);
-	doc.fontSize(7.5).text(fittingWords, { width: mm(size.widthMm - 2 * margin) });
+	doc.fontSize(7.5).text(fittingWords, { width });
 
 	const cols = [margin, margin + 30, margin + 62, margin + 135];
 	let y = Math.max(margin + 30, doc.y / mm(1) + 5);

@@ -6,9 +6,9 @@ import { timingRows } from '$lib/trade/timing';
 export async function GET({ url }) {
 	const parsed = checkTimingCard(Object.fromEntries(url.searchParams));
 	if (!parsed.ok) return refuse(parsed.refusals);
-	const { hub, points, rotation, units, paper } = parsed.value;
+	const { hub, points, rotation, units, paper, name } = parsed.value;
 	return fileResponse(
-		await timingCardPdf(timingRows(points, { ...hub, rotation }), hub, rotation, units, paper),
+		await timingCardPdf(timingRows(points, { ...hub, rotation }), hub, rotation, units, paper, name),
 		'application/pdf',
 		'timing-light-card.pdf'
 	);
