@@ -130,9 +130,7 @@ export async function sendCuttingPackage(database: Database, order: PackageOrder
 	});
 	// The sender's copy rides on this request's count in the mail throttle (it goes only to the
 	// signed-in sender's own address), after the answer: a copy that fails leaves the order sent.
-	queueMail(() =>
-		sendMail(cuttingPackageCopyMessage(message, { to: order.sender.email, buildUrl: linkTo(`/builds/${order.build.id}`) }))
-	);
+	queueMail(() => sendMail(cuttingPackageCopyMessage(message, { to: order.sender.email, buildUrl: linkTo(`/builds/${order.build.id}`) })));
 	return recorded;
 }
 

@@ -38,7 +38,17 @@ describe('the hub dimension over the bore', () => {
 	// Machinery's Handbook's B17.1 depth T for a 1 in bore, 1/4 in key: T = D − Y + H/2 + C with
 	// Y = (1 − √(1 − 1/16))/2 = 0.01588 in, so T = 1 − 0.01588 + 0.125 + 0.005 = 1.1141 in (worked by hand).
 	it('is T for ANSI B17.1, from the far side of the bore', () => {
-		const c = checkWheel({ units: 'in', teeth: '36', missing: '1', od: '4', depth: '0.2', thickness: '0.125', bore: '1', keyway: 'b17.1', shaft: '1' });
+		const c = checkWheel({
+			units: 'in',
+			teeth: '36',
+			missing: '1',
+			od: '4',
+			depth: '0.2',
+			thickness: '0.125',
+			bore: '1',
+			keyway: 'b17.1',
+			shaft: '1'
+		});
 		if (!c.ok) throw new Error(JSON.stringify(c.refusals));
 		const hub = hubDimension(25.4, c.value.spec.keyway!);
 		expect(hub.name).toBe('T');

@@ -39,8 +39,7 @@ export function gapPositions(spec: WheelSpec): GapPosition[] {
 		return {
 			drawDeg: at,
 			widthDeg: g.toDeg - g.fromDeg,
-			fromKeyway:
-				ccw === null ? null : ccw <= 180 ? { deg: ccw, sense: 'counter-clockwise' } : { deg: 360 - ccw, sense: 'clockwise' }
+			fromKeyway: ccw === null ? null : ccw <= 180 ? { deg: ccw, sense: 'counter-clockwise' } : { deg: 360 - ccw, sense: 'clockwise' }
 		};
 	});
 }

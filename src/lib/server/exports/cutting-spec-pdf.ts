@@ -138,7 +138,10 @@ function scaleBar(doc: PDFKit.PDFDocument, x: number, y: number, factor: number,
 	doc.font('mono').fontSize(6).fillColor('black');
 	doc.text('0', mm(x) - 10, mm(y + 1), { width: 20, align: 'center' });
 	doc.text('100', mm(x + length) - 10, mm(y + 1), { width: 20, align: 'center' });
-	doc.font('text').fontSize(7).text(`mm of the part at ${label}`, mm(x + length + 4), mm(y - 2), { lineBreak: false });
+	doc
+		.font('text')
+		.fontSize(7)
+		.text(`mm of the part at ${label}`, mm(x + length + 4), mm(y - 2), { lineBreak: false });
 	doc.restore();
 }
 

@@ -99,7 +99,10 @@ function twoLines(words: string, at: string): string[] {
 
 /** A thin chain line (centre lines, pitch circles): long dash, gap, short dash, gap (ISO 128). */
 function chain(doc: PDFKit.PDFDocument) {
-	doc.lineWidth(mm(thin)).strokeColor('#333').dash(mm(6), { space: mm(1.5) });
+	doc
+		.lineWidth(mm(thin))
+		.strokeColor('#333')
+		.dash(mm(6), { space: mm(1.5) });
 }
 
 /**
@@ -124,10 +127,7 @@ export function drawView(v: View) {
 	const R = (spec.odMm / 2) * v.scale;
 
 	// The outline and holes from the DXF's own contours, scaled about the centre.
-	doc
-		.save()
-		.translate(mm(v.centre.x), mm(v.centre.y))
-		.scale(mm(v.scale));
+	doc.save().translate(mm(v.centre.x), mm(v.centre.y)).scale(mm(v.scale));
 	doc.lineWidth(thick / v.scale).strokeColor('black');
 	for (const c of cutContours(d)) doc.path(contourPath(c)).stroke();
 	doc.lineWidth(thin / v.scale).strokeColor('#1d47b0');
@@ -183,7 +183,10 @@ export function drawView(v: View) {
 			a: g.drawDeg,
 			from: at(v, R, g.drawDeg),
 			words: g.fromKeyway
-				? [`Gap ${i + 1} centre`, `${Number(g.fromKeyway.deg.toFixed(2))}° ${g.fromKeyway.sense === 'clockwise' ? 'CW' : 'CCW'} from keyway`]
+				? [
+						`Gap ${i + 1} centre`,
+						`${Number(g.fromKeyway.deg.toFixed(2))}° ${g.fromKeyway.sense === 'clockwise' ? 'CW' : 'CCW'} from keyway`
+					]
 				: [`Gap ${i + 1} centre`]
 		});
 	const angles = spread(leaders.map((l) => l.a));

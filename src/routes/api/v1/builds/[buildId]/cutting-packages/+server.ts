@@ -1,4 +1,4 @@
-import { error, json } from '@sveltejs/kit';
+import { json } from '@sveltejs/kit';
 import { cuttingPackageInput } from '$lib/schemas/build';
 import { objectAccess } from '$lib/server/access';
 import { jsonBody } from '$lib/server/api';
