@@ -127,9 +127,10 @@ describe('the shop drawing of a cutting package', () => {
 		expect(t).toMatch(/Mild steel\s+3\.00 mm\s+3 off\s+zinc plated/);
 		expect(t).toMatch(/Revision[\s\S]*?\n\s*Keyed crank wheel\s+Drawing bench\s+1\s+\d{4}-\d{2}-\d{2}/);
 		expect(t).toContain('wheel-36-1-100mm-r1.dxf');
-		// The cautions stay.
-		expect(t).toContain('Deburr all edges');
-		expect(t).toContain('out of balance by design');
+		// The cautions stay (read across the notes' line breaks).
+		const flat = t.replace(/\s+/g, ' ');
+		expect(flat).toContain('Deburr all edges: cut parts are sharp.');
+		expect(flat).toContain('A missing-tooth wheel is out of balance by design; check it before running at speed.');
 		expect(pdf.disposition).toContain('cutting-spec-36-1-100mm-r1.pdf');
 
 		// To scale: 1:1 on A4 (ISO 216: 210 x 297 mm = 595.28 x 841.89 pt), and the 100 mm calibration
