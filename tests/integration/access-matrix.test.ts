@@ -44,12 +44,14 @@ interface Ids {
 	tdc: string;
 	tape: string;
 	photo: string;
+	/** A cutting package sent from the build. */
+	package: string;
 	invitation: string;
 	token: string;
 	/** A member who is neither the caller nor the workshop's only owner. */
 	member: string;
 }
-type IdKind = 'workshop' | 'build' | 'design' | 'tdc' | 'tape' | 'photo' | 'invitation' | 'member';
+type IdKind = 'workshop' | 'build' | 'design' | 'tdc' | 'tape' | 'photo' | 'package' | 'invitation' | 'member';
 
 interface Answer {
 	status: number;
@@ -230,9 +232,10 @@ async function shop(word: string, photo: { bytes: Uint8Array }): Promise<Shop> {
 		owner.send<{ id: string }>('POST', `/api/v1/builds/${build}/photos`, photoForm(photo.bytes, names.photo)),
 		'photo'
 	);
-	expect(
-		(await owner.send('POST', `/api/v1/builds/${build}/cutting-packages`, { designId: design, to: names.fabricator, quantity: 1 })).status
-	).toBe(201);
+	const cutting = await created(
+		owner.send<{ id: string }>('POST', `/api/v1/builds/${build}/cutting-packages`, { designId: design, to: names.fabricator, quantity: 1 }),
+		'cutting package'
+	);
 	const invitation = await pendingInvitation(owner, `${word.toLowerCase()}-invitee`);
 	names.invitee = invitation.email;
 	return {
@@ -245,6 +248,7 @@ async function shop(word: string, photo: { bytes: Uint8Array }): Promise<Shop> {
 			tdc,
 			tape,
 			photo: photoId,
+			package: cutting,
 			invitation: invitation.id,
 			token: invitation.token,
 			member: await userIdOf(ownerEmail)
@@ -645,6 +649,21 @@ const table: Row[] = [
 			}),
 		guess: ['build', 'design'],
 		malformed: { design: 400 }
+	},
+	{
+		route: 'GET /api/v1/builds/[buildId]/cutting-packages/drawing.pdf',
+		object: 'shop drawing of a revision, previewed before sending',
+		expect: e(401, 200, 200, 200, 404),
+		call: (c, i) => getApi(c, `/api/v1/builds/${i.build}/cutting-packages/drawing.pdf?designId=${i.design}&quantity=1`),
+		guess: ['build', 'design'],
+		malformed: { design: 400 }
+	},
+	{
+		route: 'GET /api/v1/builds/[buildId]/cutting-packages/[packageId]/drawing.pdf',
+		object: 'shop drawing of a sent cutting package',
+		expect: e(401, 200, 200, 200, 404),
+		call: (c, i) => getApi(c, `/api/v1/builds/${i.build}/cutting-packages/${i.package}/drawing.pdf`),
+		guess: ['build', 'package']
 	},
 	{
 		route: 'GET /api/v1/builds/[buildId]/designs',

@@ -145,5 +145,7 @@ export const cuttingPackageInput = z.object({
 		.int({ error: 'quantity: a whole number from 1 to 10000' })
 		.min(1, { error: 'quantity: a whole number from 1 to 10000' })
 		.max(10_000, { error: 'quantity: a whole number from 1 to 10000' }),
-	notes: text('notes', 2000).optional().default('')
+	notes: text('notes', 2000).optional().default(''),
+	/** Surface finish or treatment for the drawing's title block (optional). */
+	finish: singleLine('finish', 120).optional().default('')
 });

@@ -63,7 +63,7 @@ export function invitationMessage(input: { to: string; workshop: string; inviter
 	};
 }
 
-export function cuttingPackageMessage(input: {
+export interface CuttingOrder {
 	to: string;
 	from: string | null;
 	buildName: string;
@@ -73,13 +73,22 @@ export function cuttingPackageMessage(input: {
 	material: string;
 	thickness: string;
 	notes: string;
+	finish?: string;
 	attachments: { filename: string; content: Buffer; contentType: string }[];
-}): Message {
+}
+
+const cuttingOrderSubject = (input: CuttingOrder) =>
+	`Cutting order: ${quoted(input.designName)} revision ${input.revision} (${input.quantity} off, ${input.material} ${input.thickness})`;
+
+const cuttingOrderText = (input: CuttingOrder) =>
+	`Hello,\n\nplease quote for / cut the trigger wheel attached${input.from ? ` (sent by ${input.from})` : ''}:\n\n  Build: ${quoted(input.buildName)}\n  Part: ${quoted(input.designName)}, revision ${input.revision}\n  Quantity: ${input.quantity}\n  Material: ${input.material}, ${input.thickness}\n${input.finish ? `  Finish: ${quoted(input.finish)}\n` : ''}${input.notes ? `\nNotes from the sender:\n${quotedBlock(input.notes)}\n` : ''}\nAttached: the DXF (CUT and ETCH layers, units in the file) and the shop drawing (dimensions, fits, tolerances).\n\n-- \nSent from Phasewright (trigger wheels, degree tapes and timing for ECU conversions).`;
+
+export function cuttingPackageMessage(input: CuttingOrder): Message {
 	return {
 		to: input.to,
 		replyTo: input.from ?? undefined,
-		subject: `Cutting order: ${quoted(input.designName)} revision ${input.revision} (${input.quantity} off, ${input.material} ${input.thickness})`,
-		text: `Hello,\n\nplease quote for / cut the trigger wheel attached${input.from ? ` (sent by ${input.from})` : ''}:\n\n  Build: ${quoted(input.buildName)}\n  Part: ${quoted(input.designName)}, revision ${input.revision}\n  Quantity: ${input.quantity}\n  Material: ${input.material}, ${input.thickness}\n${input.notes ? `\nNotes from the sender:\n${quotedBlock(input.notes)}\n` : ''}\nAttached: the DXF (CUT and ETCH layers, units in the file) and the one-page spec.\n\n-- \nSent from Phasewright (trigger wheels, degree tapes and timing for ECU conversions).`,
+		subject: cuttingOrderSubject(input),
+		text: cuttingOrderText(input),
 		attachments: input.attachments
 	};
 }
@@ -89,5 +98,18 @@ export function confirmAddressMessage(to: string, url: string): Message {
 		to,
 		subject: 'Confirm your Phasewright address',
 		text: `A Phasewright account was created with this address. Open this link to confirm that the address is yours and to sign in:\n\n${url}\n\nOpen it in the browser you signed up with and the password you chose stays. Opened anywhere else, the link still confirms the address and signs you in there, but removes the password set at sign-up and signs out every other browser: if you did not create this account, that is what keeps whoever did out. You can set a new password afterwards with "Forgot the password?" on the sign-in page.\n\nUntil the address is confirmed, the account cannot join workshops. The link works once, for 30 minutes.${footer}`
+	};
+}
+
+/**
+ * The sender's copy of a cutting order: what the fabricator received, word for word and with the
+ * same files, under a line saying where it went and a link back to the build.
+ */
+export function cuttingPackageCopyMessage(order: CuttingOrder, copy: { to: string; buildUrl: string }): Message {
+	return {
+		to: copy.to,
+		subject: `Copy: ${cuttingOrderSubject(order)}`,
+		text: `Your cutting package went to ${order.to}. This is a copy of what they received; the build is at\n\n${copy.buildUrl}\n\n-- Copy --\n\n${cuttingOrderText(order)}`,
+		attachments: order.attachments
 	};
 }

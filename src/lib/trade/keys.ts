@@ -246,3 +246,26 @@ export function fraction(x: number): string {
 
 /** A shaft as a machinist writes it: a fraction when it is one to 64ths, else three decimals. */
 const inches = (x: number) => (Math.abs(x * 64 - Math.round(x * 64)) < 1e-6 ? fraction(x) : x.toFixed(3));
+
+export interface HubDimension {
+	/** What the standard calls it: "d + t2" (DIN 6885-1), "T" (B17.1), or a plain "bore + depth". */
+	name: string;
+	/** From the far side of the bore, across its centre, to the keyway's floor, mm. */
+	mm: number;
+	/** Where the way of measuring comes from, for the drawing. */
+	source: string;
+}
+
+/**
+ * The keyway's depth as a shop measures it over the bore: a gauge on the bore's far side, across
+ * the centre, to the keyway's floor. DIN 6885-1 states it as d + t2 (t2 over the bore on the centre
+ * line); B17.1 as T = D − Y + H/2 + C from the far side of the bore (ansiHubDepthIn: T − D is the
+ * slot's depth over the bore on the centre line); B17.2 and a custom slot give the depth over the
+ * bore, so the same sum.
+ */
+export function hubDimension(boreMm: number, slot: HubSlot): HubDimension {
+	const mm = boreMm + slot.depthMm;
+	if (slot.source.startsWith('DIN 6885-1')) return { name: 'd + t2', mm, source: 'DIN 6885-1: hub dimension d + t2' };
+	if (slot.source.startsWith('ANSI B17.1')) return { name: 'T', mm, source: 'ANSI B17.1: hub depth T from the far side of the bore' };
+	return { name: 'bore + depth', mm, source: 'from the far side of the bore to the keyway floor' };
+}

@@ -1,36 +1,24 @@
-import { error, json } from '@sveltejs/kit';
+import { json } from '@sveltejs/kit';
 import { cuttingPackageInput } from '$lib/schemas/build';
 import { objectAccess } from '$lib/server/access';
 import { jsonBody } from '$lib/server/api';
 import { cuttingPackagesOf } from '$lib/server/build-overview';
 import { getBuild } from '$lib/server/builds';
-import { sendCuttingPackage } from '$lib/server/cutting-package';
+import { revisionToCut, sendCuttingPackage } from '$lib/server/cutting-package';
 import { db } from '$lib/server/db';
-import { getDesign, revisionOf } from '$lib/server/designs';
 import { mailRefusal, reserveMail } from '$lib/server/mail-throttle';
-import { checkWheel } from '$lib/server/wheel-request';
 
 export async function GET(event) {
 	const access = await objectAccess(event, 'read', 'build', event.params.buildId);
 	return json({ cuttingPackages: await cuttingPackagesOf(db(), access.buildId) });
 }
 
-/** E-mails a fabricator the DXF and the one-page spec of a design's revision (the newest unless `revision` is given). */
+/** E-mails a fabricator (and a copy to the sender) the DXF and the shop drawing of a design's revision (the newest unless `revision` is given). */
 export async function POST(event) {
 	const access = await objectAccess(event, 'edit', 'build', event.params.buildId);
 	const body = await jsonBody(event.request, cuttingPackageInput);
 	if (!body.ok) return body.response;
-	const design = await getDesign(db(), body.data.designId);
-	if (!design || design.buildId !== access.buildId)
-		error(404, { message: 'designId: no such wheel design in this build', code: 'not-found' });
-	const revision = await revisionOf(db(), design.id, body.data.revision);
-	if (!revision) error(404, { message: `revision: “${design.name}” has no revision ${body.data.revision}`, code: 'not-found' });
-	const wheel = checkWheel(revision.params);
-	if (!wheel.ok)
-		error(422, {
-			message: `Revision ${revision.number} no longer passes the wheel checks: ${Object.values(wheel.errors).join('; ')}`,
-			code: 'invalid'
-		});
+	const { design, revision, wheel } = await revisionToCut(db(), access.buildId, body.data.designId, body.data.revision);
 	const build = (await getBuild(db(), access.buildId))!;
 	const allowed = await reserveMail(db(), 'cutting-package', {
 		address: body.data.to,
@@ -46,14 +34,15 @@ export async function POST(event) {
 		const sent = await sendCuttingPackage(db(), {
 			build,
 			design,
-			revision: revision.number,
+			revision,
 			wheel,
 			to: body.data.to,
 			quantity: body.data.quantity,
 			notes: body.data.notes,
+			finish: body.data.finish,
 			sender: access.user
 		});
-		return json({ ...sent, revision: revision.number, to: body.data.to }, { status: 201 });
+		return json({ ...sent, revision, to: body.data.to }, { status: 201 });
 	} catch (err) {
 		const reason = err instanceof Error ? err.message : String(err);
 		// The mail server refused or was unreachable: nothing was recorded; say so rather than 500.
