@@ -368,7 +368,7 @@ describe('GET /api/v1/build-sheet.pdf', () => {
 		expect(res.status).toBe(400);
 		expect((await res.json()).errors).toEqual({
 			toothAtTdc: 'toothAtTdc: a number from 0 to 720',
-			tdcB: 'tdcB: must differ from tdcA; a piston stop leaves one mark each side of TDC'
+			tdcB: 'tdcB: must differ from the first piston-stop mark; a piston stop leaves one mark each side of TDC'
 		});
 		const more = await fetch(
 			`${process.env.APP_URL}/api/v1/build-sheet.pdf?${new URLSearchParams({ buildName: 'x'.repeat(81), teeth: '36', depth: '5', input: 'angles', sensorAngle: '90', layout: 'v-twin', tapeDiameter: '2' })}`

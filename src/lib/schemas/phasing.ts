@@ -3,7 +3,7 @@ import { patternRefusals } from '$lib/trade/pattern';
 import { keyFromSensorFrom, toothAtTdcFrom, type MeasuredAngles, type PhasingInput } from '$lib/trade/phasing';
 import { summarize, type WheelSummary } from '$lib/trade/summary';
 import type { TdcResult } from '$lib/trade/tdc';
-import { parseLength, toMm, type Units } from '$lib/trade/units';
+import { parseLengthWithUnit, type Units } from '$lib/trade/units';
 import { common } from './common-params';
 import { firstPerField, refusal, type Checked, type Refusal } from './refusal';
 import { allows, defineRegistry, givenParams, type Params } from './registry';
@@ -425,9 +425,10 @@ export function checkBuildSheet(params: Partial<Record<string, string>>): Checke
 	if (tdcA !== undefined || tdcB !== undefined) {
 		const marks = checkTdc({ a: tdcA, b: tdcB });
 		if (!marks.ok) {
-			// The TDC check names its readings a and b: here they are tdcA and tdcB.
+			// The TDC check names its readings a and b: here they are tdcA and tdcB, labelled as such.
+			const first = buildSheetParams.label('tdcA').toLowerCase();
 			for (const r of marks.refusals)
-				found.push(refusal(`tdc${r.field.toUpperCase()}`, r.message.replace(/^must differ from a\b/, 'must differ from tdcA')));
+				found.push(refusal(`tdc${r.field.toUpperCase()}`, r.message.replace(/^must differ from the first mark\b/, `must differ from the ${first}`)));
 		} else if (marks.value.kind === 'rim') found.push(refusal('tdcA', 'a piston-stop reading in degrees'));
 		else tdc = { a: marks.value.marks.a.atdcDeg, b: marks.value.marks.b.atdcDeg, result: marks.value.result };
 	}
@@ -435,8 +436,10 @@ export function checkBuildSheet(params: Partial<Record<string, string>>): Checke
 	if (tapeDiameter !== undefined) {
 		const units: Units = wheel.ok ? wheel.value.units : given.units === 'in' ? 'in' : 'mm';
 		const def = buildSheetParams.get('tapeDiameter')!;
-		tapeHubMm = toMm(parseLength(tapeDiameter), units);
-		if (!(tapeHubMm >= 10 && tapeHubMm <= 2000)) found.push(refusal('tapeDiameter', `the timing hub diameter, ${allows(def, units)}`));
+		const read = parseLengthWithUnit(tapeDiameter, units);
+		tapeHubMm = read.ok ? read.mm : NaN;
+		if (!read.ok) found.push(refusal('tapeDiameter', `${read.why}; the timing hub diameter, ${allows(def, units)}`));
+		else if (!(tapeHubMm >= 10 && tapeHubMm <= 2000)) found.push(refusal('tapeDiameter', `the timing hub diameter, ${allows(def, units)}`));
 	}
 	// The wheel's own cross-checks (a tooth deeper than the web allows …), from the trade library.
 	const summary = wheel.ok ? summarize(wheel.value.spec, wheel.value.units, wheel.value.running) : null;
