@@ -137,7 +137,9 @@ describe('GET /api/v1/phasing', () => {
 		expect(await errorsOf({ toothAtTdc: '9', layout: 'v-twin' })).toEqual({
 			vAngle: 'vAngle: required with the V-twin layout, a number from 15 to 120°'
 		});
-		expect(await errorsOf({ toothAtTdc: '9', layout: 'twin-270', vAngle: '52' })).toEqual({ vAngle: 'vAngle: only with the V-twin layout' });
+		expect(await errorsOf({ toothAtTdc: '9', layout: 'twin-270', vAngle: '52' })).toEqual({
+			vAngle: 'vAngle: only with the V-twin layout'
+		});
 		expect(await errorsOf({ toothAtTdc: '9', layout: 'v-twin-52' })).toEqual({
 			layout: 'layout: one of single-4, single-2, twin-180, twin-270, twin-360, v-twin, twin-2-180, four-inline'
 		});

@@ -260,8 +260,7 @@ export function checkPhasing(params: Partial<Record<string, string>>): Checked<P
 	let measured: MeasuredAngles | null = null;
 	let toothAtTdc = v.toothAtTdc ?? 0;
 	if (v.input === 'angles') {
-		if (v.toothAtTdc !== undefined)
-			refuse('toothAtTdc', `not ${byAnglesWords} (it is worked out from the sensor, keyway and key angles)`);
+		if (v.toothAtTdc !== undefined) refuse('toothAtTdc', `not ${byAnglesWords} (it is worked out from the sensor, keyway and key angles)`);
 		if (v.keyFromSensor !== undefined) refuse('keyFromSensor', `not ${byAnglesWords} (it follows from the sensor and key angles)`);
 		measured = { sensorFromTdcDeg: v.sensorAngle!, keywayDeg: v.keywayAngle, keyFromTdcDeg: v.keyAngle, mount: v.mount };
 		toothAtTdc = toothAtTdcFrom({ ...measured, teeth: v.teeth });
@@ -432,7 +431,9 @@ export function checkBuildSheet(params: Partial<Record<string, string>>): Checke
 			// The TDC check names its readings a and b: here they are tdcA and tdcB, labelled as such.
 			const first = buildSheetParams.label('tdcA').toLowerCase();
 			for (const r of marks.refusals)
-				found.push(refusal(`tdc${r.field.toUpperCase()}`, r.message.replace(/^must differ from the first mark\b/, `must differ from the ${first}`)));
+				found.push(
+					refusal(`tdc${r.field.toUpperCase()}`, r.message.replace(/^must differ from the first mark\b/, `must differ from the ${first}`))
+				);
 		} else if (marks.value.kind === 'rim') found.push(refusal('tdcA', 'a piston-stop reading in degrees'));
 		else tdc = { a: marks.value.marks.a.atdcDeg, b: marks.value.marks.b.atdcDeg, result: marks.value.result };
 	}
