@@ -3,6 +3,7 @@ import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { baseUrl, launch, screenshots } from './browser';
 
+// The units radios are drawn as a segmented control (the inputs are sr-only): their labels are clicked.
 // A metric shaft on an inch wheel, typed with its unit, and fractions kept through the unit switch.
 // 1 in = 25.4 mm exactly (international inch, 1959): a 20 mm bore is a 10 mm radius in the preview,
 // which draws in millimetres.
@@ -25,7 +26,7 @@ describe('lengths with their own unit in the designer (Chromium)', () => {
 		const page = await context.newPage();
 		await page.goto(`${baseUrl}/wheel`);
 		await expect.poll(() => page.getByTestId('wheel-preview').getAttribute('data-teeth')).toBe('35');
-		await page.getByRole('radio', { name: 'inch' }).check();
+		await page.locator('label:has(#units-in)').click();
 		await expect.poll(() => page.getByLabel(/^Bore \(in\)/).count()).toBe(1);
 
 		const bore = page.getByLabel(/^Bore/);
@@ -39,11 +40,11 @@ describe('lengths with their own unit in the designer (Chromium)', () => {
 		await depth.fill('1/8');
 		await expect.poll(() => new URL(page.url()).searchParams.get('depth')).toBe('1/8');
 		// To mm: 1/8 in = 3.175 mm, shown to 0.01 mm; the bore typed with its unit stays as typed.
-		await page.getByRole('radio', { name: 'mm' }).check();
+		await page.locator('label:has(#units-mm)').click();
 		await expect.poll(() => depth.inputValue()).toBe('3.18');
 		expect(await bore.inputValue()).toBe('20 mm');
 		// And back: the fraction as typed, not 3.18 mm in inches (0.1252).
-		await page.getByRole('radio', { name: 'inch' }).check();
+		await page.locator('label:has(#units-in)').click();
 		await expect.poll(() => depth.inputValue()).toBe('1/8');
 		expect(await bore.inputValue()).toBe('20 mm');
 		await expect.poll(() => circleRadii(page)).toContain(10);

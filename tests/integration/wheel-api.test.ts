@@ -133,7 +133,8 @@ describe('GET /api/v1/wheel (JSON)', () => {
 		const body = await res.json();
 		expect(body.errors).toEqual({
 			teeth: 'teeth: a whole number from 1 to 720',
-			od: 'od: 10 mm to 2000 mm',
+			// A length that is no number says so before its range (issue 16).
+			od: 'od: not a number; 10 mm to 2000 mm',
 			duty: 'duty: a number from 0.05 to 0.95'
 		});
 	});
