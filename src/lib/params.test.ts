@@ -9,6 +9,37 @@ describe('tool form helpers', () => {
 		expect(convertLengths({ od: '4' }, ['od'], 'in', 'mm')).toEqual({ od: '101.6' });
 	});
 
+	it('keeps what was typed through a switch and back: 3 mm stays 3, 1/8 in stays 1/8, 3 1/2 stays 3 1/2', () => {
+		const memory = {};
+		let form: Record<string, string> = { od: '3', depth: '1/8' };
+		// mm -> in: 3 / 25.4 = 0.11811… in, shown to 0.0001.
+		form = { ...form, ...convertLengths({ od: '3' }, ['od'], 'mm', 'in', memory) };
+		expect(form.od).toBe('0.1181');
+		form = { ...form, ...convertLengths(form, ['od'], 'in', 'mm', memory) };
+		expect(form.od).toBe('3');
+		// 1/8 in = 3.175 mm, shown to 0.01 as 3.18; back in inches it is 1/8 again, not 0.1252.
+		const inch = { depth: '1/8', bore: '3 1/2' };
+		const inMm = { ...inch, ...convertLengths(inch, ['depth', 'bore'], 'in', 'mm', memory) };
+		expect(inMm).toEqual({ depth: '3.18', bore: '88.9' });
+		expect({ ...inMm, ...convertLengths(inMm, ['depth', 'bore'], 'mm', 'in', memory) }).toEqual(inch);
+		// Switching back and forth again keeps both.
+		const again = { ...inch, ...convertLengths(inch, ['depth', 'bore'], 'in', 'mm', memory) };
+		expect({ ...again, ...convertLengths(again, ['depth', 'bore'], 'mm', 'in', memory) }).toEqual(inch);
+	});
+
+	it('converts a field edited after the switch from its new text, not the memory', () => {
+		const memory = {};
+		const inMm = convertLengths({ depth: '1/8' }, ['depth'], 'in', 'mm', memory);
+		expect(inMm).toEqual({ depth: '3.18' });
+		// 4 mm / 25.4 = 0.15748… in.
+		expect(convertLengths({ depth: '4' }, ['depth'], 'mm', 'in', memory)).toEqual({ depth: '0.1575' });
+	});
+
+	it('leaves a length with its own unit as typed: it means the same in either units', () => {
+		expect(convertLengths({ bore: '20 mm', od: '4' }, ['bore', 'od'], 'in', 'mm')).toEqual({ od: '101.6' });
+		expect(convertLengths({ bore: '3/4"' }, ['bore'], 'mm', 'in')).toEqual({});
+	});
+
 	it('lists the parameters that differ between two revisions, by name, treating empty as not given', () => {
 		const changes = diffParams({ teeth: '36', missing: '1', od: '100', label: '' }, { teeth: '60', missing: '2', od: '100', bore: '20' });
 		expect(changes).toEqual([

@@ -1,12 +1,15 @@
 // Helpers for the tools' forms, which keep their inputs as flat strings named like the public API.
-import { fromMm, parseLength, toMm, type Units } from './trade/units';
+import { fromMm, parseLengthWithUnit, type Units } from './trade/units';
 import type { HoleCircle } from './trade/wheel';
 
 export type Params = Record<string, string>;
 
 /** A length as it goes back into a text field: mm to 0.01, inches to 0.0001, no trailing zeros. */
 export function lengthText(mm: number, units: Units): string {
-	return String(Number(fromMm(mm, units).toFixed(units === 'in' ? 4 : 2)));
+	const scale = units === 'in' ? 1e4 : 1e2;
+	// Through 12 significant digits first, so a half typed exactly (1/8 in = 3.175 mm, held as
+	// 3.17499…) rounds up as written rather than down as stored.
+	return String(Math.round(Number((fromMm(mm, units) * scale).toPrecision(12))) / scale);
 }
 
 /** The balance-hole fields for holes given in mm: what "Add balance holes" writes into the design. */
@@ -22,16 +25,29 @@ export function balanceParams(h: HoleCircle, units: Units): Params {
 }
 
 /**
- * The same lengths in other units. Empty fields stay empty, and anything not yet a number is left
- * as typed, for its error to say so.
+ * What a form's unit switches remember per field: the text as it was before the last switch wrote
+ * over it, so switching back gives that text again (`1/8` rather than 0.1252 from 3.18 mm). Keep
+ * one per form, across its switches.
  */
-export function convertLengths(params: Params, fields: readonly string[], from: Units, to: Units): Params {
+export type SwitchMemory = Record<string, { typed: string; units: Units; written: string }>;
+
+/**
+ * The same lengths in other units: only the fields that change. Empty fields stay empty; a value
+ * with its own unit ("20 mm") means the same in either and stays as typed, and so does anything
+ * not yet a length, for its refusal to say why. A field still as the last switch wrote it goes back
+ * to what was typed before that switch; everything else is converted and rounded (`lengthText`).
+ */
+export function convertLengths(params: Params, fields: readonly string[], from: Units, to: Units, memory: SwitchMemory = {}): Params {
 	const out: Params = {};
+	if (from === to) return out;
 	for (const field of fields) {
 		const text = params[field];
 		if (text === undefined || text.trim() === '') continue;
-		const value = parseLength(text);
-		if (Number.isFinite(value)) out[field] = lengthText(toMm(value, from), to);
+		const read = parseLengthWithUnit(text, from);
+		if (!read.ok || read.unit !== null) continue;
+		const before = memory[field];
+		out[field] = before && before.units === to && before.written === text ? before.typed : lengthText(read.mm, to);
+		memory[field] = { typed: text, units: from, written: out[field] };
 	}
 	return out;
 }

@@ -135,9 +135,11 @@ describe('GET /api/v1/phasing', () => {
 		expect(await errorsOf({ toothAtTdc: '9', layout: 'v-twin', vAngle: '200' })).toEqual({ vAngle: 'vAngle: a number from 15 to 120°' });
 		expect(await errorsOf({ toothAtTdc: '9', layout: 'v-twin', vAngle: 'wide' })).toEqual({ vAngle: 'vAngle: a number from 15 to 120°' });
 		expect(await errorsOf({ toothAtTdc: '9', layout: 'v-twin' })).toEqual({
-			vAngle: 'vAngle: required with layout=v-twin, a number from 15 to 120°'
+			vAngle: 'vAngle: required with the V-twin layout, a number from 15 to 120°'
 		});
-		expect(await errorsOf({ toothAtTdc: '9', layout: 'twin-270', vAngle: '52' })).toEqual({ vAngle: 'vAngle: only with layout=v-twin' });
+		expect(await errorsOf({ toothAtTdc: '9', layout: 'twin-270', vAngle: '52' })).toEqual({
+			vAngle: 'vAngle: only with the V-twin layout'
+		});
 		expect(await errorsOf({ toothAtTdc: '9', layout: 'v-twin-52' })).toEqual({
 			layout: 'layout: one of single-4, single-2, twin-180, twin-270, twin-360, v-twin, twin-2-180, four-inline'
 		});
@@ -149,11 +151,11 @@ describe('GET /api/v1/phasing', () => {
 			keyAngle: 'keyAngle: a number from -720 to 720° before the TDC mark'
 		});
 		expect(await errorsOf({ input: 'angles', sensorAngle: '90', toothAtTdc: '9', keyFromSensor: '30', target: '90' })).toEqual({
-			toothAtTdc: 'toothAtTdc: not with input=angles (it is worked out from sensorAngle, keywayAngle and keyAngle)',
-			keyFromSensor: 'keyFromSensor: not with input=angles (it follows from sensorAngle and keyAngle)'
+			toothAtTdc: 'toothAtTdc: not when the sensor is given as measured angles (it is worked out from the sensor, keyway and key angles)',
+			keyFromSensor: 'keyFromSensor: not when the sensor is given as measured angles (it follows from the sensor and key angles)'
 		});
 		expect(await errorsOf({ toothAtTdc: '9', sensorAngle: '90' })).toEqual({
-			sensorAngle: 'sensorAngle: only with input=angles (or give toothAtTdc alone)'
+			sensorAngle: 'sensorAngle: only when the sensor is given as measured angles (or give “Tooth at the sensor at TDC” alone)'
 		});
 	});
 });
@@ -368,7 +370,7 @@ describe('GET /api/v1/build-sheet.pdf', () => {
 		expect(res.status).toBe(400);
 		expect((await res.json()).errors).toEqual({
 			toothAtTdc: 'toothAtTdc: a number from 0 to 720',
-			tdcB: 'tdcB: must differ from tdcA; a piston stop leaves one mark each side of TDC'
+			tdcB: 'tdcB: must differ from the first piston-stop mark; a piston stop leaves one mark each side of TDC'
 		});
 		const more = await fetch(
 			`${process.env.APP_URL}/api/v1/build-sheet.pdf?${new URLSearchParams({ buildName: 'x'.repeat(81), teeth: '36', depth: '5', input: 'angles', sensorAngle: '90', layout: 'v-twin', tapeDiameter: '2' })}`
@@ -377,7 +379,7 @@ describe('GET /api/v1/build-sheet.pdf', () => {
 		expect((await more.json()).errors).toEqual({
 			buildName: 'buildName: at most 80 characters',
 			od: 'od: required, 10 mm to 2000 mm',
-			vAngle: 'vAngle: required with layout=v-twin, a number from 15 to 120°',
+			vAngle: 'vAngle: required with the V-twin layout, a number from 15 to 120°',
 			tapeDiameter: 'tapeDiameter: the timing hub diameter, 10 mm to 2000 mm'
 		});
 	});

@@ -99,7 +99,7 @@ describe('GET /api/v1/tdc', () => {
 	it('refuses what cannot be a piston-stop pair', async () => {
 		const same = await get('/api/v1/tdc', { a: '12', b: '12' });
 		expect(same.status).toBe(400);
-		expect((await same.json()).errors.b).toMatch(/must differ from a/);
+		expect((await same.json()).errors.b).toMatch(/must differ from the first mark/);
 		const missing = await get('/api/v1/tdc', { a: '12' });
 		expect((await missing.json()).errors.b).toMatch(/^b: a reading from −180 to 180 \(negative = BTDC\)/);
 		const long = await get('/api/v1/tdc', { distance: '500', diameter: '150' });

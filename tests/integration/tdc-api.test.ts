@@ -124,7 +124,7 @@ describe('GET /api/v1/tdc with readings and their sides', () => {
 			[{ a: '10 BTDC', b: '19 ATDC', scale: 'hex' }, 'scale', /^scale: one of signed, full, quadrant/],
 			[{ a: '10 BTDC', b: '19 ATDC', rotation: 'up' }, 'rotation', /^rotation: one of cw, ccw/],
 			[{ a: '10 BTDC', b: '19 ATDC', diameter: '2' }, 'diameter', /^diameter: /],
-			[{ a: '10 BTDC', b: '10 BTDC' }, 'b', /must differ from a/],
+			[{ a: '10 BTDC', b: '10 BTDC' }, 'b', /must differ from the first mark/],
 			[{ a: '1e400', b: '19' }, 'a', /^a: /]
 		];
 		for (const [params, field, message] of cases) {

@@ -110,7 +110,8 @@ describe('GET /api/v1/wheel (JSON)', () => {
 		const body = await res.json();
 		expect(body.errors).toEqual({
 			teeth: 'teeth: a whole number from 1 to 720',
-			od: 'od: 10 mm to 2000 mm',
+			// A length that is no number says so before its range (issue 16).
+			od: 'od: not a number; 10 mm to 2000 mm',
 			duty: 'duty: a number from 0.05 to 0.95'
 		});
 	});
@@ -179,7 +180,11 @@ describe('the designer page and the API refuse alike', () => {
 			'needed for a keyway (more than 0)'
 		],
 		// 36 positions with 36 missing leave no tooth: at most N − 1 = 35.
-		['every tooth missing', { ...base, missing: '36' }, 'missing', 'at most 35']
+		['every tooth missing', { ...base, missing: '36' }, 'missing', 'at most 35'],
+		['a bore with its unit before the number', { ...base, bore: 'mm 20', units: 'mm' }, 'bore', 'units go after the number'],
+		['a bore in a unit nobody cuts in', { ...base, bore: '20 furlongs', units: 'mm' }, 'bore', 'unknown unit: use mm or in'],
+		// 100 mm OD, 5 mm teeth, 1 mm to the roots: a bore up to 2 × (50 − 5 − 1) = 88 mm (arithmetic).
+		['a bore too large for the wheel, which is the bore’s error', { ...base, bore: '98', units: 'mm' }, 'bore', 'at most 88.00 mm']
 	])('%s', async (_, params, field, expected) => {
 		const page = checkWheel(params);
 		expect(page.ok).toBe(false);
@@ -291,5 +296,48 @@ describe('SVG and PDF', () => {
 		expect(text).toContain('Print at 100% / actual size');
 		expect(text).toContain('100 mm');
 		expect(text).toContain('36-1');
+	});
+});
+
+describe('lengths with their own unit', () => {
+	// A metric shaft on an inch wheel: "20 mm" is 20 mm whatever the form's units. The DXF is in
+	// inches ($INSUNITS 1); ezdxf reads the bore circle back and 1 in = 25.4 mm exactly (1959).
+	const boreRead = `
+import json, sys, ezdxf
+doc = ezdxf.readfile(sys.argv[1])
+circles = [e for e in doc.modelspace() if e.dxf.layer == "CUT" and e.dxftype() == "CIRCLE" and abs(e.dxf.center.x) < 1e-9 and abs(e.dxf.center.y) < 1e-9]
+print(json.dumps({"insunits": doc.header["$INSUNITS"], "radii": [c.dxf.radius for c in circles]}))
+`;
+	const inchWheel = { teeth: '36', missing: '1', od: '4', depth: '3/16', units: 'in' };
+
+	it('GET /api/v1/wheel with bore=20 mm on an inch wheel answers a wheel with a 20 mm bore', async () => {
+		const res = await get('/api/v1/wheel', { ...inchWheel, bore: '20 mm' });
+		expect(res.status).toBe(200);
+		expect((await res.json()).units).toBe('in');
+		const dxf = await get('/api/v1/wheel.dxf', { ...inchWheel, bore: '20 mm' });
+		expect(dxf.status).toBe(200);
+		const file = join(dir, 'bore-20mm-on-inch.dxf');
+		writeFileSync(file, Buffer.from(await dxf.arrayBuffer()));
+		const read = JSON.parse(execFileSync('/usr/bin/python3', ['-c', boreRead, file], { encoding: 'utf8' })) as {
+			insunits: number;
+			radii: number[];
+		};
+		expect(read.insunits).toBe(1);
+		expect(read.radii).toHaveLength(1);
+		expect(read.radii[0]! * 25.4).toBeCloseTo(10, 3);
+		expect(Math.abs(read.radii[0]! * 25.4 - 10)).toBeLessThan(0.001);
+	});
+
+	it('takes 3/4" and 19.05mm alike, and says why it refuses', async () => {
+		for (const bore of ['3/4"', '3/4 in', '19.05mm', '0.75']) {
+			const res = await get('/api/v1/wheel.dxf', { ...inchWheel, bore });
+			expect(res.status, bore).toBe(200);
+		}
+		const res = await get('/api/v1/wheel', { ...inchWheel, bore: 'abc' });
+		expect(res.status).toBe(400);
+		const body = (await res.json()) as { errors: Record<string, string>; refusals: { field: string; message: string }[] };
+		// 1900 mm = 74.803 in, the registry's top of the bore's range.
+		expect(body.refusals).toEqual([{ field: 'bore', message: 'not a number; 0 in to 74.803 in' }]);
+		expect(body.errors.bore).toBe('bore: not a number; 0 in to 74.803 in');
 	});
 });

@@ -3,7 +3,7 @@ import { patternRefusals } from '$lib/trade/pattern';
 import { keyFromSensorFrom, toothAtTdcFrom, type MeasuredAngles, type PhasingInput } from '$lib/trade/phasing';
 import { summarize, type WheelSummary } from '$lib/trade/summary';
 import type { TdcResult } from '$lib/trade/tdc';
-import { parseLength, toMm, type Units } from '$lib/trade/units';
+import { parseLengthWithUnit, type Units } from '$lib/trade/units';
 import { common } from './common-params';
 import { firstPerField, refusal, type Checked, type Refusal } from './refusal';
 import { allows, defineRegistry, givenParams, type ParamDef, type Params } from './registry';
@@ -236,6 +236,10 @@ interface PhasingValues {
  * The phasing check, the same on the page, in `GET /api/v1/phasing`, for a build's engine profile
  * and in the build sheet: the parsed input, or the first refusal per field in the order found.
  */
+// Refusals name other fields by their labels, as the page shows them.
+const quoted = (name: string) => `“${phasingParams.label(name)}”`;
+const byAnglesWords = 'when the sensor is given as measured angles';
+
 export function checkPhasing(params: Partial<Record<string, string>>): Checked<ParsedPhasing> {
 	const given = givenParams(params);
 	const ranges: Refusal[] = [];
@@ -257,15 +261,14 @@ export function checkPhasing(params: Partial<Record<string, string>>): Checked<P
 	let measured: MeasuredAngles | null = null;
 	let toothAtTdc = v.toothAtTdc ?? 0;
 	if (v.input === 'angles') {
-		if (v.toothAtTdc !== undefined)
-			refuse('toothAtTdc', 'not with input=angles (it is worked out from sensorAngle, keywayAngle and keyAngle)');
-		if (v.keyFromSensor !== undefined) refuse('keyFromSensor', 'not with input=angles (it follows from sensorAngle and keyAngle)');
+		if (v.toothAtTdc !== undefined) refuse('toothAtTdc', `not ${byAnglesWords} (it is worked out from the sensor, keyway and key angles)`);
+		if (v.keyFromSensor !== undefined) refuse('keyFromSensor', `not ${byAnglesWords} (it follows from the sensor and key angles)`);
 		measured = { sensorFromTdcDeg: v.sensorAngle!, keywayDeg: v.keywayAngle, keyFromTdcDeg: v.keyAngle, mount: v.mount };
 		toothAtTdc = toothAtTdcFrom({ ...measured, teeth: v.teeth });
 	} else {
 		// As given, not as defaulted: keyAngle means 0 when empty, but is refused only when given.
 		for (const field of ['sensorAngle', 'keyAngle'] as const)
-			if (field in given) refuse(field, 'only with input=angles (or give toothAtTdc alone)');
+			if (field in given) refuse(field, `only ${byAnglesWords} (or give ${quoted('toothAtTdc')} alone)`);
 		if (toothAtTdc >= v.teeth) refuse('toothAtTdc', `0 up to ${v.teeth} (tooth 0 is the first after the gap)`);
 	}
 
@@ -274,12 +277,12 @@ export function checkPhasing(params: Partial<Record<string, string>>): Checked<P
 	const layoutId = legacyV !== null ? 'v-twin' : v.layout;
 	let preset: Layout | undefined;
 	if (layoutId === 'v-twin') {
-		if (legacyV !== null && v.vAngle !== undefined) refuse('vAngle', `only with layout=v-twin (${v.layout} says its V angle)`);
+		if (legacyV !== null && v.vAngle !== undefined) refuse('vAngle', `not with the ${legacyV}° V-twin layout, which gives its own V angle`);
 		const vAngle = legacyV ?? v.vAngle;
-		if (vAngle === undefined) refuse('vAngle', `required with layout=v-twin, ${allows(phasingParams.get('vAngle')!, 'mm')}`);
+		if (vAngle === undefined) refuse('vAngle', `required with the V-twin layout, ${allows(phasingParams.get('vAngle')!, 'mm')}`);
 		else preset = vTwin(vAngle);
 	} else {
-		if (v.vAngle !== undefined) refuse('vAngle', 'only with layout=v-twin');
+		if (v.vAngle !== undefined) refuse('vAngle', 'only with the V-twin layout');
 		preset = layouts.find((l) => l.id === (layoutId ?? (v.intervals ? undefined : 'single-4')));
 	}
 	const stroke: Stroke = v.stroke ? (Number(v.stroke) as Stroke) : (preset?.stroke ?? 4);
@@ -298,16 +301,16 @@ export function checkPhasing(params: Partial<Record<string, string>>): Checked<P
 	}
 	if (v.cylinders !== undefined && v.cylinders !== intervals.length) refuse('cylinders', `${intervals.length}, one per firing interval`);
 	if (v.windowTo > v.windowFrom)
-		refuse('windowTo', 'no more than windowFrom (the window runs from windowFrom down to windowTo degrees BTDC)');
+		refuse('windowTo', `no more than ${quoted('windowFrom')} (the window runs from it down to this, in degrees BTDC)`);
 
 	let clocking: ParsedPhasing['clocking'] = null;
 	if (measured) {
 		// The angles say where the key sits: the target alone is enough.
 		if (v.target !== undefined) clocking = { targetDeg: v.target, keyFromSensorDeg: keyFromSensorFrom(measured) };
 	} else if (v.target === undefined && v.keyFromSensor !== undefined) {
-		refuse('target', 'give it with keyFromSensor, to get a clocking suggestion');
+		refuse('target', `give it with ${quoted('keyFromSensor')}, to get a clocking suggestion`);
 	} else if (v.target !== undefined && v.keyFromSensor === undefined) {
-		refuse('keyFromSensor', 'give it with target, to get a clocking suggestion');
+		refuse('keyFromSensor', `give it with ${quoted('target')}, to get a clocking suggestion`);
 	} else if (v.target !== undefined && v.keyFromSensor !== undefined) {
 		clocking = { targetDeg: v.target, keyFromSensorDeg: v.keyFromSensor };
 	}
@@ -438,9 +441,12 @@ export function checkBuildSheet(params: Partial<Record<string, string>>): Checke
 	if (tdcA !== undefined || tdcB !== undefined) {
 		const marks = checkTdc({ a: tdcA, b: tdcB });
 		if (!marks.ok) {
-			// The TDC check names its readings a and b: here they are tdcA and tdcB.
+			// The TDC check names its readings a and b: here they are tdcA and tdcB, labelled as such.
+			const first = buildSheetParams.label('tdcA').toLowerCase();
 			for (const r of marks.refusals)
-				found.push(refusal(`tdc${r.field.toUpperCase()}`, r.message.replace(/^must differ from a\b/, 'must differ from tdcA')));
+				found.push(
+					refusal(`tdc${r.field.toUpperCase()}`, r.message.replace(/^must differ from the first mark\b/, `must differ from the ${first}`))
+				);
 		} else if (marks.value.kind === 'rim') found.push(refusal('tdcA', 'a piston-stop reading in degrees'));
 		else tdc = { a: marks.value.marks.a.atdcDeg, b: marks.value.marks.b.atdcDeg, result: marks.value.result };
 	}
@@ -448,8 +454,10 @@ export function checkBuildSheet(params: Partial<Record<string, string>>): Checke
 	if (tapeDiameter !== undefined) {
 		const units: Units = wheel.ok ? wheel.value.units : given.units === 'in' ? 'in' : 'mm';
 		const def = buildSheetParams.get('tapeDiameter')!;
-		tapeHubMm = toMm(parseLength(tapeDiameter), units);
-		if (!(tapeHubMm >= 10 && tapeHubMm <= 2000)) found.push(refusal('tapeDiameter', `the timing hub diameter, ${allows(def, units)}`));
+		const read = parseLengthWithUnit(tapeDiameter, units);
+		tapeHubMm = read.ok ? read.mm : NaN;
+		if (!read.ok) found.push(refusal('tapeDiameter', `${read.why}; the timing hub diameter, ${allows(def, units)}`));
+		else if (!(tapeHubMm >= 10 && tapeHubMm <= 2000)) found.push(refusal('tapeDiameter', `the timing hub diameter, ${allows(def, units)}`));
 	}
 	// The wheel's own cross-checks (a tooth deeper than the web allows …), from the trade library.
 	const summary = wheel.ok ? summarize(wheel.value.spec, wheel.value.units, wheel.value.running) : null;

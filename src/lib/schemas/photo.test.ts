@@ -24,6 +24,18 @@ describe('the photo reading’s check', () => {
 		expect(none.ok && none.value).toEqual({ ...taps, units: 'mm' });
 	});
 
+	it('reads a diameter with its own unit in either units, and takes that unit as the one chosen', () => {
+		// 4 in = 101.6 mm typed on a mm reading: the designer opens in inches.
+		const inch = checkPhotoTaps({ ...taps, od: '4 in', units: 'mm' }, photo);
+		expect(inch.ok && inch.value.units).toBe('in');
+		expect(inch.ok && inch.value.odMm).toBeCloseTo(101.6, 9);
+		const quoted = checkPhotoTaps({ ...taps, od: '3 1/2"' }, photo);
+		expect(quoted.ok && quoted.value.odMm).toBeCloseTo(88.9, 9);
+		const metric = checkPhotoTaps({ ...taps, od: '100mm', units: 'in' }, photo);
+		expect(metric.ok && metric.value).toMatchObject({ units: 'mm', odMm: 100 });
+		expect(refusals({ ...taps, od: 'mm 100' })).toEqual([{ field: 'od', message: 'units go after the number; 10 mm to 2000 mm' }]);
+	});
+
 	it('refuses a diameter out of range in the caller’s units, with the field apart from the message', () => {
 		expect(refusals({ ...taps, od: '5' })).toEqual([{ field: 'od', message: '10 mm to 2000 mm' }]);
 		// 1/4 in = 6.35 mm, under 10 mm; 10 mm = 0.394 in, 2000 mm = 78.74 in.

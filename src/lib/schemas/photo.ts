@@ -1,4 +1,4 @@
-import { fromMm, type Units } from '$lib/trade/units';
+import { fromMm, parseLengthWithUnit, type Units } from '$lib/trade/units';
 import { common } from './common-params';
 import { allows, defineRegistry } from './registry';
 import { firstPerField, refusal, type Checked, type Refusal } from './refusal';
@@ -98,9 +98,12 @@ export function checkPhotoTaps(input: Readonly<Record<string, unknown>>, photo?:
 	}
 	if (found.length || !read.ok || !centreOk || !tipsOk) return { ok: false, refusals: firstPerField(found) };
 	const odMm = (read.value.od ?? read.value.odMm) as number | undefined;
+	// A diameter typed with its own unit ("4 in" on a mm form) is the unit chosen: the designer opens in it.
+	const odUnit = scalars.od ? parseLengthWithUnit(scalars.od, units) : null;
+	const chosen: Units = odUnit?.ok && odUnit.unit !== null ? (odUnit.unit === 'in' ? 'in' : 'mm') : units;
 	// Only x and y: whatever else came with a point is not stored with the reading.
 	const pt = (p: Pt): Pt => ({ x: p.x, y: p.y });
-	return { ok: true, value: { centre: pt(centre), tips: tips.map(pt), units, ...(odMm === undefined ? {} : { odMm }) } };
+	return { ok: true, value: { centre: pt(centre), tips: tips.map(pt), units: chosen, ...(odMm === undefined ? {} : { odMm }) } };
 }
 
 /** A diameter in mm as the user would type it back in their units: mm to 0.01, inches to 0.0001. */

@@ -59,3 +59,10 @@ export const refusalsFromMap = (errors: Record<string, string>): Refusal[] =>
 /** A tool's field → message map as refusals of a body's nested object (`params.teeth`), messages without the field's name. */
 export const refusalsUnder = (prefix: string, errors: Record<string, string>): Refusal[] =>
 	Object.entries(errors).map(([field, message]) => ({ field: `${prefix}.${field}`, message: refusal(field, message).message }));
+
+/**
+ * A form action's field → message map (messages may start with their field's name, as the action
+ * answers them) as a page shows it beside its fields: without the name, which the label says.
+ */
+export const shownErrors = (errors: Record<string, string> | null | undefined): Record<string, string> =>
+	byField(refusalsFromMap(errors ?? {}));

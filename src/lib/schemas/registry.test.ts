@@ -37,6 +37,23 @@ describe('a parameter registry', () => {
 		const read = tool.read({ teeth: '36', od: '100' }, 'in');
 		expect(!read.ok && read.refusals[0]).toEqual({ field: 'od', message: '0.394 in to 78.74 in' });
 	});
+	it('reads a length with its own unit whatever the form’s units (1 in = 25.4 mm exactly)', () => {
+		const metricOnInch = tool.read({ teeth: '36', od: '20 mm' }, 'in');
+		expect(metricOnInch.ok && (metricOnInch.value.od as number)).toBeCloseTo(20, 9);
+		const inchOnMetric = tool.read({ teeth: '36', od: '3/4"' }, 'mm');
+		expect(inchOnMetric.ok && (inchOnMetric.value.od as number)).toBeCloseTo(19.05, 9);
+	});
+	it('says why a length cannot be read, then what the field takes', () => {
+		const why = (od: string) => {
+			const read = tool.read({ teeth: '36', od }, 'mm');
+			return !read.ok && read.refusals[0];
+		};
+		expect(why('mm 20')).toEqual({ field: 'od', message: 'units go after the number; 10 mm to 2000 mm' });
+		expect(why('abc')).toEqual({ field: 'od', message: 'not a number; 10 mm to 2000 mm' });
+		expect(why('20 furlongs')).toEqual({ field: 'od', message: 'unknown unit: use mm or in; 10 mm to 2000 mm' });
+		// A number with its unit that is out of range is refused with the range alone.
+		expect(why('1 mm')).toEqual({ field: 'od', message: '10 mm to 2000 mm' });
+	});
 	it('gives defaults per unit system and one label per name', () => {
 		expect(tool.defaults('in')).toEqual({ od: '4', rotation: 'cw', keyway: 'none' });
 		expect(tool.label('od')).toBe('Outside diameter');

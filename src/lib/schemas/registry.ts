@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { formatLength, parseLength, toMm, type Units } from '$lib/trade/units';
+import { formatLength, parseLengthWithUnit, type Units } from '$lib/trade/units';
 import { firstPerField, refusal, refusalsOf, type Checked, type Refusal } from './refusal';
 import { unprintable } from './text';
 
@@ -66,14 +66,20 @@ export function valueSchema(def: ParamDef, units: Units): z.ZodType {
 	const message = allows(def, units);
 	switch (def.kind) {
 		case 'length':
+			// A length may carry its own unit ("20 mm" on an inch form); text that cannot be read
+			// says why before what the field takes.
 			return z.string({ error: message }).transform((text, ctx) => {
-				const mm = toMm(parseLength(text), units);
+				const read = parseLengthWithUnit(text, units);
+				if (!read.ok) {
+					ctx.addIssue({ code: 'custom', message: `${read.why}; ${message}` });
+					return z.NEVER;
+				}
 				// A hair of tolerance, so a range end typed in the other unit system still passes.
-				if (!Number.isFinite(mm) || mm < def.minMm - 1e-9 || mm > def.maxMm + 1e-9) {
+				if (!Number.isFinite(read.mm) || read.mm < def.minMm - 1e-9 || read.mm > def.maxMm + 1e-9) {
 					ctx.addIssue({ code: 'custom', message });
 					return z.NEVER;
 				}
-				return mm;
+				return read.mm;
 			});
 		case 'angle':
 		case 'number':

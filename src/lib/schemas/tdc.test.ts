@@ -23,7 +23,7 @@ describe('checkTdc', () => {
 	it('keeps findTdc’s older answer for its callers: a map of `field: message`', () => {
 		expect(findTdc({ a: '12', b: '12' })).toEqual({
 			ok: false,
-			errors: { b: 'b: must differ from a; a piston stop leaves one mark each side of TDC' }
+			errors: { b: 'b: must differ from the first mark; a piston stop leaves one mark each side of TDC' }
 		});
 		expect(findTdc({ distance: '30', diameter: '100' })).toMatchObject({ ok: 'rim', value: { distanceMm: 30, diameterMm: 100 } });
 	});

@@ -233,6 +233,20 @@ describe('checkWheel', () => {
 		expect(empty.ok === false && empty.refusals.every((r) => !r.message.startsWith(`${r.field}:`))).toBe(true);
 	});
 
+	it('names the field the user changes: a bore too large, a looked-up key wider than the bore', () => {
+		const bore = checkWheel({ ...base, bore: '98' });
+		expect(bore.ok === false && bore.refusals.map((r) => r.field)).toEqual(['bore']);
+		// DIN 6885-1: a shaft over 58 up to 65 mm takes an 18 mm wide key (the standard's table); the key's width is no field.
+		const key = checkWheel({ ...base, bore: '10', keyway: 'din6885', shaft: '60' });
+		expect(key.ok === false && key.refusals[0]).toMatchObject({
+			field: 'bore',
+			message: expect.stringMatching(/^more than the key’s width \(18\.00 mm/)
+		});
+		// A metric bore typed on an inch wheel is read in mm: 20 mm, whatever the form's units.
+		const metric = checkWheel({ ...base, units: 'in', od: '4', depth: '3/16', bore: '20 mm' });
+		expect(metric.ok && metric.value.spec.boreMm).toBeCloseTo(20, 9);
+	});
+
 	it('refuses units it does not know before reading any length', () => {
 		expect(checkWheel({ ...base, od: 'big', units: 'yards' })).toEqual({
 			ok: false,

@@ -149,7 +149,7 @@ export function readWheel(params: WheelParams): Checked<ParsedWheel> {
 			if (v.shaft === undefined) no('shaft', 'the shaft diameter, to look up the DIN 6885-1 key');
 			else if (!keyway) {
 				const [lo, hi] = [formatLength(dinShaftRange.min, units), formatLength(dinShaftRange.max, units)];
-				no('shaft', `over ${lo} to ${hi} for DIN 6885-1 keys (the standard's table ends there); outside it, use keyway=custom`);
+				no('shaft', `over ${lo} to ${hi} for DIN 6885-1 keys (the standard's table ends there); outside it, choose a custom keyway`);
 			}
 			break;
 		case 'b17.1': {
@@ -159,7 +159,7 @@ export function readWheel(params: WheelParams): Checked<ParsedWheel> {
 			else if (!keyway)
 				no(
 					'shaft',
-					`over ${lo} to ${hi} for ANSI B17.1 square keys (the standard's square-key sizes end there); outside it, use keyway=custom`
+					`over ${lo} to ${hi} for ANSI B17.1 square keys (the standard's square-key sizes end there); outside it, choose a custom keyway`
 				);
 			break;
 		}
@@ -225,6 +225,16 @@ export function readWheel(params: WheelParams): Checked<ParsedWheel> {
 }
 
 /**
+ * A trade refusal on the field the user fills in: a looked-up key's width is no field of theirs,
+ * so a key as wide as the bore is the bore's refusal there.
+ */
+function userField(r: Refusal, { spec, units }: ParsedWheel): Refusal {
+	if (r.field === 'keyWidth' && spec.keyway && spec.keyway.source !== 'custom keyway')
+		return refusal('bore', `more than the key’s width (${formatLength(spec.keyway.widthMm, units)}, ${spec.keyway.source})`);
+	return refusal(r.field, r.message);
+}
+
+/**
  * The wheel's one check, for the page and every route: the parameters read, then the wheel the
  * trade library would refuse (a tooth deeper than the web allows …). The first reason per field.
  */
@@ -233,7 +243,7 @@ export function checkWheel(params: WheelParams): Checked<ValidWheel> {
 	if (!parsed.ok) return parsed;
 	const { spec, units, running } = parsed.value;
 	const result = summarize(spec, units, running);
-	if (!result.ok) return { ok: false, refusals: firstPerField(result.refusals.map((r) => refusal(r.field, r.message))) };
+	if (!result.ok) return { ok: false, refusals: firstPerField(result.refusals.map((r) => userField(r, parsed.value))) };
 	const known = Object.fromEntries(
 		Object.entries(params).filter((e): e is [string, string] => wheelParams.get(e[0]) !== undefined && e[1] !== undefined && e[1] !== '')
 	);

@@ -21,6 +21,20 @@ describe('refusals name the field and the range that would work', () => {
 		});
 	});
 
+	it('a bore too large for the wheel is the bore’s refusal, not the tooth depth’s', () => {
+		// 100 mm OD, 5 mm teeth, 1 mm kept to the roots: the bore may reach 2 × (50 − 5 − 1) = 88 mm (arithmetic).
+		const [r] = refusals(exampleSpec({ boreMm: 98 }), 'mm');
+		expect(r).toEqual({
+			field: 'bore',
+			message: 'bore: at most 88.00 mm for 5.00 mm deep teeth, so the tooth roots keep 1.00 mm from it; or make the teeth shallower'
+		});
+		// A bore wider than the wheel itself, on an inch wheel: 88 mm / 25.4 = 3.465 in.
+		expect(refusals(exampleSpec({ boreMm: 120 }), 'in')[0]!.message).toMatch(/^bore: at most 3\.465 in /);
+		// With a keyway 6 wide and 2.8 deep the bore's corner counts: (b/2 + 2.8)² + 3² < 44² gives b < 82.195 (arithmetic).
+		const keyed = refusals(exampleSpec({ boreMm: 90, keyway: { widthMm: 6, depthMm: 2.8, source: 'custom keyway' } }), 'mm');
+		expect(keyed[0]).toMatchObject({ field: 'bore', message: expect.stringMatching(/^bore: at most 82\.20 mm with this keyway/) });
+	});
+
 	it("ranges come in the caller's units", () => {
 		const [r] = refusals(exampleSpec({ depthMm: 42 }), 'in');
 		expect(r!.message).toContain('1.535 in');

@@ -73,14 +73,13 @@ function holeRefusals(spec: WheelSpec, holes: HoleCircle, prefix: 'bolt' | 'bala
 	}
 	const label = placeLabel(spec);
 	if (label && holeCenters(spec, holes).some((c) => !clearOfLabel(c, holes.holeMm, label))) {
-		const angle = prefix === 'bolt' ? 'boltAngle' : 'balanceAngle';
 		out.push({
 			field,
-			message: `${field}: the ${prefix} holes come closer than ${clear} to the etched label; move them (${field}, ${angle}) or shorten the label`
+			message: `${field}: the ${prefix} holes come closer than ${clear} to the etched label; move them (another pitch circle or angle) or shorten the label`
 		});
 		out.push({
 			field: 'label',
-			message: `label: ${prefix} holes come closer than ${clear} to it; shorten it, or move the holes (${field}, ${angle})`
+			message: `label: ${prefix} holes come closer than ${clear} to it; shorten it, or move the holes (their pitch circle or angle)`
 		});
 	}
 	return out;
@@ -108,7 +107,21 @@ export function refusals(spec: WheelSpec, units: Units): Refusal[] {
 	if (spec.keyway && spec.keyway.widthMm >= spec.boreMm) {
 		out.push({ field: 'keyWidth', message: `keyWidth: less than the bore (${formatLength(spec.boreMm, units)})` });
 	}
-	const maxDepth = R - inner - clearanceMm - Math.max(spec.tipRadiusMm, 0);
+	const tip = Math.max(spec.tipRadiusMm, 0);
+	const maxDepth = R - inner - clearanceMm - tip;
+	// Teeth and bore compete for the same web. When the bore alone already reaches the roots and the
+	// teeth are ordinary (no deeper than half the radius), the bore is what to change; a deep tooth,
+	// or a keyway's corners reaching past a bore that fits, stay the depth's.
+	const boreReaches = spec.boreMm / 2 > R - clearanceMm - tip - spec.depthMm;
+	if (spec.depthMm >= maxDepth && boreReaches && spec.depthMm <= (R - tip) / 2) {
+		const boreFits = (b: number) => spec.depthMm < R - innerRadius({ ...spec, boreMm: b }) - clearanceMm - tip;
+		const most = boreFits(0) ? largest(boreFits, spec.odMm) : 0;
+		out.push({
+			field: 'bore',
+			message: `bore: at most ${formatLength(most, units)}${spec.keyway ? ' with this keyway' : ''} for ${formatLength(spec.depthMm, units)} deep teeth, so the tooth roots keep ${formatLength(clearanceMm, units)} from it; or make the teeth shallower`
+		});
+		return out;
+	}
 	if (spec.depthMm >= maxDepth) {
 		out.push({
 			field: 'depth',
@@ -155,7 +168,7 @@ export function refusals(spec: WheelSpec, units: Units): Refusal[] {
 		if (balance.some((p) => bolts.some((q) => !clearOfHole(p, h, q, b)))) {
 			out.push({
 				field: 'balancePcd',
-				message: `balancePcd: the balance holes come closer than ${formatLength(clearanceMm, units)} to the bolt holes; put them on another pitch circle or turn them with balanceAngle`
+				message: `balancePcd: the balance holes come closer than ${formatLength(clearanceMm, units)} to the bolt holes; put them on another pitch circle or turn them to another angle`
 			});
 		}
 	}

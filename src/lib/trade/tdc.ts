@@ -109,7 +109,7 @@ export type TdcAnswer = { ok: true; result: TdcResult } | { ok: false; field: st
 export function tdcFromReadings(a: Reading, b: Reading, arc: Arc = 'shorter'): TdcAnswer {
 	let delta = signed(b.atdcDeg - a.atdcDeg);
 	if (Math.abs(delta) < 1e-9)
-		return { ok: false, field: 'b', message: 'b: must differ from a; a piston stop leaves one mark each side of TDC' };
+		return { ok: false, field: 'b', message: 'b: must differ from the first mark; a piston stop leaves one mark each side of TDC' };
 	// Two bare numbers on one side of 0 are what a 0–90–0 wheel's readings look like typed as plain
 	// numbers ("10" and "19"); taken as written they give a TDC between them that is far from true.
 	if (arc === 'shorter' && !a.sided && !b.sided && Math.sign(a.atdcDeg) === Math.sign(b.atdcDeg)) {

@@ -1,4 +1,4 @@
-import { convertLengths } from '$lib/params';
+import { convertLengths, type SwitchMemory } from '$lib/params';
 import { checkBuildSheet, checkPhasing, phasingParams, sensorDefaults, type ParsedPhasing } from '$lib/schemas/phasing';
 import { byField, refusal, type Checked, type Refusal } from '$lib/schemas/refusal';
 import type { Params } from '$lib/schemas/registry';
@@ -109,11 +109,14 @@ export class PhasingPage {
 	// ---- Build sheet ----
 	readonly units: Units = $derived(this.params.units === 'in' ? 'in' : 'mm');
 
+	/** What the unit switches wrote over, so switching back gives the lengths as typed (`1/8`). */
+	#switchMemory: SwitchMemory = {};
+
 	setUnits = (next: string) => {
 		const from = this.units;
 		const to: Units = next === 'in' ? 'in' : 'mm';
 		if (to === from) return;
-		Object.assign(this.params, convertLengths(this.params, sheetLengths, from, to));
+		Object.assign(this.params, convertLengths(this.params, sheetLengths, from, to, this.#switchMemory));
 		this.params.units = to;
 	};
 

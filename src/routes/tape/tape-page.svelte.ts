@@ -1,4 +1,4 @@
-import { convertLengths } from '$lib/params';
+import { convertLengths, type SwitchMemory } from '$lib/params';
 import { byField } from '$lib/schemas/refusal';
 import { checkTape, tapeRegistry, type CheckedTape } from '$lib/schemas/tape';
 import { checkCurvePoint, checkTimingCard } from '$lib/schemas/timing-card';
@@ -36,10 +36,13 @@ export class TapePage {
 
 	units: Units = $derived(this.params.units === 'in' ? 'in' : 'mm');
 
+	/** What the unit switches wrote over, so switching back gives the lengths as typed (`1/8`). */
+	#switchMemory: SwitchMemory = {};
+
 	setUnits(next: string) {
 		const to: Units = next === 'in' ? 'in' : 'mm';
 		if (to === this.units) return;
-		Object.assign(this.params, convertLengths(this.params, lengthFields, this.units, to));
+		Object.assign(this.params, convertLengths(this.params, lengthFields, this.units, to, this.#switchMemory));
 		this.params.units = to;
 	}
 

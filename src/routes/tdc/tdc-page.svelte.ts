@@ -1,4 +1,4 @@
-import { convertLengths } from '$lib/params';
+import { convertLengths, type SwitchMemory } from '$lib/params';
 import { byField } from '$lib/schemas/refusal';
 import { checkTdc, tdcRegistry } from '$lib/schemas/tdc';
 import type { Rotation } from '$lib/trade/hub';
@@ -44,10 +44,13 @@ export class TdcPage {
 	scale: Scale = $derived(this.params.scale === 'full' ? 'full' : this.params.scale === 'quadrant' ? 'quadrant' : 'signed');
 	rotation: Rotation = $derived(this.params.rotation === 'ccw' ? 'ccw' : 'cw');
 
+	/** What the unit switches wrote over, so switching back gives the lengths as typed (`1/8`). */
+	#switchMemory: SwitchMemory = {};
+
 	setUnits(next: string) {
 		const to: Units = next === 'in' ? 'in' : 'mm';
 		if (to === this.units) return;
-		Object.assign(this.params, convertLengths(this.params, lengthFields, this.units, to));
+		Object.assign(this.params, convertLengths(this.params, lengthFields, this.units, to, this.#switchMemory));
 		this.params.units = to;
 	}
 

@@ -2,9 +2,10 @@
 // whatever size the photo is shown at), the known diameter, and the answer. The page checks with
 // the API's own check (`checkPhotoTaps`) before it sends, so both refuse in the same words.
 import { callApi } from '$lib/api-client';
+import { convertLengths, type SwitchMemory } from '$lib/params';
 import { checkPhotoTaps, diameterText, maxTips, photoParams, type Pt } from '$lib/schemas/photo';
 import { byField, type Refusal } from '$lib/schemas/refusal';
-import { parseLength, toMm, type Units } from '$lib/trade/units';
+import type { Units } from '$lib/trade/units';
 
 export interface ReadingAnswer {
 	teeth: number;
@@ -126,10 +127,16 @@ export class PhotoReading {
 		this.forget('od');
 	}
 
-	/** Another unit system: a diameter already typed is turned into it, so it still says the same size. */
+	/** What the unit switches wrote over the diameter, so switching back gives it as typed (`3 1/2`). */
+	#switchMemory: SwitchMemory = {};
+
+	/**
+	 * Another unit system: a diameter already typed is turned into it, so it still says the same size
+	 * (one typed with its own unit already does, and stays as typed).
+	 */
 	setUnits(units: Units) {
-		const mm = toMm(parseLength(this.odText), this.units);
-		if (this.odText.trim() && Number.isFinite(mm)) this.odText = diameterText(mm, units);
+		const converted = convertLengths({ od: this.odText }, ['od'], this.units, units, this.#switchMemory);
+		if (converted.od !== undefined) this.odText = converted.od;
 		this.units = units;
 		this.forget('od', 'units');
 	}
