@@ -158,7 +158,7 @@ describe('wheel design revisions', () => {
 		).rejects.toMatchObject({ cause: { code: 'P0001' } });
 	});
 
-	it('compares two revisions parameter by parameter, in the designer's order, by label and in words', async () => {
+	it('compares two revisions parameter by parameter, in the designer’s order, by label and in words', async () => {
 		const { status, body } = await me.client.json<{ changes: { name: string; from: string; to: string }[] }>(
 			`/api/v1/designs/${designId}/compare?a=1&b=2`
 		);

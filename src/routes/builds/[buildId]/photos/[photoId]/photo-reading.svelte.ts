@@ -2,6 +2,7 @@
 // whatever size the photo is shown at), the known diameter, and the answer. The page checks with
 // the API's own check (`checkPhotoTaps`) before it sends, so both refuse in the same words.
 import { callApi } from '$lib/api-client';
+import type { UndoOffer } from '$lib/components/ui/UndoNotice.svelte';
 import { checkPhotoTaps, diameterText, maxTips, photoParams, type Pt } from '$lib/schemas/photo';
 import { byField, type Refusal } from '$lib/schemas/refusal';
 import { parseLength, toMm, type Units } from '$lib/trade/units';
@@ -113,12 +114,26 @@ export class PhotoReading {
 		else this.centre = null;
 	}
 
+	/** Start again throws the taps away: the offer to put them back. */
+	startedAgain = $state<UndoOffer | null>(null);
+	/** The taps and diameter in one string: a change to it ends the offer to undo. */
+	readonly tapsState = $derived(`${tapKey(this.centre, this.tips)} ${this.odText} ${this.units}`);
+
 	startAgain() {
+		const before = { centre: this.centre, tips: [...this.tips], result: this.result };
 		this.centre = null;
 		this.tips = [];
 		this.result = null;
 		this.refusals = [];
 		this.message = null;
+		this.startedAgain = {
+			message: 'Taps cleared.',
+			undo: () => {
+				this.centre = before.centre;
+				this.tips = before.tips;
+				this.result = before.result;
+			}
+		};
 	}
 
 	setOd(text: string) {
