@@ -63,7 +63,7 @@ const defs = [
 			woodruff: 'Woodruff key (ANSI B17.2)'
 		},
 		default: 'none',
-		whenEmpty: 'none'
+		whenEmpty: 'None'
 	},
 	{ name: 'keyWidth', label: 'Key slot width', ...length(0.5, 100), appliesWhen: (p) => p.keyway === 'custom' },
 	{
