@@ -13,7 +13,17 @@ let shot: SyntheticWheelPhoto;
 beforeAll(async () => {
 	browser = await launch();
 	// The photo the photo e2e reads as 36-1 (tests/e2e/photos.test.ts).
-	shot = await syntheticWheelPhoto({ teeth: 36, missing: 1, width: 1600, height: 1200, rotationDeg: 37, noise: 4, blur: 1, tips: 3, seed: 11 });
+	shot = await syntheticWheelPhoto({
+		teeth: 36,
+		missing: 1,
+		width: 1600,
+		height: 1200,
+		rotationDeg: 37,
+		noise: 4,
+		blur: 1,
+		tips: 3,
+		seed: 11
+	});
 });
 afterAll(() => browser?.close());
 
@@ -191,10 +201,20 @@ describe('steady pages in Chromium', () => {
 
 		const context = await signedIn(owner, phone);
 		const page = await context.newPage();
-		const pages = ['/builds', `/builds/${id}`, `/builds/${id}/designs/${design.body.id}`, `/builds/${id}/photos/${photoId}`, '/workshop', '/account'];
+		const pages = [
+			'/builds',
+			`/builds/${id}`,
+			`/builds/${id}/designs/${design.body.id}`,
+			`/builds/${id}/photos/${photoId}`,
+			'/workshop',
+			'/account'
+		];
 		for (const path of pages) {
 			await page.goto(`${baseUrl}${path}`);
-			const widths = await page.evaluate(() => ({ scroll: document.documentElement.scrollWidth, client: document.documentElement.clientWidth }));
+			const widths = await page.evaluate(() => ({
+				scroll: document.documentElement.scrollWidth,
+				client: document.documentElement.clientWidth
+			}));
 			expect(widths.scroll, `${path} is ${widths.scroll} px wide in ${widths.client} px`).toBeLessThanOrEqual(widths.client);
 		}
 		await page.goto(`${baseUrl}/builds/${id}`);
