@@ -1,5 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { convertLengths, diffParams } from './params';
+import { valueWords } from './schemas/param-words';
+import { wheelParams } from './schemas/wheel-params';
 
 describe('tool form helpers', () => {
 	it('converts the given length fields between units (1 in = 25.4 mm), leaving empty and unfinished ones', () => {
@@ -48,5 +50,46 @@ describe('tool form helpers', () => {
 			{ name: 'teeth', from: '36', to: '60' }
 		]);
 		expect(diffParams({ od: '100' }, { od: '100' })).toEqual([]);
+	});
+});
+
+describe('the revision comparison in words', () => {
+	// Expected words typed here from the designer's labels and plain trade usage, not from the code.
+	it('names each change by its label, with units, choice words and what an empty value means', () => {
+		const from = { units: 'mm', teeth: '36', missing: '1', od: '100', depth: '5', bore: '20', keyway: 'none', thickness: '3' };
+		const to = {
+			units: 'mm',
+			teeth: '36',
+			missing: '1',
+			od: '100',
+			depth: '5',
+			bore: '20',
+			tipRadius: '0.5',
+			keyway: 'din6885',
+			shaft: '20',
+			keywayAngle: '45',
+			thickness: '3',
+			label: 'CRANK',
+			rotation: 'ccw'
+		};
+		expect(diffParams(from, to, wheelParams).map((c) => [c.label, c.fromWords, c.toWords])).toEqual([
+			['Tip corner radius', '0 (sharp)', '0.5 mm'],
+			['Keyway', 'None', 'DIN 6885-1 parallel key'],
+			['Shaft diameter', 'not used', '20 mm'],
+			['Keyway angle', 'not used', '45°'],
+			['Etched label', 'no label', '“CRANK”'],
+			['Rotation', 'Clockwise (default)', 'Counter-clockwise']
+		]);
+	});
+
+	it('keeps each set in its own units, and a length typed with its unit as typed', () => {
+		const changes = diffParams({ units: 'mm', thickness: '3', bore: '20' }, { units: 'in', thickness: '1/8', bore: '20 mm' }, wheelParams);
+		expect(changes.map((c) => [c.name, c.fromWords, c.toWords])).toEqual([
+			['units', 'mm', 'in'],
+			['bore', '20 mm', '20 mm'],
+			['thickness', '3 mm', '1/8 in']
+		]);
+		expect(valueWords(wheelParams, 'bolts', { units: 'in' })).toBe('none');
+		expect(valueWords(wheelParams, 'grade', { grade: '2.5' })).toBe('2.5 mm/s');
 	});
 });

@@ -1,6 +1,8 @@
 // Helpers for the tools' forms, which keep their inputs as flat strings named like the public API.
 import { fromMm, parseLengthWithUnit, type Units } from './trade/units';
 import type { HoleCircle } from './trade/wheel';
+import { valueWords } from './schemas/param-words';
+import type { Registry } from './schemas/registry';
 
 export type Params = Record<string, string>;
 
@@ -54,13 +56,30 @@ export function convertLengths(params: Params, fields: readonly string[], from: 
 
 export interface ParamChange {
 	name: string;
-	/** The value in the first set, '' when not given there. */
 	from: string;
 	to: string;
+	/** With a registry: the parameter's label, and each side in words with its unit. */
+	label?: string;
+	fromWords?: string;
+	toWords?: string;
 }
 
-/** Parameter by parameter, what differs between two sets (an empty value counts as not given). */
-export function diffParams(from: Params, to: Params): ParamChange[] {
+/**
+ * Parameter by parameter, what differs between two sets (an empty value counts as not given).
+ * Given the tool's registry, the changes come in its order, each with its label and its values in words.
+ */
+export function diffParams(from: Params, to: Params, registry?: Registry): ParamChange[] {
 	const names = [...new Set([...Object.keys(from), ...Object.keys(to)])].sort();
-	return names.map((name) => ({ name, from: from[name] ?? '', to: to[name] ?? '' })).filter((c) => c.from.trim() !== c.to.trim());
+	const changes = names.map((name) => ({ name, from: from[name] ?? '', to: to[name] ?? '' })).filter((c) => c.from.trim() !== c.to.trim());
+	if (!registry) return changes;
+	const order: readonly string[] = registry.names;
+	const rank = (name: string) => (order.includes(name) ? order.indexOf(name) : order.length);
+	return changes
+		.sort((a, b) => rank(a.name) - rank(b.name) || a.name.localeCompare(b.name))
+		.map((c) => ({
+			...c,
+			label: registry.label(c.name),
+			fromWords: valueWords(registry, c.name, from),
+			toWords: valueWords(registry, c.name, to)
+		}));
 }

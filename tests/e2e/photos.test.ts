@@ -103,7 +103,7 @@ describe('wheel photos and the photo reading in Chromium', () => {
 		// The photo reading: centre, then three tips, at the synthetic taps' positions.
 		await page.getByRole('link', { name: /wheel-36-1\.jpg/ }).click();
 		await page.waitForURL(/\/photos\//);
-		expect(await page.getByTestId('reader-step').innerText()).toBe('Tap the centre of the wheel');
+		expect(await page.getByTestId('reader-step').innerText()).toBe('Tap the centre of the wheel.');
 		// A "tip" next to the centre is refused by the API, and the refusal is shown by the taps.
 		const near = await onScreen(page.getByTestId('photo-taps'), shot, shot.taps.centre);
 		await page.mouse.click(near.x, near.y);

@@ -158,14 +158,15 @@ describe('wheel design revisions', () => {
 		).rejects.toMatchObject({ cause: { code: 'P0001' } });
 	});
 
-	it('compares two revisions parameter by parameter', async () => {
+	it('compares two revisions parameter by parameter, in the designer’s order, by label and in words', async () => {
 		const { status, body } = await me.client.json<{ changes: { name: string; from: string; to: string }[] }>(
 			`/api/v1/designs/${designId}/compare?a=1&b=2`
 		);
 		expect(status).toBe(200);
+		// The labels as the designer's form shows them; counts carry no unit.
 		expect(body.changes).toEqual([
-			{ name: 'missing', from: '1', to: '2' },
-			{ name: 'teeth', from: '36', to: '60' }
+			{ name: 'teeth', from: '36', to: '60', label: 'Teeth', fromWords: '36', toWords: '60' },
+			{ name: 'missing', from: '1', to: '2', label: 'Missing', fromWords: '1', toWords: '2' }
 		]);
 		const bad = await me.client.json<{ errors: Record<string, string> }>(`/api/v1/designs/${designId}/compare?a=1&b=x`);
 		expect(bad.status).toBe(400);

@@ -23,6 +23,8 @@ interface Base {
 	appliesWhen?: (params: Params) => boolean;
 	/** What the field takes, when the kind's own wording would not say it well. */
 	allows?: string;
+	/** What an empty value means, in words ("0 (sharp)", "none"), where the default alone would not say it. */
+	whenEmpty?: string;
 }
 
 export type ParamDef = Base &

@@ -33,8 +33,22 @@ const defs = [
 		default: { mm: '5', in: '3/16' },
 		starts: true
 	},
-	{ name: 'tipRadius', label: 'Tip corner radius', help: 'Empty or 0 for sharp corners.', ...length(0, 50), default: '0' },
-	{ name: 'rootRadius', label: 'Root corner radius', help: 'Empty or 0 for sharp corners.', ...length(0, 50), default: '0' },
+	{
+		name: 'tipRadius',
+		label: 'Tip corner radius',
+		help: 'Empty or 0 for sharp corners.',
+		...length(0, 50),
+		default: '0',
+		whenEmpty: '0 (sharp)'
+	},
+	{
+		name: 'rootRadius',
+		label: 'Root corner radius',
+		help: 'Empty or 0 for sharp corners.',
+		...length(0, 50),
+		default: '0',
+		whenEmpty: '0 (sharp)'
+	},
 	{ name: 'bore', label: 'Bore', help: '0 for no bore.', ...length(0, 1900), default: { mm: '20', in: '3/4' }, starts: true },
 	{
 		name: 'keyway',
@@ -48,7 +62,8 @@ const defs = [
 			'b17.1': 'ANSI B17.1 square key',
 			woodruff: 'Woodruff key (ANSI B17.2)'
 		},
-		default: 'none'
+		default: 'none',
+		whenEmpty: 'None'
 	},
 	{ name: 'keyWidth', label: 'Key slot width', ...length(0.5, 100), appliesWhen: (p) => p.keyway === 'custom' },
 	{
@@ -75,11 +90,11 @@ const defs = [
 		appliesWhen: (p) => p.keyway === 'woodruff'
 	},
 	{ ...common.keywayAngle, appliesWhen: keyed },
-	{ name: 'bolts', label: 'Bolt holes', help: 'Empty or 0 for none.', kind: 'whole', min: 0, max: 24, default: '0' },
+	{ name: 'bolts', label: 'Bolt holes', help: 'Empty or 0 for none.', kind: 'whole', min: 0, max: 24, default: '0', whenEmpty: 'none' },
 	{ name: 'pcd', label: 'Bolt circle PCD', ...length(2, 1990), appliesWhen: withBolts },
 	{ name: 'boltHole', label: 'Bolt hole diameter', ...length(0.5, 100), appliesWhen: withBolts },
 	{ name: 'boltAngle', label: 'First bolt hole angle', ...angle, appliesWhen: withBolts },
-	{ name: 'balanceCount', label: 'Balance holes', kind: 'whole', min: 0, max: 8, default: '0' },
+	{ name: 'balanceCount', label: 'Balance holes', kind: 'whole', min: 0, max: 8, default: '0', whenEmpty: 'none' },
 	{ name: 'balancePcd', label: 'Balance hole circle PCD', ...length(2, 1990), appliesWhen: withBalance },
 	{ name: 'balanceHole', label: 'Balance hole diameter', ...length(0.5, 200), appliesWhen: withBalance },
 	{ name: 'balanceAngle', label: 'First balance hole angle', ...angle, appliesWhen: withBalance },
@@ -90,6 +105,7 @@ const defs = [
 		kind: 'angle',
 		min: 0,
 		max: 180,
+		whenEmpty: 'spread evenly',
 		appliesWhen: withBalance
 	},
 	{
@@ -99,7 +115,8 @@ const defs = [
 		// `none`, or an angle: read by the check.
 		kind: 'free',
 		allows: 'none, or an angle from -360 to 360°',
-		default: '0'
+		default: '0',
+		whenEmpty: '0° (tooth 0’s leading edge)'
 	},
 	{
 		name: 'label',
@@ -109,7 +126,8 @@ const defs = [
 		max: 40,
 		// Etched as one line; a line break or control character would also break the DXF's group codes.
 		allows: 'one line of text, at most 40 characters (no line breaks, control or direction-override characters)',
-		default: ''
+		default: '',
+		whenEmpty: 'no label'
 	},
 	common.rotation,
 	{ name: 'material', label: 'Material', kind: 'choice', values: ['steel', 'stainless', 'aluminium', 'custom'], default: 'steel' },

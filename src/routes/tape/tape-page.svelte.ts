@@ -1,3 +1,4 @@
+import type { UndoOffer } from '$lib/components/ui/UndoNotice.svelte';
 import { convertLengths, type SwitchMemory } from '$lib/params';
 import { byField } from '$lib/schemas/refusal';
 import { checkTape, tapeRegistry, type CheckedTape } from '$lib/schemas/tape';
@@ -115,8 +116,13 @@ export class TapePage {
 	removeRow(i: number) {
 		this.rows.splice(i, 1);
 	}
+	/** Going back to the example throws the typed curve away: the offer to put it back. */
+	curveReset = $state<UndoOffer | null>(null);
+
 	resetCurve() {
+		const before = this.rows.map((r) => ({ ...r }));
 		this.rows = exampleRows();
+		this.curveReset = { message: 'The example curve is back.', undo: () => (this.rows = before) };
 	}
 }
 

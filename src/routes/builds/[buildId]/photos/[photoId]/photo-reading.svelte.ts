@@ -2,6 +2,7 @@
 // whatever size the photo is shown at), the known diameter, and the answer. The page checks with
 // the API's own check (`checkPhotoTaps`) before it sends, so both refuse in the same words.
 import { callApi } from '$lib/api-client';
+import type { UndoOffer } from '$lib/components/ui/UndoNotice.svelte';
 import { convertLengths, type SwitchMemory } from '$lib/params';
 import { checkPhotoTaps, diameterText, maxTips, photoParams, type Pt } from '$lib/schemas/photo';
 import { byField, type Refusal } from '$lib/schemas/refusal';
@@ -51,6 +52,30 @@ const besideTheirField = ['od', 'units'];
 /** What may be refused that is no parameter: the photo itself, the request. */
 const otherLabels: Record<string, string> = { image: 'Photo', body: 'Request', form: 'Request' };
 
+const confidenceWords = (c: number | undefined) => (typeof c !== 'number' ? '' : c < 0.6 ? 'low' : c >= 0.8 ? 'good' : 'fair');
+
+/** Every instruction the page can show: the page reserves room for the longest, so the photo never moves when one changes. */
+export const steps = {
+	centre: 'Tap the centre of the wheel.',
+	firstTip: 'Now tap the tip of a tooth.',
+	fewTips: 'Read the teeth now, or tap a few more tips spread round the wheel first (they help on a tilted photo).',
+	enough: 'Enough taps: read the teeth.',
+	most: `That is ${maxTips} tips, the most a reading takes: read the teeth.`,
+	reading: 'Reading the teeth…',
+	found: (r: Pick<ReadingAnswer, 'teeth' | 'missing' | 'confidence'>) =>
+		`Found ${r.teeth}-${r.missing}, confidence ${confidenceWords(r.confidence) || 'not known'}: start a design from it, or move the taps and read again.`,
+	changed: 'The taps have changed since the reading: read the teeth again.',
+	fixDiameter: 'Correct the outside diameter as the note beside it says, then read the teeth again.',
+	fixTaps: 'Some taps were refused (the note under Taps says why): undo them, tap again, then read the teeth.',
+	tryAgain: 'The reading did not go through (the note under Taps says why): read the teeth again.'
+};
+
+/** The longest each instruction can be, for the room kept above the photo. */
+export const everyStep: readonly string[] = [
+	...Object.values(steps).filter((s): s is string => typeof s === 'string'),
+	steps.found({ teeth: 720, missing: 719, confidence: undefined })
+];
+
 export class PhotoReading {
 	readonly photo: Photo;
 	centre = $state<Pt | null>(null);
@@ -71,13 +96,19 @@ export class PhotoReading {
 			.map((r) => `${otherLabels[r.field] ?? photoParams.label(r.field)}: ${r.message}`),
 		...(this.message ? [this.message] : [])
 	]);
-	readonly step = $derived(
-		!this.centre
-			? 'Tap the centre of the wheel'
-			: this.tips.length < maxTips
-				? 'Tap the tips of a few teeth (3 or more, spread round the wheel, helps on a tilted photo)'
-				: `That is ${maxTips} tips, the most a reading takes; read the teeth, or undo some`
-	);
+	/** What to do next, in one line that follows the state: the page shows it above the photo. */
+	readonly step = $derived.by(() => {
+		if (this.reading) return steps.reading;
+		if (this.refusals.some((r) => r.field === 'od' || r.field === 'units')) return steps.fixDiameter;
+		if (this.refusals.some((r) => r.field === 'centre' || r.field === 'tips')) return steps.fixTaps;
+		if (this.refusals.length || this.message) return steps.tryAgain;
+		if (this.result && this.fresh) return steps.found(this.result.reading);
+		if (this.result && this.centre) return steps.changed;
+		if (!this.centre) return steps.centre;
+		if (!this.tips.length) return steps.firstTip;
+		if (this.tips.length < 3) return steps.fewTips;
+		return this.tips.length < maxTips ? steps.enough : steps.most;
+	});
 	readonly tapsSaid = $derived(
 		!this.centre ? 'Nothing tapped yet.' : `Centre placed; ${this.tips.length} tooth ${this.tips.length === 1 ? 'tip' : 'tips'}.`
 	);
@@ -114,12 +145,26 @@ export class PhotoReading {
 		else this.centre = null;
 	}
 
+	/** Start again throws the taps away: the offer to put them back. */
+	startedAgain = $state<UndoOffer | null>(null);
+	/** The taps and diameter in one string: a change to it ends the offer to undo. */
+	readonly tapsState = $derived(`${tapKey(this.centre, this.tips)} ${this.odText} ${this.units}`);
+
 	startAgain() {
+		const before = { centre: this.centre, tips: [...this.tips], result: this.result };
 		this.centre = null;
 		this.tips = [];
 		this.result = null;
 		this.refusals = [];
 		this.message = null;
+		this.startedAgain = {
+			message: 'Taps cleared.',
+			undo: () => {
+				this.centre = before.centre;
+				this.tips = before.tips;
+				this.result = before.result;
+			}
+		};
 	}
 
 	setOd(text: string) {
