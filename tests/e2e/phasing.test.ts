@@ -206,12 +206,17 @@ describe('phasing check on a phone and a desktop', () => {
 		await expect.poll(() => offset.innerText()).toMatch(/90\s*° BTDC/);
 		const last = page.locator('form[aria-label="Phasing inputs"] input:not([type=radio])').last();
 		await last.scrollIntoViewIfNeeded();
-		await last.fill('20');
+		// The last two inputs (the clocking wanted) typed with the last one in view: the answer stays, and stays in view.
+		await page.getByLabel('First-tooth offset wanted (° BTDC)').fill('60');
+		await last.fill('30');
+		await expect.poll(() => page.getByTestId('clocking').count()).toBe(1);
+		expect(await offset.innerText()).toMatch(/90\s*° BTDC/);
 		await page.evaluate(() => new Promise(requestAnimationFrame));
 		const box = (await offset.boundingBox())!;
 		expect(box.y).toBeGreaterThanOrEqual(0);
 		expect(box.y + box.height).toBeLessThanOrEqual(844);
 		const lastBox = (await last.boundingBox())!;
+		expect(lastBox.y).toBeGreaterThanOrEqual(0);
 		expect(lastBox.y + lastBox.height).toBeLessThanOrEqual(844);
 		// Nothing covers it: the element at its centre is the answer itself.
 		expect(
