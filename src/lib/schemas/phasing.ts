@@ -36,11 +36,11 @@ export const phasingParams = defineRegistry([
 	{ ...common.duty, default: '0.5' },
 	{
 		name: 'mount',
-		label: 'Wheel on the',
-		help: 'The crank, or the cam (turning at half crank speed).',
+		label: 'Shaft the wheel turns with',
+		help: 'The crankshaft, or a camshaft, which turns at half crank speed: one wheel degree is then two crank degrees.',
 		kind: 'choice',
 		values: ['crank', 'cam'],
-		labels: { crank: 'Crank', cam: 'Cam (half speed)' },
+		labels: { crank: 'Crankshaft', cam: 'Camshaft (half speed)' },
 		default: 'crank'
 	},
 	{
@@ -83,7 +83,7 @@ export const phasingParams = defineRegistry([
 	{ name: 'cylinders', label: 'Cylinders', help: 'A check on the intervals: one per cylinder.', kind: 'whole', min: 1, max: 12 },
 	{
 		name: 'input',
-		label: 'Where the sensor is, given as',
+		label: 'Say where the sensor sits by',
 		help: 'tooth: the tooth under the sensor at TDC; angles: the sensor’s and the key’s places measured on the engine.',
 		kind: 'choice',
 		values: inputKinds,
@@ -125,10 +125,11 @@ export const phasingParams = defineRegistry([
 	},
 	{
 		name: 'edge',
-		label: 'Edge the ECU reads',
+		label: 'Tooth edge timed',
+		help: 'The edge of each tooth the ECU takes its timing from; the leading edge reaches the sensor first. The ECU’s set-up and the sensor’s wiring decide which.',
 		kind: 'choice',
 		values: ['leading', 'trailing'],
-		labels: { leading: 'Leading edge', trailing: 'Trailing edge' },
+		labels: { leading: 'Leading', trailing: 'Trailing' },
 		default: 'leading'
 	},
 	common.rpm,
@@ -174,7 +175,7 @@ export const phasingParams = defineRegistry([
 	{
 		name: 'target',
 		label: 'First-tooth offset wanted',
-		help: 'What the ECU maker asks for, if anything.',
+		help: 'The angle you want to enter in the ECU, if its maker or your tune asks for one: the keyway angle that gives it follows.',
 		kind: 'number',
 		min: 0,
 		max: 720,

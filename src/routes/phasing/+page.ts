@@ -1,4 +1,5 @@
 import { phasingParams } from '$lib/schemas/phasing';
+import { clockingTarget } from './clocking-target';
 import { formFromAddress, formStart, sheetFormKeys } from './form-query';
 import type { PageLoad } from './$types';
 
@@ -14,4 +15,8 @@ export const _sheetKeys = sheetFormKeys;
 export const _phasingDefaults = formStart();
 
 /** A shared link carries the check in its query; anything it leaves out starts from the defaults. */
-export const load: PageLoad = ({ url }) => ({ params: formFromAddress(url.searchParams), build: url.searchParams.get('build') });
+export const load: PageLoad = async ({ url, fetch }) => ({
+	params: formFromAddress(url.searchParams),
+	build: url.searchParams.get('build'),
+	clockingTarget: await clockingTarget(fetch, url.searchParams)
+});
