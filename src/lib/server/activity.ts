@@ -1,4 +1,4 @@
-import { desc, eq } from 'drizzle-orm';
+import { and, desc, eq, inArray } from 'drizzle-orm';
 import type { Queryable } from './db';
 import { activity, user } from './db/schema';
 
@@ -6,7 +6,18 @@ import { activity, user } from './db/schema';
 // never mentions a change that did not happen.
 
 export type ActivityKind =
-	'build' | 'engine' | 'design' | 'revision' | 'restore' | 'tdc' | 'tape' | 'photo' | 'reading' | 'cutting-package' | 'invitation';
+	| 'build'
+	| 'engine'
+	| 'design'
+	| 'revision'
+	| 'restore'
+	| 'tdc'
+	| 'tape'
+	| 'photo'
+	| 'reading'
+	| 'cutting-package'
+	| 'invitation'
+	| 'build-sheet';
 
 export async function logActivity(
 	database: Queryable,
@@ -23,4 +34,16 @@ export async function listActivity(database: Queryable, buildId: string, limit =
 		.where(eq(activity.buildId, buildId))
 		.orderBy(desc(activity.createdAt), desc(activity.id))
 		.limit(limit);
+}
+
+/**
+ * The newest entry of each of `kinds`, whatever the length of the log: the build's steps read when
+ * the engine profile was last saved and the build sheet last issued (src/lib/build-steps.ts).
+ */
+export async function latestActivity(database: Queryable, buildId: string, kinds: readonly ActivityKind[]) {
+	return database
+		.selectDistinctOn([activity.kind], { kind: activity.kind, summary: activity.summary, createdAt: activity.createdAt })
+		.from(activity)
+		.where(and(eq(activity.buildId, buildId), inArray(activity.kind, [...kinds])))
+		.orderBy(activity.kind, desc(activity.createdAt), desc(activity.id));
 }

@@ -1,7 +1,8 @@
 import { and, desc, eq } from 'drizzle-orm';
+import { buildSteps } from '$lib/build-steps';
 import type { Database, Queryable } from './db';
-import { build as buildTable, cuttingPackage, user } from './db/schema';
-import { listActivity } from './activity';
+import { build as buildTable, cuttingPackage, user, wheelDesign, wheelRevision } from './db/schema';
+import { latestActivity, listActivity } from './activity';
 import { getBuild, type BuildWrite } from './builds';
 import { designsOf } from './designs';
 import { photoKeysOf, photosOf } from './photos/store';
@@ -27,17 +28,36 @@ export async function cuttingPackagesOf(database: Queryable, buildId: string) {
 		.orderBy(desc(cuttingPackage.createdAt));
 }
 
+/** The newest revision of each of the build's designs, with its parameters: the wheel each tool is opened with. */
+export async function headRevisionsOf(database: Queryable, buildId: string) {
+	return database
+		.selectDistinctOn([wheelRevision.designId], {
+			designId: wheelRevision.designId,
+			number: wheelRevision.number,
+			params: wheelRevision.params,
+			createdAt: wheelRevision.createdAt
+		})
+		.from(wheelRevision)
+		.innerJoin(wheelDesign, eq(wheelDesign.id, wheelRevision.designId))
+		.where(eq(wheelDesign.buildId, buildId))
+		.orderBy(wheelRevision.designId, desc(wheelRevision.number));
+}
+
 export async function buildOverview(database: Queryable, buildId: string) {
-	const [build, designs, tdcRecords, tapes, photos, cuttingPackages, activity] = await Promise.all([
+	const [build, designs, headRevisions, tdcRecords, tapes, photos, cuttingPackages, activity, latest] = await Promise.all([
 		getBuild(database, buildId),
 		designsOf(database, buildId),
+		headRevisionsOf(database, buildId),
 		tdcRecordsOf(database, buildId),
 		tapesOf(database, buildId),
 		photosOf(database, buildId),
 		cuttingPackagesOf(database, buildId),
-		listActivity(database, buildId)
+		listActivity(database, buildId),
+		latestActivity(database, buildId, ['engine', 'build-sheet'])
 	]);
-	return build && { build, designs, tdcRecords, tapes, photos, cuttingPackages, activity };
+	if (!build) return undefined;
+	const steps = buildSteps({ build, designs, headRevisions, cuttingPackages, tdcRecords, tapes, latestActivity: latest });
+	return { build, steps, designs, headRevisions, tdcRecords, tapes, photos, cuttingPackages, activity };
 }
 export type BuildOverview = NonNullable<Awaited<ReturnType<typeof buildOverview>>>;
 

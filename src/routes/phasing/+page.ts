@@ -14,7 +14,11 @@ export const _sheetKeys = sheetFormKeys;
 
 export const _phasingDefaults = formStart();
 
-/** A shared link carries the check in its query; anything it leaves out starts from the defaults. */
+/**
+ * A shared link carries the check in its query; anything it leaves out starts from the defaults.
+ * From a build's page the link also names the build (the profile saves back into it) and the wheel
+ * design whose head revision filled in the pattern (src/lib/build-links.ts), which "Apply to" clocks.
+ */
 export const load: PageLoad = async ({ url, fetch }) => ({
 	params: formFromAddress(url.searchParams),
 	build: url.searchParams.get('build'),
