@@ -211,11 +211,24 @@ describe('steady pages in Chromium', () => {
 		];
 		for (const path of pages) {
 			await page.goto(`${baseUrl}${path}`);
-			const widths = await page.evaluate(() => ({
-				scroll: document.documentElement.scrollWidth,
-				client: document.documentElement.clientWidth
-			}));
-			expect(widths.scroll, `${path} is ${widths.scroll} px wide in ${widths.client} px`).toBeLessThanOrEqual(widths.client);
+			const widths = await page.evaluate(() => {
+				const client = document.documentElement.clientWidth;
+				// What reaches past the edge, to say what to fix when this fails: the innermost elements, and
+				// the elements holding text that spills out of its box (the box itself may fit).
+				const over = [...document.body.querySelectorAll('*')].filter((e) => e.getBoundingClientRect().right > client + 0.5);
+				const innermost = over.filter((e) => !over.some((o) => o !== e && e.contains(o)));
+				const walker = document.createTreeWalker(document.body, NodeFilter.SHOW_TEXT);
+				const range = document.createRange();
+				for (let node = walker.nextNode(); node; node = walker.nextNode()) {
+					range.selectNodeContents(node);
+					if (range.getBoundingClientRect().right > client + 0.5 && node.parentElement) innermost.push(node.parentElement);
+				}
+				const named = innermost.slice(0, 3).map((e) => `<${e.tagName.toLowerCase()} class="${e.getAttribute('class') ?? ''}">`);
+				return { scroll: document.documentElement.scrollWidth, client, named };
+			});
+			expect(widths.scroll, `${path} is ${widths.scroll} px wide in ${widths.client} px: ${widths.named.join(', ')}`).toBeLessThanOrEqual(
+				widths.client
+			);
 		}
 		await page.goto(`${baseUrl}/builds/${id}`);
 		await page.screenshot({ path: join(screenshots, 'steady-long-names-build.png'), fullPage: true });
