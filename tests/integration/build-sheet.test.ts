@@ -156,7 +156,7 @@ describe('the build sheet of a build with the whole wheel', () => {
 		expect(rowOf(fromBuild, 'Pitch, resolution')).toBe('15° of wheel, 15 crank degrees per tooth');
 		expect(rowOf(fromBuild, 'Gaps in the pattern')).toBe('1: missing positions 22–23');
 		// Tooth 4 at the sensor at TDC: 4 × 15 = 60° BTDC (geometry).
-		expect(rowOf(fromBuild, 'First-tooth offset')).toBe('60° BTDC');
+		expect(rowOf(fromBuild, 'First-tooth offset')).toMatch(/^60° BTDC: the angle to enter in your ECU/);
 		// A 270° twin: cylinder 2 at 270° (common practice).
 		expect(rowOf(fromBuild, 'Cylinder TDCs')).toContain('cyl 2 at 270°');
 		expect(fromBuild).not.toMatch(/36-1|pitch 10°/);

@@ -137,9 +137,13 @@ export async function buildSheetPdf(s: BuildSheet): Promise<Buffer> {
 	row('Rev limit, cranking', `${p.revLimitRpm} rpm, ${p.crankingRpm} rpm`);
 
 	section('Sensor and phasing');
-	row('Wheel on', p.mount === 'crank' ? 'the crank' : 'the cam (half speed: one wheel degree is two crank degrees)');
+	// The phasing page's words (src/lib/schemas/phasing.ts labels), so the sheet reads like the check.
 	row(
-		'Sensor, edge read',
+		'Shaft the wheel turns with',
+		p.mount === 'crank' ? 'the crankshaft' : 'the camshaft (half speed: one wheel degree is two crank degrees)'
+	);
+	row(
+		'Sensor, tooth edge timed',
 		`${s.phasing.sensor === 'hall' ? 'Hall-effect' : 'variable reluctance (VR)'}, ${p.edge} tooth edge, up to ${p.sensorMaxHz} Hz`
 	);
 	const m = s.phasing.measured;
@@ -154,7 +158,7 @@ export async function buildSheetPdf(s: BuildSheet): Promise<Buffer> {
 		'Tooth at the sensor at TDC',
 		`${Number(p.toothAtTdc.toFixed(3))} (tooth 0 = first after the gap${m ? ', worked out from the angles' : ''})`
 	);
-	row('First-tooth offset', `${r.firstToothOffsetDeg}° BTDC`);
+	row('First-tooth offset', `${r.firstToothOffsetDeg}° BTDC: the angle to enter in your ECU (its set-up may call it something else)`);
 	const clock = s.phasing.clocking;
 	if (clock)
 		row(
