@@ -25,6 +25,8 @@ export async function GET(event) {
 	if (!sheet.ok) return refuse(sheet.refusals);
 	const pdf = await buildSheetPdf(sheet.value.sheet);
 	const summary = `Build sheet issued, wheel revision ${sheet.value.sheet.revision}`;
-	await logActivity(db(), { buildId: access.buildId, actorId: access.user.id, kind: 'build-sheet', summary });
+	// A HEAD (link checkers, previews) asks about the file; only a download issues the sheet.
+	if (event.request.method === 'GET')
+		await logActivity(db(), { buildId: access.buildId, actorId: access.user.id, kind: 'build-sheet', summary });
 	return fileResponse(pdf, 'application/pdf', sheet.value.filename, 'private');
 }
