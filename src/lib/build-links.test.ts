@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { formFromAddress } from '../routes/phasing/form-query';
-import { hubOfTape, phasingFromBuild, phasingHref, wheelHref } from './build-links';
+import { hubOfTape, phasingFromBuild, phasingHref, tapeHref, wheelHref } from './build-links';
 
 // The reported bug: "Set up the engine profile" on a build whose wheel is 24-2 opened the phasing
 // check at 36-1. The expected values are the wheel's as typed here.
@@ -52,5 +52,11 @@ describe('the other tools opened from a build', () => {
 		expect(hubOfTape({ units: 'in', diameter: '5 1/2', window: '40' })).toEqual({ units: 'in', diameter: '5 1/2' });
 		expect(hubOfTape({ circumference: '471' })).toEqual({ units: 'mm', circumference: '471' });
 		expect(hubOfTape(null)).toEqual({});
+	});
+
+	it('heads the tape’s timing-light card with the build’s name (the card reads `name` from the address)', () => {
+		const href = new URL(tapeHref('b1', { units: 'mm', diameter: '127' }, 'Bonneville T120 & co'), 'http://x');
+		expect(Object.fromEntries(href.searchParams)).toEqual({ build: 'b1', units: 'mm', diameter: '127', name: 'Bonneville T120 & co' });
+		expect(tapeHref('b1', null)).toBe('/tape?build=b1');
 	});
 });

@@ -81,9 +81,11 @@ export function hubOfTape(params: Params | null): Params {
 
 /**
  * The degree tape tool, for the timing hub of the newest tape kept in the build (or its start
- * hub). The tape takes no TDC offset: it is zeroed at the true TDC the TDC record found.
+ * hub), its timing-light card headed with the build's name. The tape takes no TDC offset: it is
+ * zeroed at the true TDC the TDC record found.
  */
-export const tapeHref = (buildId: string, newestTape: Params | null) => toolHref('/tape', { build: buildId, ...hubOfTape(newestTape) });
+export const tapeHref = (buildId: string, newestTape: Params | null, buildName = '') =>
+	toolHref('/tape', { build: buildId, ...hubOfTape(newestTape), name: buildName });
 
 /** The TDC finder, keeping its record in the build. */
 export const tdcHref = (buildId: string) => toolHref('/tdc', { build: buildId });

@@ -45,7 +45,7 @@ type When = string | Date;
 
 /** What the steps read from a build's overview (src/lib/server/build-overview.ts); the rest of it is ignored. */
 export interface ThreadSource {
-	build: { id: string; engineProfile: Params | null };
+	build: { id: string; name?: string; engineProfile: Params | null };
 	/** In the order the build sheet picks from (by name). */
 	designs: { id: string; name: string }[];
 	/** The newest revision of each design. */
@@ -230,7 +230,7 @@ export function buildSteps(source: ThreadSource): BuildStep[] {
 		wheelStep(wheel, wheelHref(buildId, profile, links)),
 		cuttingStep(source, wheel, '#packages-title'),
 		tdcStep(source, tdcHref(buildId)),
-		tapeStep(source, tapeHref(buildId, newest(source.tapes)?.params ?? null)),
+		tapeStep(source, tapeHref(buildId, newest(source.tapes)?.params ?? null, source.build.name)),
 		phasingStep(profile, wheel, phasing),
 		sheetStep(source, wheel, buildSheetHref(buildId, links))
 	];

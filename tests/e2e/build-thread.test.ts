@@ -157,6 +157,8 @@ describe.each(viewports)('the thread through a build in Chromium, $name', (viewp
 		await follow('tape', 'Make a degree tape');
 		await page.waitForURL(/\/tape\?/);
 		expect(new URL(page.url()).searchParams.get('build')).toBe(buildId);
+		// The timing-light card is headed with the build's name.
+		expect(await page.locator('#card-name').inputValue()).toBe(`Thread ${viewport.name} 350 single`);
 		await field(page, 'diameter').fill('127');
 		await expect.poll(() => page.getByTestId('tape-preview').count()).toBe(1);
 		await page.getByRole('button', { name: 'Save degree tape to the build' }).click();
@@ -165,7 +167,9 @@ describe.each(viewports)('the thread through a build in Chromium, $name', (viewp
 		await backToBuild();
 		expect(await stateOf(page, 'tape')).toBe('done');
 		// The next tape starts at this hub.
-		expect(await stepOf(page, 'tape').getByRole('link').getAttribute('href')).toBe(`/tape?build=${buildId}&units=mm&diameter=127`);
+		expect(await stepOf(page, 'tape').getByRole('link').getAttribute('href')).toBe(
+			`/tape?build=${buildId}&units=mm&diameter=127&name=Thread+${viewport.name}+350+single`
+		);
 		expect(await allStates(page)).toMatchObject({
 			engine: 'done',
 			wheel: 'done',
