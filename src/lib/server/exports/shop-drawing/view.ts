@@ -81,9 +81,11 @@ function diameter(v: View, radiusMm: number, offsetMm: number, words: string) {
 /** A leader from a feature to its words outside the wheel, along the drawing angle `a`. */
 function leader(v: View, from: P, a: number, words: string[]) {
 	const { doc } = v;
-	const elbow = at(v, (v.spec.odMm / 2) * v.scale + 6, a);
+	const R = (v.spec.odMm / 2) * v.scale;
+	const elbow = at(v, R + 6, a);
 	const right = Math.cos((a * Math.PI) / 180) >= 0;
-	const end = { x: elbow.x + (right ? 4 : -4), y: elbow.y };
+	// The words start clear of the diameters' extension lines (at the wheel's sides), however steep the leader.
+	const end = { x: right ? Math.max(elbow.x + 4, v.centre.x + R + 3) : Math.min(elbow.x - 4, v.centre.x - R - 3), y: elbow.y };
 	doc.lineWidth(mm(thin)).strokeColor('black');
 	doc.moveTo(mm(elbow.x), mm(elbow.y)).lineTo(mm(end.x), mm(end.y)).stroke();
 	doc.moveTo(mm(from.x), mm(from.y)).lineTo(mm(elbow.x), mm(elbow.y)).stroke();
