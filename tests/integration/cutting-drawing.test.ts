@@ -137,7 +137,9 @@ describe('the shop drawing of a cutting package', () => {
 		// bar's end labels 100 mm apart on the page.
 		expect(t).toMatch(/Scale 1:1/);
 		expect(t).toMatch(/1:1 on A4/);
-		expect(pdf.info).toMatch(/Page size:\s+595\.2\d x 841\.8\d pts \(A4\)/);
+		const [, w, h] = /Page size:\s+([\d.]+) x ([\d.]+) pts \(A4\)/.exec(pdf.info)!;
+		expect(Number(w)).toBeCloseTo((210 / 25.4) * 72, 2);
+		expect(Number(h)).toBeCloseTo((297 / 25.4) * 72, 2);
 		const labels = ['0', '10', '20', '30', '40', '50', '60', '70', '80', '90', '100'];
 		expect(barSpan(pdf.bbox, labels)).toBeCloseTo(100 * PT_PER_MM, 0);
 	});
