@@ -1,4 +1,4 @@
-import { buildSheetHref, phasingHref, tapeHref, tdcHref, wheelHref, type HeadWheel, type Params } from './build-links';
+import { buildSheetHref, patternNames, phasingHref, tapeHref, tdcHref, wheelHref, type HeadWheel, type Params } from './build-links';
 import { checkPhasing, phasingParams } from './schemas/phasing';
 import { tdcRecordWords } from './schemas/tdc';
 import { wheelParams } from './schemas/wheel-params';
@@ -100,7 +100,7 @@ export function wheelChanges(profile: Params, wheel: Params): string[] {
 	const phasingDefaults = phasingParams.defaults('mm');
 	const wheelUnits = wheel.units === 'in' ? 'in' : 'mm';
 	const wheelDefaults = wheelParams.defaults(wheelUnits);
-	const names: string[] = ['pattern', 'teeth', 'missing', 'gaps', 'extraAfter', 'duty'];
+	const names: string[] = [...patternNames];
 	if (profile.input === 'angles') names.push('keywayAngle');
 	const changes: string[] = [];
 	for (const name of names) {
