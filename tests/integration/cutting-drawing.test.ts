@@ -7,33 +7,9 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { appUrl, Client, freshEmail, mailTo, signUp } from '../support/client';
+import { wheel36x1Keyed as keyed } from '../support/example-wheels';
 
 const dir = mkdtempSync(join(tmpdir(), 'phasewright-cutting-drawing-'));
-
-// A 36-1 wheel, 100 mm, 5 mm teeth, on a 20 mm shaft with a DIN 6885-1 key, four bolt holes and
-// two balance holes; the keyway at 90 wheel degrees, turning clockwise.
-const keyed = {
-	units: 'mm',
-	teeth: '36',
-	missing: '1',
-	od: '100',
-	depth: '5',
-	thickness: '3',
-	material: 'steel',
-	bore: '20',
-	keyway: 'din6885',
-	shaft: '20',
-	keywayAngle: '90',
-	rotation: 'cw',
-	bolts: '4',
-	pcd: '60',
-	boltHole: '6.5',
-	boltAngle: '45',
-	balanceCount: '2',
-	balancePcd: '76',
-	balanceHole: '5',
-	balanceAngle: '200'
-};
 
 async function owner(label: string) {
 	const email = freshEmail(label);

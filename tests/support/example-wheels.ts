@@ -30,3 +30,30 @@ export const wheel36x1x1Bolts = {
 	boltHole: '6.5',
 	units: 'mm'
 };
+
+/**
+ * 36-1, 100 mm, 5 mm teeth, on a 20 mm shaft with a DIN 6885-1 key at 90 wheel degrees, turning
+ * clockwise, four bolt holes and two balance holes: the shop drawing's wheel.
+ */
+export const wheel36x1Keyed = {
+	units: 'mm',
+	teeth: '36',
+	missing: '1',
+	od: '100',
+	depth: '5',
+	thickness: '3',
+	material: 'steel',
+	bore: '20',
+	keyway: 'din6885',
+	shaft: '20',
+	keywayAngle: '90',
+	rotation: 'cw',
+	bolts: '4',
+	pcd: '60',
+	boltHole: '6.5',
+	boltAngle: '45',
+	balanceCount: '2',
+	balancePcd: '76',
+	balanceHole: '5',
+	balanceAngle: '200'
+};

@@ -6,29 +6,9 @@ import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { checkWheel } from '$lib/schemas/wheel';
 import { cuttingSpecPdf } from './cutting-spec-pdf';
+import { wheel36x1Keyed as keyed } from '$support/example-wheels';
 
 const dir = mkdtempSync(join(tmpdir(), 'phasewright-drawing-'));
-
-const keyed = {
-	units: 'mm',
-	teeth: '36',
-	missing: '1',
-	od: '100',
-	depth: '5',
-	thickness: '3',
-	bore: '20',
-	keyway: 'din6885',
-	shaft: '20',
-	keywayAngle: '90',
-	bolts: '4',
-	pcd: '60',
-	boltHole: '6.5',
-	boltAngle: '45',
-	balanceCount: '2',
-	balancePcd: '76',
-	balanceHole: '5',
-	balanceAngle: '200'
-};
 
 async function drawing(params: Record<string, string>, name: string, paper: 'a4' | 'letter' = 'a4') {
 	const checked = checkWheel(params);
