@@ -87,7 +87,7 @@ export interface CaseResult {
 	 * `afterRatio`, a gap also needs 1 − (space after / gap) / afterRatio and an ordinary space is safe by
 	 * the better of its two terms. Negative: the rule fails somewhere.
 	 */
-	margin: number;
+	syncMargin: number;
 	/** The smallest ratio a gap showed (NaN without a gap). */
 	gapRatioMin: number;
 	/** The largest ratio an ordinary space showed. */
@@ -115,10 +115,10 @@ export interface SignalCheck {
 	compression: CompressionEvent[];
 	cases: CaseResult[];
 	/** The worst margin over the cases with the wheel clocked so `clockingDeg` (wheel degrees, toothAtTdc × pitch) sits at the sensor at TDC. */
-	sweep: { clockingDeg: number; margin: number }[];
-	current: { toothAtTdc: number; margin: number };
+	sweep: { clockingDeg: number; syncMargin: number }[];
+	current: { toothAtTdc: number; syncMargin: number };
 	/** The clocking with the largest margin; `keywayShiftDeg`: wheel degrees to add to the designer's keyway angle for it. */
-	best: { toothAtTdc: number; margin: number; keywayShiftDeg: number };
+	best: { toothAtTdc: number; syncMargin: number; keywayShiftDeg: number };
 	sensor: {
 		kind: 'hall' | 'vr';
 		/** The fastest case's mean speed, rpm, and the tooth pitch frequency there, Hz (N × wheel rpm / 60). */
@@ -340,7 +340,7 @@ export function signalCheck(input: SignalInput): SignalCheck {
 		const v = judge(turn0, motions[i]!.timeAt, input.rule, f, [[0, end]]);
 		return {
 			case: c,
-			margin: round(v.margin),
+			syncMargin: round(v.margin),
 			gapRatioMin: round(v.gapRatioMin),
 			normalRatioMax: round(v.normalRatioMax),
 			worst: { ...v.worst, crankDeg: round(v.worst.crankDeg, 2) },
@@ -350,7 +350,7 @@ export function signalCheck(input: SignalInput): SignalCheck {
 		};
 	});
 	const fullRun: [number, number][] = [[0, end]];
-	const currentMargin = Math.min(...cases.map((c) => c.margin));
+	const currentMargin = Math.min(...cases.map((c) => c.syncMargin));
 
 	// The sweep judges one period per case: with a steady speed every period is alike, and an
 	// acceleration weighs most where the mean speed is lowest, the first period speeding up and the
@@ -382,16 +382,16 @@ export function signalCheck(input: SignalInput): SignalCheck {
 		return worst;
 	};
 	const sweep: SignalCheck['sweep'] = [];
-	for (let k = 0; k * step < 360 - 1e-9; k++) sweep.push({ clockingDeg: round(k * step, 3), margin: round(worstOf(k * step, false)) });
+	for (let k = 0; k * step < 360 - 1e-9; k++) sweep.push({ clockingDeg: round(k * step, 3), syncMargin: round(worstOf(k * step, false)) });
 
 	// The best of the sweep, judged over the whole run like the current one; the current stays unless beaten.
-	let best = { toothAtTdc: input.toothAtTdc, margin: currentMargin, keywayShiftDeg: 0 };
-	const ranked = [...sweep].sort((a, b) => b.margin - a.margin).slice(0, 3);
+	let best = { toothAtTdc: input.toothAtTdc, syncMargin: currentMargin, keywayShiftDeg: 0 };
+	const ranked = [...sweep].sort((a, b) => b.syncMargin - a.syncMargin).slice(0, 3);
 	for (const candidate of ranked) {
 		const margin = round(worstOf(candidate.clockingDeg, true));
-		if (margin > best.margin + 1e-9) {
+		if (margin > best.syncMargin + 1e-9) {
 			const shift = norm(candidate.clockingDeg - clocking0 + 180, 360) - 180;
-			best = { toothAtTdc: round(candidate.clockingDeg / f.pitch, 3), margin, keywayShiftDeg: round(shift, 3) };
+			best = { toothAtTdc: round(candidate.clockingDeg / f.pitch, 3), syncMargin: margin, keywayShiftDeg: round(shift, 3) };
 		}
 	}
 
@@ -400,7 +400,7 @@ export function signalCheck(input: SignalInput): SignalCheck {
 		compression: f.events,
 		cases,
 		sweep,
-		current: { toothAtTdc: input.toothAtTdc, margin: currentMargin },
+		current: { toothAtTdc: input.toothAtTdc, syncMargin: currentMargin },
 		best,
 		sensor: sensorOf(input, motions, end),
 		warnings: warningsOf(input, cases, best, motions, end)
@@ -445,23 +445,23 @@ function warningsOf(input: SignalInput, cases: CaseResult[], best: SignalCheck['
 		warnings.push({ code: 'no-gap', message: 'This wheel has no gap: a rule that looks for a long space cannot find its place on it.' });
 	}
 	for (const c of cases) {
-		if (c.margin < 0) {
+		if (c.syncMargin < 0) {
 			const what = c.worst.what === 'gap-too-short' ? 'the gap does not stand out' : 'an ordinary space looks like the gap';
 			warnings.push({
 				code: 'no-sync',
 				message: `${c.case.label}: ${what} at ${c.worst.crankDeg}° after cylinder 1’s TDC${cylinderWords(c.worst.cylinder)}; the ECU loses or never finds its sync there.`
 			});
-		} else if (c.margin < 0.1) {
+		} else if (c.syncMargin < 0.1) {
 			warnings.push({
 				code: 'thin-margin',
-				message: `${c.case.label}: a sync margin of ${pct(c.margin)} leaves little for sensor noise, runout and a harder start than modelled (from memory, keep it above 10 %).`
+				message: `${c.case.label}: a sync margin of ${pct(c.syncMargin)} leaves little for sensor noise, runout and a harder start than modelled (from memory, keep it above 10 %).`
 			});
 		}
 	}
 	if (best.keywayShiftDeg !== 0) {
 		warnings.push({
 			code: 'better-clocking',
-			message: `Clocked with tooth ${best.toothAtTdc} at the sensor at TDC (the keyway ${best.keywayShiftDeg}° round on the wheel), the worst case keeps a margin of ${pct(best.margin)}.`
+			message: `Clocked with tooth ${best.toothAtTdc} at the sensor at TDC (the keyway ${best.keywayShiftDeg}° round on the wheel), the worst case keeps a sync margin of ${pct(best.syncMargin)}.`
 		});
 	}
 	motions.forEach((m, i) => {
