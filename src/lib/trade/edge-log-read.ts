@@ -292,23 +292,27 @@ export function readEdgeLog(log: EdgeLog, design?: EdgeLogDesign): EdgeLogReadin
 		return round((100 * (hi - lo)) / mean, 2);
 	});
 
-	// Each space over the pitch time at its middle, the pitch time interpolated between the middles
-	// of whole turns so that a steady speed change does not read as a wobble.
-	const mids = whole.map(([a, b]) => (time[a]! + time[b]!) / 2);
-	const pitchTimes = whole.map(([a, b]) => (time[b]! - time[a]!) / teeth);
+	// The runout is read from each tooth's speed over the speed expected there, fitted over whole
+	// engine cycles where it can (an even number of turns): a four-stroke's once-per-cycle swing then
+	// cancels. Speeds rather than spaces, and the expected speed taken from two turns at a time,
+	// because a space is one over a speed: a swing of ±a leaves a²/2 once per turn in the spaces.
+	const fitted = whole.length > 1 && whole.length % 2 ? whole.slice(0, -1) : whole;
+	const cycles = fitted.length > 1 ? fitted.flatMap((turn, k) => (k % 2 ? [] : [[turn[0], fitted[k + 1]![1]] as const])) : fitted;
+	// The expected pitch time, between the middles of the cycles, so a steady speed change is no wobble.
+	const mids = cycles.map(([a, b]) => (time[a]! + time[b]!) / 2);
+	const pitchTimes = cycles.map(([a, b]) => (time[b]! - time[a]!) / (at[b]! - at[a]!));
 	const fit = new SineFit();
-	let t = 0;
-	for (const [a, b] of whole) {
+	let c = 0;
+	for (const [a, b] of fitted) {
 		for (let j = a; j < b; j++) {
 			const mid = (time[j]! + time[j + 1]!) / 2;
-			while (t < mids.length - 2 && mids[t + 1]! < mid) t++;
-			const span = mids.length > 1 ? (mid - mids[t]!) / (mids[t + 1]! - mids[t]!) : 0;
-			const w = Math.min(1, Math.max(0, span));
-			const pitchTime = mids.length > 1 ? pitchTimes[t]! * (1 - w) + pitchTimes[t + 1]! * w : pitchTimes[0]!;
-			fit.add((mod(at[j]! + pitches[j]! / 2 - tooth0, teeth) * 2 * Math.PI) / teeth, sp[j]! / (pitches[j]! * pitchTime));
+			while (c < mids.length - 2 && mids[c + 1]! < mid) c++;
+			const w = mids.length > 1 ? Math.min(1, Math.max(0, (mid - mids[c]!) / (mids[c + 1]! - mids[c]!))) : 0;
+			const pitchTime = mids.length > 1 ? pitchTimes[c]! * (1 - w) + pitchTimes[c + 1]! * w : pitchTimes[0]!;
+			fit.add((mod(at[j]! + pitches[j]! / 2 - tooth0, teeth) * 2 * Math.PI) / teeth, (pitches[j]! * pitchTime) / sp[j]!);
 		}
 	}
-	const sine = whole.length ? fit.solve() : null;
+	const sine = fitted.length ? fit.solve() : null;
 
 	const meanRpm = ((at[m]! - at[0]!) / teeth / (time[m]! / 1e6)) * 60;
 	if (meanRpm < 20 || meanRpm > 30000) notes.push(`A mean speed of ${Math.round(meanRpm)} rpm: is the unit right (${log.unit})?`);
@@ -323,7 +327,7 @@ export function readEdgeLog(log: EdgeLog, design?: EdgeLogDesign): EdgeLogReadin
 		runout: sine
 			? {
 					amplitudePct: round((100 * Math.hypot(sine[1], sine[2])) / sine[0], 2),
-					phaseDeg: round(mod((Math.atan2(sine[2], sine[1]) * 180) / Math.PI, 360), 1)
+					phaseDeg: round(mod((Math.atan2(-sine[2], -sine[1]) * 180) / Math.PI, 360), 1)
 				}
 			: null,
 		turns: zeros.length ? (at[zeros[zeros.length - 1]!]! - at[first]!) / teeth : 0,
