@@ -35,8 +35,32 @@ function neighbourSpaces(s: ArrayLike<number>): Float64Array {
 	return out;
 }
 
+/**
+ * The tooth space expected at each space: the mean of the nearest ordinary tooth space before it and
+ * the nearest after it (ordinary: within 0.7 to 1.4 of its neighbours), so a gap is measured against
+ * the teeth on both sides of it and a speed changing across it cancels to first order. On a wheel of
+ * few teeth a swing moves the neighbours' middle too far for that (5-2 at 25 %: a gap 3.5 spaces long).
+ */
+function bridgedSpaces(s: ArrayLike<number>): Float64Array {
+	const n = s.length;
+	const around = neighbourSpaces(s);
+	const ordinary = (i: number) => s[i]! >= 0.7 * around[i]! && s[i]! <= 1.4 * around[i]!;
+	const before = new Float64Array(n).fill(NaN);
+	const after = new Float64Array(n).fill(NaN);
+	for (let i = 1; i < n; i++) before[i] = ordinary(i - 1) ? s[i - 1]! : before[i - 1]!;
+	for (let i = n - 2; i >= 0; i--) after[i] = ordinary(i + 1) ? s[i + 1]! : after[i + 1]!;
+	const out = new Float64Array(n);
+	for (let i = 0; i < n; i++) {
+		const [b, a] = [before[i]!, after[i]!];
+		out[i] = Number.isNaN(b) ? (Number.isNaN(a) ? around[i]! : a) : Number.isNaN(a) ? b : (a + b) / 2;
+	}
+	return out;
+}
+
 /** How far a span of `x` pitches is from a whole number of them (at least one). */
 const offWhole = (x: number) => (Number.isFinite(x) ? Math.abs(x - Math.max(1, Math.round(x))) : Infinity);
+/** In pitches: a swing of ±15 % across a gap puts its length that far off a whole number. */
+const clearly = 0.15;
 
 interface Cleaned {
 	spaces: number[];
@@ -50,7 +74,7 @@ interface Cleaned {
 /** Short spaces joined to the neighbour that makes a whole number of pitches with them: an extra edge gone. */
 function withoutSplits(log: EdgeLog): Cleaned {
 	const sp = log.spacesUs;
-	const ref = neighbourSpaces(sp);
+	const ref = bridgedSpaces(sp);
 	const out: Cleaned = { spaces: [], ends: [], rows: [], extraRows: [] };
 	let i = 0;
 	while (i < sp.length) {
@@ -63,7 +87,9 @@ function withoutSplits(log: EdgeLog): Cleaned {
 			const last = out.spaces.length - 1;
 			const back = last >= 0 ? out.spaces[last]! + s : Infinity;
 			const ahead = i < sp.length ? s + sp[i]! : Infinity;
-			if (offWhole(back / r0) < offWhole(ahead / r0)) {
+			// Of two edges too close together the later is taken as the extra one (ringing after a
+			// true edge), unless that leaves clearly fewer whole pitches than taking the earlier.
+			if (offWhole(back / r0) + clearly < offWhole(ahead / r0)) {
 				out.extraRows.push(out.rows[last]!);
 				out.spaces[last] = back;
 				out.ends[last] = end;
@@ -179,7 +205,7 @@ export function readEdgeLog(log: EdgeLog, design?: EdgeLogDesign): EdgeLogReadin
 	const clean = withoutSplits(log);
 	const sp = clean.spaces;
 	const m = sp.length;
-	const ref = neighbourSpaces(sp);
+	const ref = bridgedSpaces(sp);
 	const pitches = new Int32Array(m);
 	// Pitch count and time (µs from the log's first edge) of each cleaned edge; edge k + 1 closes space k.
 	const at = new Int32Array(m + 1);
@@ -228,20 +254,36 @@ export function readEdgeLog(log: EdgeLog, design?: EdgeLogDesign): EdgeLogReadin
 	}
 	const starts: number[] = [];
 	for (let j = 0; j < m; j++) if (pitches[j] === gapPitches) starts.push(at[j]!);
-	// ... and N, the pitches from one to the next.
-	const teeth = mode(
-		starts.slice(1).map((p, k) => p - starts[k]!),
-		false
-	);
-	if (teeth === null || teeth <= gapPitches) {
+	// ... and N: of the distances between them, the one whose turns explain the long spaces best.
+	// A dropped edge half-way round makes a distance of half a turn, a gap that swallowed one a
+	// distance of two turns; neither has a gap at its place in most of its turns.
+	let longCount = 0;
+	for (let j = 0; j < m; j++) if (pitches[j]! >= gapPitches) longCount++;
+	const fitOf = (teeth: number) => {
+		const phase = mode(starts.map((p) => mod(p, teeth)))!;
+		const firstGap = mod(phase - at[0]!, teeth) + at[0]!;
+		const expected = at[m]! >= firstGap + gapPitches ? Math.floor((at[m]! - gapPitches - firstGap) / teeth) + 1 : 0;
+		// Gaps seen where they belong, a dropped edge beside one included (that space is longer than the gap).
+		let seen = 0;
+		let explained = 0;
+		for (let j = 0; j < m; j++) {
+			if (pitches[j]! < gapPitches) continue;
+			let here = 0;
+			for (let x = at[j]!; x <= at[j + 1]! - gapPitches; x++) if (mod(x - phase, teeth) === 0) here++;
+			seen += here;
+			if (here) explained++;
+		}
+		return { teeth, phase, seen, expected, score: seen / Math.max(1, expected) - (longCount - explained) / longCount };
+	};
+	const distances = [...new Set(starts.slice(1).map((p, k) => p - starts[k]!))].filter((d) => d > gapPitches).sort((a, b) => a - b);
+	const fits = distances.slice(0, 40).map(fitOf);
+	const chosen = fits.reduce<(typeof fits)[number] | null>((a, b) => (a === null || b.score > a.score + 1e-9 ? b : a), null);
+	if (chosen === null) {
 		notes.push('Only one gap in the log: at least two turns are needed to find the pattern.');
 		return finish(base);
 	}
+	const { teeth, phase, seen, expected } = chosen;
 	const missing = gapPitches - 1;
-	const phase = mode(starts.map((p) => mod(p, teeth)))!;
-	const firstGap = mod(phase - at[0]!, teeth) + at[0]!;
-	const expected = at[m]! >= firstGap + gapPitches ? Math.floor((at[m]! - gapPitches - firstGap) / teeth) + 1 : 0;
-	const seen = starts.filter((p) => mod(p - phase, teeth) === 0).length;
 	if (seen < 2 || seen < 0.75 * expected) {
 		notes.push(`Long spaces come irregularly (${starts.length} of them), not once a turn: no pattern found.`);
 		return finish(base);
