@@ -142,7 +142,8 @@ export function parseEdgeLog(text: string): Checked<EdgeLog> {
 	const values: number[] = [];
 	const rows: number[] = [];
 	let header: { unit?: EdgeLogUnit; kind?: EdgeLogKind; row: number } | null = null;
-	const lines = text.split(/\r\n|\n|\r/);
+	// A byte order mark, which spreadsheet programs write first, is no part of the header.
+	const lines = text.replace(/^\uFEFF/, '').split(/\r\n|\n|\r/);
 	for (let i = 0; i < lines.length; i++) {
 		const line = lines[i]!.trim();
 		if (line === '' || line.startsWith('#')) continue;
