@@ -51,7 +51,8 @@ function bridgedSpaces(s: ArrayLike<number>): Float64Array {
 	for (let i = n - 2; i >= 0; i--) after[i] = ordinary(i + 1) ? s[i + 1]! : after[i + 1]!;
 	const out = new Float64Array(n);
 	for (let i = 0; i < n; i++) {
-		const [b, a] = [before[i]!, after[i]!];
+		const b = before[i]!;
+		const a = after[i]!;
 		out[i] = Number.isNaN(b) ? (Number.isNaN(a) ? around[i]! : a) : Number.isNaN(a) ? b : (a + b) / 2;
 	}
 	return out;
