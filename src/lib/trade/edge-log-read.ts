@@ -126,6 +126,19 @@ function mode(values: Iterable<number>, larger = false): number | null {
 }
 
 const mod = (a: number, n: number) => ((a % n) + n) % n;
+/** The longest space counted in pitches: past it, a pause in the log, not a part of the wheel. */
+const maxPitches = 1e6;
+
+/** Pitch positions x in [lo, hi] where a gap starts (x ≡ phase, mod N): counted, not walked, so a pause costs nothing. */
+const gapStartsIn = (lo: number, hi: number, phase: number, teeth: number) =>
+	hi < lo ? 0 : Math.floor((hi - phase) / teeth) - Math.floor((lo - 1 - phase) / teeth);
+
+/** Pitch positions x in [lo, hi] inside a gap (1 to M after its start). */
+function gapPositionsIn(lo: number, hi: number, phase: number, teeth: number, missing: number): number {
+	// Positions up to y inside a gap, from a fixed origin.
+	const upTo = (y: number) => Math.floor((y - phase) / teeth) * missing + Math.min(mod(y - phase, teeth), missing);
+	return hi < lo ? 0 : upTo(hi) - upTo(lo - 1);
+}
 const round = (x: number, digits: number) => Math.round(x * 10 ** digits) / 10 ** digits;
 
 /** The design as N-M, or why the reader (one gap per turn) cannot compare with it. */
@@ -207,12 +220,14 @@ export function readEdgeLog(log: EdgeLog, design?: EdgeLogDesign): EdgeLogReadin
 	const sp = clean.spaces;
 	const m = sp.length;
 	const ref = bridgedSpaces(sp);
-	const pitches = new Int32Array(m);
+	const pitches = new Float64Array(m);
 	// Pitch count and time (µs from the log's first edge) of each cleaned edge; edge k + 1 closes space k.
-	const at = new Int32Array(m + 1);
+	const at = new Float64Array(m + 1);
 	const time = new Float64Array(m + 1);
 	for (let j = 0; j < m; j++) {
-		pitches[j] = Math.max(1, Math.round(sp[j]! / ref[j]!));
+		// A pause in the log (the engine stopped) is as many pitches as it lasted, within reason.
+		const ratio = sp[j]! / ref[j]!;
+		pitches[j] = Number.isFinite(ratio) ? Math.min(maxPitches, Math.max(1, Math.round(ratio))) : 1;
 		at[j + 1] = at[j]! + pitches[j]!;
 		time[j + 1] = time[j]! + sp[j]!;
 	}
@@ -269,8 +284,7 @@ export function readEdgeLog(log: EdgeLog, design?: EdgeLogDesign): EdgeLogReadin
 		let explained = 0;
 		for (let j = 0; j < m; j++) {
 			if (pitches[j]! < gapPitches) continue;
-			let here = 0;
-			for (let x = at[j]!; x <= at[j + 1]! - gapPitches; x++) if (mod(x - phase, teeth) === 0) here++;
+			const here = gapStartsIn(at[j]!, at[j + 1]! - gapPitches, phase, teeth);
 			seen += here;
 			if (here) explained++;
 		}
@@ -297,14 +311,19 @@ export function readEdgeLog(log: EdgeLog, design?: EdgeLogDesign): EdgeLogReadin
 	const tooth0 = phase + gapPitches;
 	const missingAt: { row: number; count: number }[] = [];
 	let missingCount = 0;
+	let pauses = 0;
 	const extraRows = [...clean.extraRows];
 	for (let j = 0; j < m; j++) {
-		let gapInside = 0;
-		for (let x = at[j]! + 1; x < at[j + 1]!; x++) if (inGap(x)) gapInside++;
+		const gapInside = gapPositionsIn(at[j]! + 1, at[j + 1]! - 1, phase, teeth, missing);
 		const dropped = pitches[j]! - 1 - gapInside;
 		if (dropped > 0) {
 			missingCount += dropped;
 			missingAt.push({ row: clean.rows[j]!, count: dropped });
+			// More than a turn without an edge is no dropped edge: say so, for the first few.
+			if (dropped >= teeth && ++pauses <= 3)
+				notes.push(
+					`Row ${clean.rows[j]}: no edge for ${round(sp[j]! / 1e6, 3)} s (${dropped} edges' worth): the engine or the logger paused.`
+				);
 		}
 		// An edge where the gap is: noise, or an edge split off a tooth that the rounding kept.
 		if (inGap(at[j + 1]!)) extraRows.push(clean.rows[j]!);

@@ -62,6 +62,11 @@ describe('parseEdgeLog: the format', () => {
 		expect(bad(['time_us', '5', '5', '5'])[0]!.message).toMatch(/every space is zero/);
 	});
 
+	it('refuses numbers past any clock', () => {
+		expect(refused('time_us\n1\n1e400\n')![0]!.message).toBe('row 3: too large a number (“1e400”)');
+		expect(refused('time_us\n-9e15\n9e15\n')![0]!.message).toMatch(/^row 2: too large a number/);
+	});
+
 	it('caps the rows and the size', () => {
 		const rows = Array.from({ length: edgeLogLimits.rows + 1 }, (_, i) => String(i * 100 + 100));
 		expect(refused(rows.join('\n'))![0]!.message).toBe(`row ${edgeLogLimits.rows + 1}: more than 200,000 rows; split the log`);
@@ -183,6 +188,18 @@ describe('readEdgeLog: logs of known wheels (tests/support/edge-logs.ts)', () =>
 		expect(read(text, { kind: 'custom', teeth: 60, missingPositions: [58, 59] }).matchesDesign).toBe(true);
 		expect(read(text, { kind: 'extra', teeth: 24, extraAfter: 3 }).designDifference).toMatch(/has no gap to a turn/);
 		expect(read(text).matchesDesign).toBeNull();
+	});
+
+	it('a pause in the log (the engine stopped for a minute) costs nothing and moves nothing', () => {
+		const edges = wheelEdges({ teeth: 36, missing: 1, rpm: 2000, turns: 6, startPosition: 2 });
+		const times = edges.map((e, i) => e.timeUs + (i >= 100 ? 60e6 : 0));
+		const r = read(['time_us', ...times.map((t) => t.toFixed(2))].join('\n'));
+		expect(r.pattern).toMatchObject({ teeth: 36, missing: 1, gapAt: 33 });
+		// 60 s at 2000 rpm: 2000 turns' worth of pitches in one space, counted as dropped edges at its row.
+		expect(r.missingEdges.at).toHaveLength(1);
+		expect(r.missingEdges.at[0]!.row).toBe(102);
+		expect(r.missingEdges.count).toBeGreaterThan(60_000);
+		expect(r.notes.join(' ')).toMatch(/^Row 102: no edge for 60\.\d+ s/);
 	});
 
 	it('a log without a gap or shorter than two turns: no pattern, said why', () => {

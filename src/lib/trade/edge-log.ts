@@ -164,7 +164,9 @@ export function parseEdgeLog(text: string): Checked<EdgeLog> {
 		}
 		if (values.length >= edgeLogLimits.rows)
 			return no(`row ${row}: more than ${edgeLogLimits.rows.toLocaleString('en')} rows; split the log`);
-		values.push(Number(cell));
+		const value = Number(cell);
+		if (!Number.isFinite(value) || Math.abs(value) > 1e15) return no(`row ${row}: too large a number (“${cell.slice(0, 20)}”)`);
+		values.push(value);
 		rows.push(row);
 	}
 
