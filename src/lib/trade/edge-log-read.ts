@@ -290,8 +290,15 @@ export function readEdgeLog(log: EdgeLog, design?: EdgeLogDesign): EdgeLogReadin
 		}
 		return { teeth, phase, seen, expected, score: seen / Math.max(1, expected) - (longCount - explained) / longCount };
 	};
-	const distances = [...new Set(starts.slice(1).map((p, k) => p - starts[k]!))].filter((d) => d > gapPitches).sort((a, b) => a - b);
-	const fits = distances.slice(0, 40).map(fitOf);
+	// The 40 most frequent distances are tried (a noisy log has many, all rare but the turn and its multiples).
+	const counts = new Map<number, number>();
+	for (let k = 1; k < starts.length; k++) counts.set(starts[k]! - starts[k - 1]!, (counts.get(starts[k]! - starts[k - 1]!) ?? 0) + 1);
+	const distances = [...counts]
+		.filter(([d]) => d > gapPitches)
+		.sort((a, b) => b[1] - a[1] || a[0] - b[0])
+		.slice(0, 40)
+		.map(([d]) => d);
+	const fits = distances.map(fitOf);
 	const chosen = fits.reduce<(typeof fits)[number] | null>((a, b) => (a === null || b.score > a.score + 1e-9 ? b : a), null);
 	if (chosen === null) {
 		notes.push('Only one gap in the log: at least two turns are needed to find the pattern.');
