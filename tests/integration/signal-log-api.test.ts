@@ -1,6 +1,7 @@
 // POST /api/v1/signal/log against the built server, signed out: logs made from known wheels
 // (tests/support/edge-logs.ts, no imports from src) read back, sent each way the route takes them,
 // and hostile bodies refused with the row or the field named, never a 500.
+import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { edgeLogCsv, expectedReading, wheelEdges, type WheelRun } from '$support/edge-logs';
 
@@ -118,4 +119,46 @@ describe('POST /api/v1/signal/log', () => {
 		expect(file.status).toBe(413);
 		expect(await file.json()).toEqual({ message: 'log: at most 4 MiB; split the log', code: 'too-large' });
 	});
+
+	// Hostile input is normal (the project's rule): generated bodies, content types and queries never
+	// answer 5xx, and a 400 names only the route's own fields, each message starting with its name.
+	it('generated bodies and queries: never a 5xx, refusals by field', async () => {
+		const fields = ['log', 'pattern', 'teeth', 'missing', 'gaps', 'extraAfter'];
+		const cell = fc.oneof(
+			fc.double({ noDefaultInfinity: false }).map(String),
+			fc.integer().map(String),
+			fc.constantFrom('', '#', 'time_us', 'space', 'µs', '1e400', '-0', '0x10', '1,5', 'NaN', '\u0000', '\uFEFF12', '١٢٣'),
+			fc.string({ maxLength: 12 })
+		);
+		const body = fc.oneof(
+			fc.array(fc.array(cell, { minLength: 1, maxLength: 3 }), { maxLength: 60 }).map((rows) => rows.map((r) => r.join(',')).join('\n')),
+			fc.constant(csv.slice(0, 2000)),
+			fc.string({ maxLength: 300 })
+		);
+		const type = fc.constantFrom(
+			'text/csv',
+			'text/plain',
+			'text/csv; charset=latin1',
+			'application/json',
+			'application/octet-stream',
+			'multipart/form-data'
+		);
+		const query = fc.dictionary(fc.constantFrom(...fields, 'units', 'x'), fc.oneof(cell, fc.constantFrom('custom', 'extra', '36', '1')), {
+			maxKeys: 3
+		});
+		await fc.assert(
+			fc.asyncProperty(body, type, query, async (text, t, q) => {
+				const res = await post(text, t, q as Record<string, string>);
+				expect(res.status).toBeLessThan(500);
+				const answer = await res.json();
+				if (res.status === 400) {
+					for (const [field, message] of Object.entries(answer.errors as Record<string, string>)) {
+						expect(fields).toContain(field);
+						expect(message.startsWith(`${field}: `)).toBe(true);
+					}
+				}
+			}),
+			{ numRuns: 150, seed: 1818 }
+		);
+	}, 120_000);
 });
