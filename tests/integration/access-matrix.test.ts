@@ -328,6 +328,14 @@ const publicTool = (route: string, query: string): Row => ({
 	call: (c) => getApi(c, `${route}?${query}`)
 });
 
+/** A 36-1 edge log of three turns at a steady speed, posted as the signal check page posts it (multipart, field log). */
+const edgeLogForm = () => {
+	const times = Array.from({ length: 3 * 36 }, (_, k) => k).filter((k) => k % 36 !== 35);
+	const form = new FormData();
+	form.append('log', new Blob([['time_us', ...times.map((k) => String(1000 + 1000 * k))].join('\n')], { type: 'text/csv' }), 'log.csv');
+	return form;
+};
+
 const table: Row[] = [
 	// Pages
 	{ route: 'GET /', object: 'none', expect: e(200, 200, 200, 200, 200), call: (c) => page(c, '/') },
@@ -583,6 +591,12 @@ const table: Row[] = [
 	publicTool('/api/v1/timing-card.pdf', new URLSearchParams({ diameter: '150', curve: '1200:10, 3000:20, 6000:32' }).toString()),
 	publicTool('/api/v1/phasing', new URLSearchParams(engine).toString()),
 	publicTool('/api/v1/build-sheet.pdf', new URLSearchParams({ ...wheel, ...engine, buildName: 'Matrix single' }).toString()),
+	{
+		route: 'POST /api/v1/signal/log',
+		object: 'none (a public tool: reads the posted edge log, stores nothing)',
+		expect: e(200, 200, 200, 200, 200),
+		call: (c) => send(c, 'POST', '/api/v1/signal/log?teeth=36&missing=1', edgeLogForm())
+	},
 
 	// API: a workshop's builds
 	{

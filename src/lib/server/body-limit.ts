@@ -1,4 +1,5 @@
 import type { Handle } from '@sveltejs/kit';
+import { edgeLogLimits } from '$lib/trade/edge-log';
 import { refusal } from './refusal';
 
 /**
@@ -12,7 +13,11 @@ export const bodyLimits = { default: 64 * 1024 } as const;
 /** Routes that read larger bodies, with their own caps inside BODY_SIZE_LIMIT (photos/+server.ts). */
 const largeBodyRoutes = new Set(['/api/v1/builds/[buildId]/photos']);
 
-const tooLarge = (limit: number) => `body: at most ${limit / 1024} KB (${limit} bytes) for this request; only photo uploads take more`;
+/** Routes whose larger cap this handle keeps: the edge log's text, with a multipart form's framing. */
+const routeLimits: Record<string, number> = { '/api/v1/signal/log': edgeLogLimits.bytes + 64 * 1024 };
+
+const tooLarge = (limit: number) =>
+	`body: at most ${limit / 1024} KB (${limit} bytes) for this request${limit === bodyLimits.default ? '; only photo uploads take more' : ''}`;
 
 /**
  * Refuses a body over the route's limit with 413 before anything parses it: by its declared
@@ -23,7 +28,7 @@ export const bodyLimitHandle: Handle = async ({ event, resolve }) => {
 	const { request } = event;
 	if (!request.body || request.method === 'GET' || request.method === 'HEAD') return resolve(event);
 	if (event.route.id && largeBodyRoutes.has(event.route.id)) return resolve(event);
-	const limit = bodyLimits.default;
+	const limit = (event.route.id && routeLimits[event.route.id]) || bodyLimits.default;
 	const declared = Number(request.headers.get('content-length'));
 	// Left unread: drain-body.ts reads it to its end (no parsing) so the connection serves the next request.
 	if (Number.isFinite(declared) && declared > limit) return refusal(event, 413, tooLarge(limit), 'too-large');
