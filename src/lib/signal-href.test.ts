@@ -8,7 +8,13 @@ const wheel = { units: 'mm', teeth: '60', missing: '2', od: '150' };
 describe('signalHref', () => {
 	it('opens at the wheel as designed, the engine as profiled, naming the build and the design', () => {
 		const q = new URL(signalHref('b1', profile, { designId: 'd1', params: wheel }), 'http://x').searchParams;
-		expect([q.get('teeth'), q.get('missing'), q.get('layout'), q.get('toothAtTdc'), q.get('rpm')]).toEqual(['60', '2', 'single-4', '9', '9000']);
+		expect([q.get('teeth'), q.get('missing'), q.get('layout'), q.get('toothAtTdc'), q.get('rpm')]).toEqual([
+			'60',
+			'2',
+			'single-4',
+			'9',
+			'9000'
+		]);
 		expect([q.get('build'), q.get('design')]).toEqual(['b1', 'd1']);
 	});
 

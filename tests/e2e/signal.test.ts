@@ -52,8 +52,11 @@ describe('signal check saved from a build', () => {
 		const wheel = { units: 'mm', teeth: '36', missing: '1', od: '100', depth: '5', thickness: '3', bore: '20' };
 		expect((await me.send('POST', `/api/v1/builds/${buildId}/designs`, { name: 'Crank wheel', params: wheel })).status).toBe(201);
 		expect(
-			(await me.send('PUT', `/api/v1/builds/${buildId}/engine`, { params: { teeth: '36', missing: '1', toothAtTdc: '9', layout: 'single-4' } }))
-				.status
+			(
+				await me.send('PUT', `/api/v1/builds/${buildId}/engine`, {
+					params: { teeth: '36', missing: '1', toothAtTdc: '9', layout: 'single-4' }
+				})
+			).status
 		).toBeLessThan(300);
 
 		const context = await contextFor(browser, me.cookies, { viewport: { width: 1280, height: 900 } });

@@ -16,7 +16,13 @@ import { freshEmail, signUp, type Client } from '../support/client';
 const dir = mkdtempSync(join(tmpdir(), 'phasewright-signal-'));
 
 async function pdfText(res: Response, name: string): Promise<string> {
-	expect(res.status, await res.clone().text().catch(() => '')).toBe(200);
+	expect(
+		res.status,
+		await res
+			.clone()
+			.text()
+			.catch(() => '')
+	).toBe(200);
 	const file = join(dir, name);
 	writeFileSync(file, Buffer.from(await res.arrayBuffer()));
 	return execFileSync('pdftotext', ['-layout', file, '-'], { encoding: 'utf8' });
@@ -97,7 +103,10 @@ describe('a signal check kept in a build', () => {
 
 	it('prints the newest check’s sync margin per case on the build sheet', async () => {
 		// A second, newer check with a tighter rule: 2 / 1.8 − 1 = 11.1 % above, 1 − 1 / 1.8 = 44.4 % below: 11 %, tight.
-		const newer = await me.send<Saved>('POST', `/api/v1/builds/${buildId}/signal-checks`, { label: 'tight rule', params: { ...steady, ratio: '1.8' } });
+		const newer = await me.send<Saved>('POST', `/api/v1/builds/${buildId}/signal-checks`, {
+			label: 'tight rule',
+			params: { ...steady, ratio: '1.8' }
+		});
 		expect(newer.status, JSON.stringify(newer.body)).toBe(201);
 		const text = await pdfText(await me.get(`/api/v1/builds/${buildId}/build-sheet.pdf`), 'signal-sheet.pdf');
 		const lines = signalSection(text);

@@ -25,8 +25,7 @@ const shownUnits: Record<string, string> = { vAngle: '°', intervals: 'crank °'
 /** The field's label as the form shows it: the registry's, with its unit. */
 export function labelOf(name: string, units: Units): string {
 	const def = defOf(name);
-	const unit =
-		def?.kind === 'length' ? units : def && 'unit' in def && def.unit ? def.unit.trim().replace(/^°$/, '°') : shownUnits[name];
+	const unit = def?.kind === 'length' ? units : def && 'unit' in def && def.unit ? def.unit.trim().replace(/^°$/, '°') : shownUnits[name];
 	return `${def?.label ?? name}${unit ? ` (${unit})` : ''}`;
 }
 

@@ -75,7 +75,9 @@ describe('spacesChart', () => {
 	it('keeps the detection ratio on the scale when no space reaches it', () => {
 		expect(yMaxOf({ ratio: 3, spaces: [{ atDeg: 10, ratio: 1, gap: false }] })).toBe(3.5);
 		// An unreadable ratio (a zero space before) draws as nothing rather than breaking the scale.
-		expect(spacesChart({ cycleDeg: 360, spaces: [{ atDeg: 10, ratio: Infinity, gap: false }], ratio: 2, bands: [] }).bars[0]!.height).toBe(0);
+		expect(spacesChart({ cycleDeg: 360, spaces: [{ atDeg: 10, ratio: Infinity, gap: false }], ratio: 2, bands: [] }).bars[0]!.height).toBe(
+			0
+		);
 	});
 });
 

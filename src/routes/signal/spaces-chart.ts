@@ -79,7 +79,13 @@ export function spacesChart(input: ChartInput): SpacesChart {
 		// A compression that starts before the cycle's 0 wraps round to its end.
 		const from = ((b.fromDeg % cycleDeg) + cycleDeg) % cycleDeg;
 		const to = from + (b.toDeg - b.fromDeg);
-		const parts: [number, number][] = to <= cycleDeg ? [[from, to]] : [[from, cycleDeg], [0, to - cycleDeg]];
+		const parts: [number, number][] =
+			to <= cycleDeg
+				? [[from, to]]
+				: [
+						[from, cycleDeg],
+						[0, to - cycleDeg]
+					];
 		return parts.map(([a, z]) => ({ x: xOf(a, cycleDeg), width: xOf(z, cycleDeg) - xOf(a, cycleDeg), label: b.label }));
 	});
 	const step = yMax <= 3 ? 0.5 : yMax <= 6 ? 1 : 2;

@@ -264,6 +264,5 @@ function signalRows(signal: SheetSignal | null, row: (k: string, v: string) => v
 		return;
 	}
 	row('Saved', `${signal.label ? `“${printable(signal.label).text}”, ` : ''}${signal.date}`);
-	for (const c of signal.cases)
-		row(printable(`${c.name}, ${c.rpm} rpm`).text, `sync margin ${Math.round(c.marginPct)}%: ${c.verdict}`);
+	for (const c of signal.cases) row(printable(`${c.name}, ${c.rpm} rpm`).text, `sync margin ${Math.round(c.marginPct)}%: ${c.verdict}`);
 }
