@@ -17,7 +17,7 @@ const marginOf = async (page: import('playwright-core').Page, id: string) =>
 // 2.0× the space before and an ordinary space 1.0×, so with the detection ratio at 1.5 the margin is
 // 2 / 1.5 − 1 = 1 − 1 / 1.5 = 33 %. A swing per compression event can only take from that (a space
 // in the slow part of the cycle grows against the one before it), never add to it.
-const steadyCranking = 'teeth=36&missing=1&toothAtTdc=9&layout=single-4&ratio=1.5&crankingRpm=250&crankingSwing=0&crankingAccel=0';
+const steadyCranking = 'teeth=36&missing=1&toothAtTdc=9&layout=single-4&ratio=1.5&cranking=250&crankingSwing=0&crankingAccel=0';
 
 describe('signal check in Chromium (signed out)', () => {
 	it('answers each case, and a swing of the crank speed changes the cranking margin', async () => {
@@ -66,7 +66,7 @@ describe('signal check saved from a build', () => {
 		await page.waitForURL(/\/signal\?/);
 		expect(new URL(page.url()).searchParams.get('build')).toBe(buildId);
 		await page.locator('#signal-ratio').fill('1.5');
-		await page.locator('#signal-crankingRpm').fill('250');
+		await page.locator('#signal-cranking').fill('250');
 		await page.locator('#signal-crankingSwing').fill('0');
 		await page.locator('#signal-crankingAccel').fill('0');
 		await expect.poll(() => marginOf(page, 'cranking')).toBe('33%');

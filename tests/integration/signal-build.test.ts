@@ -43,7 +43,7 @@ const engine = { teeth: '36', missing: '1', toothAtTdc: '9', layout: 'single-4' 
 const steady = {
 	...engine,
 	ratio: '1.5',
-	crankingRpm: '250',
+	cranking: '250',
 	crankingSwing: '0',
 	crankingAccel: '0',
 	idleRpm: '1000',
@@ -52,7 +52,7 @@ const steady = {
 	freeRevRpm: '4000',
 	freeRevSwing: '0',
 	freeRevAccel: '0',
-	revLimitRpm: '8000',
+	rpm: '8000',
 	revLimitSwing: '0',
 	revLimitAccel: '0'
 };
@@ -97,7 +97,7 @@ describe('a signal check kept in a build', () => {
 		]);
 		const overview = (await me.json<Overview>(`/api/v1/builds/${buildId}`)).body;
 		expect(overview.signalChecks).toHaveLength(1);
-		expect(overview.signalChecks[0]).toMatchObject({ label: 'steady', params: { ratio: '1.5', crankingRpm: '250' } });
+		expect(overview.signalChecks[0]).toMatchObject({ label: 'steady', params: { ratio: '1.5', cranking: '250' } });
 		expect(overview.activity.find((a) => a.kind === 'signal')?.summary).toMatch(/^Signal check “steady”: every speed case finds the gap/);
 	});
 

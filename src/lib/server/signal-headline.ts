@@ -1,12 +1,12 @@
 import type { Checked } from '$lib/schemas/refusal';
-import { checkSignal } from '$lib/schemas/signal';
+import { checkSignalCases } from '$lib/schemas/signal-cases';
 import { signalCheck } from '$lib/trade/signal';
 import { syncVerdict } from '$lib/trade/sync-verdict';
 import type { SignalCaseHeadline } from './db/schema';
 
-/** Each speed case's sync margin, by the check GET /api/v1/signal and the page run: what a saved check keeps. */
+/** Each speed case's sync margin, by the check the page runs (the API's, with each case as given): what a saved check keeps. */
 export function signalHeadline(params: Partial<Record<string, string>>): Checked<SignalCaseHeadline[]> {
-	const checked = checkSignal(params);
+	const checked = checkSignalCases(params);
 	if (!checked.ok) return checked;
 	const result = signalCheck(checked.value.input);
 	return {
@@ -14,8 +14,8 @@ export function signalHeadline(params: Partial<Record<string, string>>): Checked
 		value: result.cases.map((c) => ({
 			name: c.case.label,
 			rpm: Math.round(c.case.rpm),
-			marginPct: Math.round(c.margin * 1000) / 10,
-			verdict: syncVerdict(c.margin)
+			marginPct: Math.round(c.syncMargin * 1000) / 10,
+			verdict: syncVerdict(c.syncMargin)
 		}))
 	};
 }

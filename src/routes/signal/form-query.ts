@@ -1,6 +1,7 @@
 import { phasingParams } from '$lib/schemas/phasing';
 import { givenParams, type ParamDef, type Params } from '$lib/schemas/registry';
 import { signalParams } from '$lib/schemas/signal';
+import { caseParams, signalCaseNames } from '$lib/schemas/signal-cases';
 import type { Units } from '$lib/trade/units';
 
 // The signal page's form as flat strings named like GET /api/v1/signal, to and from the address
@@ -9,7 +10,7 @@ import type { Units } from '$lib/trade/units';
 /** A new check starts from a 36-1 on a four-stroke single with tooth 9 at TDC: an example, not what the API assumes. */
 const example: Params = { teeth: '36', missing: '1', layout: 'single-4', stroke: '4', toothAtTdc: '9' };
 
-export const formKeys: readonly string[] = signalParams.names;
+export const formKeys: readonly string[] = signalCaseNames;
 
 /** Every field of the form, empty where the registry has no default. */
 export function formStart(): Params {
@@ -17,7 +18,7 @@ export function formStart(): Params {
 	return { ...blank, ...signalParams.defaults('mm'), ...example };
 }
 
-export const defOf = (name: string): ParamDef | undefined => signalParams.get(name) ?? phasingParams.get(name);
+export const defOf = (name: string): ParamDef | undefined => caseParams.get(name) ?? signalParams.get(name) ?? phasingParams.get(name);
 
 /** The unit shown after a field's label, where the registry's kind does not carry one. */
 const shownUnits: Record<string, string> = { vAngle: '°', intervals: 'crank °' };
@@ -48,11 +49,3 @@ export function formFromAddress(query: URLSearchParams): Params {
 	if (query.has('intervals') && !query.has('layout')) params.layout = 'custom';
 	return params;
 }
-
-/** Each speed case's three fields, in the order the form shows them. */
-export const caseFields: readonly { id: string; title: string; rpm: string; swing: string; accel: string }[] = [
-	{ id: 'cranking', title: 'Cranking', rpm: 'crankingRpm', swing: 'crankingSwing', accel: 'crankingAccel' },
-	{ id: 'idle', title: 'Idle', rpm: 'idleRpm', swing: 'idleSwing', accel: 'idleAccel' },
-	{ id: 'free-rev', title: 'Free rev', rpm: 'freeRevRpm', swing: 'freeRevSwing', accel: 'freeRevAccel' },
-	{ id: 'rev-limit', title: 'Rev limit', rpm: 'revLimitRpm', swing: 'revLimitSwing', accel: 'revLimitAccel' }
-];

@@ -1,9 +1,11 @@
 import { byField, refusal, type Checked, type Refusal } from '$lib/schemas/refusal';
 import type { Params } from '$lib/schemas/registry';
-import { checkSignal, type ParsedSignal } from '$lib/schemas/signal';
+import type { ParsedSignal } from '$lib/schemas/signal';
+import { caseFields, checkSignalCases } from '$lib/schemas/signal-cases';
 import { layouts } from '$lib/trade/engine';
 import { patternName } from '$lib/trade/pattern';
-import { sensorTrace, signalCheck, type SignalCheck } from '$lib/trade/signal';
+import { defaultCases, signalCheck, type SignalCheck } from '$lib/trade/signal';
+import { sensorTrace } from '$lib/trade/signal-sensor';
 import type { Units } from '$lib/trade/units';
 import type { EngineForm } from '$lib/components/engine/tool-form';
 import { defOf, formStart, labelOf, signalSent } from './form-query';
@@ -48,7 +50,7 @@ export class SignalPage implements EngineForm {
 	readonly query = $derived(new URLSearchParams(this.sent).toString());
 
 	readonly outcome: Outcome = $derived.by(() => {
-		const checked = safely(() => checkSignal(this.sent));
+		const checked = safely(() => checkSignalCases(this.sent));
 		if (!checked.ok) return checked;
 		try {
 			return { ok: true, parsed: checked.value, result: signalCheck(checked.value.input) };
@@ -73,14 +75,35 @@ export class SignalPage implements EngineForm {
 	/** The case the pictures show: the one chosen, else the tightest. */
 	readonly shown = $derived.by(() => {
 		const cases = this.result?.cases ?? [];
-		return cases.find((c) => c.case.id === this.chosenCase) ?? [...cases].sort((a, b) => a.margin - b.margin)[0] ?? null;
+		return cases.find((c) => c.case.id === this.chosenCase) ?? [...cases].sort((a, b) => a.syncMargin - b.syncMargin)[0] ?? null;
 	});
 
 	/** The sensor's output over the shown case's first wheel turn and a little more, so the gap shows once whole. */
 	readonly trace: TraceSample[] = $derived.by(() => {
 		const { input, shown } = this;
 		if (!input || !shown) return [];
-		return sensorTrace(input, shown.case).map((s) => ({ tMs: s.t * 1000, level: s.level }));
+		return sensorTrace(input, shown.case, 1).map((s) => ({ tMs: s.t * 1000, level: s.v }));
+	});
+
+	/** What an empty case field stands for: the default case's value (defaultCases, from memory), shown as the placeholder. */
+	readonly caseDefaults = $derived.by(() => {
+		const input = this.input;
+		if (!input) return {} as Record<string, string>;
+		const cranking = input.cases.find((c) => c.id === 'cranking')?.rpm ?? 200;
+		const limit = input.cases.find((c) => c.id === 'rev-limit')?.rpm ?? 8000;
+		const defaults = defaultCases(input, cranking, limit);
+		return Object.fromEntries(
+			caseFields.flatMap((f) => {
+				const c = defaults.find((d) => d.id === f.id);
+				return c
+					? [
+							[f.rpm, String(c.rpm)],
+							[f.swing, String(c.swingPct)],
+							[f.accel, String(c.accelRpmPerS)]
+						]
+					: [];
+			})
+		) as Record<string, string>;
 	});
 
 	/** The wheel's pattern as POST /api/v1/signal/log takes it, to read a recorded log against. */
