@@ -10,7 +10,7 @@
 //
 // Because the speed is a product of a function of time and one of angle, dθ/dt = ω̄(t)·s(θ)
 // separates: ω̄₀·t + ½·α·t² = G(θ) with G(θ) = ∫₀^θ dφ / s(φ), so t follows from G by the
-// quadratic formula. G is tabled once per cycle (Gauss–Legendre on half-degree cells) and read
+// quadratic formula. G is tabled once per cycle (Gauss–Legendre on one-degree cells) and read
 // between the table's points by cubic Hermite (its slope 1/s is known exactly).
 import { cycleDeg, firingTdcs, type Stroke } from './engine';
 
@@ -87,23 +87,44 @@ export interface CrankMotion {
 const gaussX = [-Math.sqrt(3 / 5), 0, Math.sqrt(3 / 5)];
 const gaussW = [5 / 9, 8 / 9, 5 / 9];
 
-export function crankMotion(profile: EngineProfile, speed: MeanSpeed): CrankMotion {
+/** The swing's shape sampled once per engine profile, for every speed case on it: at each cell's ends and Gauss points. */
+export interface SwingTable {
+	cycle: number;
+	/** Cell width, crank degrees. */
+	h: number;
+	atNodes: Float64Array;
+	atGauss: Float64Array;
+}
+
+export function swingTable(profile: EngineProfile): SwingTable {
 	const cycle = cycleDeg(profile.stroke);
+	const u = swingShape(profile);
+	// One-degree cells: the shape varies over tens of degrees, so the Hermite reading between the
+	// nodes stays far inside a thousandth of a degree.
+	const cells = cycle;
+	const h = cycle / cells;
+	const atNodes = new Float64Array(cells + 1);
+	const atGauss = new Float64Array(cells * 3);
+	for (let k = 0; k <= cells; k++) atNodes[k] = u(k * h);
+	for (let k = 0; k < cells; k++) for (let j = 0; j < 3; j++) atGauss[k * 3 + j] = u(k * h + (h / 2) * (1 + gaussX[j]!));
+	return { cycle, h, atNodes, atGauss };
+}
+
+export function crankMotion(profile: EngineProfile, speed: MeanSpeed, table: SwingTable = swingTable(profile)): CrankMotion {
+	const { cycle, h } = table;
+	const cells = table.atNodes.length - 1;
 	const a = speed.swingPct / 100;
 	const u = swingShape(profile);
 	const s = (theta: number) => 1 + a * u(theta);
 	const w0 = speed.rpm * 6; // deg/s
 	const alpha = speed.accelRpmPerS * 6; // deg/s²
 
-	// G tabled on half-degree cells over one cycle (720 and 360 divide evenly).
-	const cells = Math.round(cycle * 2);
-	const h = cycle / cells;
 	const g = new Float64Array(cells + 1);
 	const slope = new Float64Array(cells + 1);
-	for (let k = 0; k <= cells; k++) slope[k] = 1 / s(k * h);
+	for (let k = 0; k <= cells; k++) slope[k] = 1 / (1 + a * table.atNodes[k]!);
 	for (let k = 0; k < cells; k++) {
 		let sum = 0;
-		for (let j = 0; j < 3; j++) sum += gaussW[j]! / s(k * h + (h / 2) * (1 + gaussX[j]!));
+		for (let j = 0; j < 3; j++) sum += gaussW[j]! / (1 + a * table.atGauss[k * 3 + j]!);
 		g[k + 1] = g[k]! + (sum * h) / 2;
 	}
 	const perCycle = g[cells]!;

@@ -5,7 +5,7 @@
 // space after it is shorter than `afterRatio` times the gap) is run over the spaces between the
 // edges the ECU reads. Angles: crank degrees after cylinder 1's firing TDC; wheel degrees after
 // tooth 0's leading edge (tooth 0 is the first after the gap), as in phasing.ts.
-import { compressionEvents, crankMotion, swingShape, type CrankMotion } from './crank-speed';
+import { compressionEvents, crankMotion, swingShape, swingTable, type CrankMotion } from './crank-speed';
 import { cycleDeg, firingTdcs } from './engine';
 import type { PhasingInput } from './phasing';
 import { gapsOf, pitchDeg, teethOf } from './pattern';
@@ -41,7 +41,10 @@ export interface SensorSpec {
 	thresholdVolts?: number;
 }
 
-export type SignalInput = Pick<PhasingInput, 'pattern' | 'duty' | 'mount' | 'stroke' | 'intervals' | 'toothAtTdc' | 'edge'> & {
+/** The wheel, its clocking and the engine: the phasing check's fields. */
+export type WheelOnEngine = Pick<PhasingInput, 'pattern' | 'duty' | 'mount' | 'stroke' | 'intervals' | 'toothAtTdc' | 'edge'>;
+
+export type SignalInput = WheelOnEngine & {
 	cases: SpeedCase[];
 	rule: GapRule;
 	/** Engine cycles simulated (each case). */
@@ -84,7 +87,7 @@ export interface CaseResult {
 	 * `afterRatio`, a gap also needs 1 − (space after / gap) / afterRatio and an ordinary space is safe by
 	 * the better of its two terms. Negative: the rule fails somewhere.
 	 */
-	margin: number;
+	syncMargin: number;
 	/** The smallest ratio a gap showed (NaN without a gap). */
 	gapRatioMin: number;
 	/** The largest ratio an ordinary space showed. */
@@ -112,10 +115,10 @@ export interface SignalCheck {
 	compression: CompressionEvent[];
 	cases: CaseResult[];
 	/** The worst margin over the cases with the wheel clocked so `clockingDeg` (wheel degrees, toothAtTdc × pitch) sits at the sensor at TDC. */
-	sweep: { clockingDeg: number; margin: number }[];
-	current: { toothAtTdc: number; margin: number };
+	sweep: { clockingDeg: number; syncMargin: number }[];
+	current: { toothAtTdc: number; syncMargin: number };
 	/** The clocking with the largest margin; `keywayShiftDeg`: wheel degrees to add to the designer's keyway angle for it. */
-	best: { toothAtTdc: number; margin: number; keywayShiftDeg: number };
+	best: { toothAtTdc: number; syncMargin: number; keywayShiftDeg: number };
 	sensor: {
 		kind: 'hall' | 'vr';
 		/** The fastest case's mean speed, rpm, and the tooth pitch frequency there, Hz (N × wheel rpm / 60). */
@@ -160,7 +163,7 @@ interface Frame {
 	events: CompressionEvent[];
 }
 
-function frameOf(input: SignalInput): Frame {
+function frameOf(input: Pick<SignalInput, 'pattern' | 'mount' | 'stroke' | 'intervals'>): Frame {
 	const factor = input.mount === 'cam' ? 2 : 1;
 	const cycle = cycleDeg(input.stroke);
 	const wheelTurn = 360 * factor;
@@ -209,100 +212,135 @@ interface Verdict {
 }
 
 /**
- * The rule run over the spaces that end inside the windows (crank degrees). `thetas` are the read
- * edges' crank angles in order, starting at least two edges before the first window and ending at
- * least one after the last (the space before and after each space judged).
+ * The read edges of one clocking: their crank angles within a wheel turn, ascending. The n-th edge
+ * of the run (any whole n, negative before the start) is at `at[n mod count]` plus whole turns.
+ */
+function readTurn(readEdges: readonly WheelEdge[], clockingDeg: number, f: Frame): Float64Array {
+	const at = new Float64Array(readEdges.length);
+	for (let i = 0; i < readEdges.length; i++) at[i] = norm((readEdges[i]!.wheelDeg - clockingDeg) * f.factor, f.wheelTurn);
+	return at.sort();
+}
+
+/**
+ * The rule run over the spaces that end inside the windows (crank degrees), each judged with the
+ * space before it and the one after it. Before the start the speed holds steady (crank-speed.ts),
+ * so the first spaces of the run have their space before them.
  */
 function judge(
-	thetas: Float64Array,
-	motion: CrankMotion,
+	at: Float64Array,
+	timeAt: (thetaDeg: number) => number,
 	rule: GapRule,
 	f: Frame,
 	windows: readonly [number, number][],
 	collect?: Space[]
 ): Verdict {
 	const gapSpan = 1.5 * f.pitch * f.factor;
-	const v: Verdict = {
-		margin: Infinity,
-		gapRatioMin: Infinity,
-		normalRatioMax: -Infinity,
-		worst: { crankDeg: 0, cylinder: null, what: 'gap-too-short' },
-		missed: 0,
-		falses: 0
+	const count = at.length;
+	const thetaOf = (n: number) => {
+		const turn = Math.floor(n / count);
+		return at[n - turn * count]! + turn * f.wheelTurn;
 	};
+	let margin = Infinity;
+	let gapRatioMin = Infinity;
+	let normalRatioMax = -Infinity;
+	let missed = 0;
+	let falses = 0;
+	let worstTheta = 0;
+	let worstGap = true;
 	const after = rule.afterRatio;
 	for (const [from, to] of windows) {
-		let j = 2;
-		while (j < thetas.length - 1 && thetas[j]! < from) j++;
-		let t0 = motion.timeAt(thetas[j - 2]!);
-		let t1 = motion.timeAt(thetas[j - 1]!);
-		let t2 = motion.timeAt(thetas[j]!);
-		for (; j < thetas.length - 1 && thetas[j]! < to; j++) {
-			const t3 = motion.timeAt(thetas[j + 1]!);
+		// The first edge at or after `from`.
+		let n = Math.floor(from / f.wheelTurn) * count;
+		while (thetaOf(n) < from) n++;
+		let th1 = thetaOf(n - 1);
+		let th2 = thetaOf(n);
+		let t0 = timeAt(thetaOf(n - 2));
+		let t1 = timeAt(th1);
+		let t2 = timeAt(th2);
+		for (; th2 < to; n++) {
+			const th3 = thetaOf(n + 1);
+			const t3 = timeAt(th3);
 			const space = t2 - t1;
 			const ratio = space / (t1 - t0);
 			const next = (t3 - t2) / space;
-			const isGap = thetas[j]! - thetas[j - 1]! > gapSpan;
+			const isGap = th2 - th1 > gapSpan;
 			if (Number.isFinite(ratio)) {
 				const found = ratio > rule.ratio && (after === undefined || next < after);
 				let term: number;
 				if (isGap) {
 					term = Math.min(ratio / rule.ratio - 1, after === undefined ? Infinity : 1 - next / after);
-					v.gapRatioMin = Math.min(v.gapRatioMin, ratio);
-					if (!found) v.missed++;
+					if (ratio < gapRatioMin) gapRatioMin = ratio;
+					if (!found) missed++;
 				} else {
 					term = Math.max(1 - ratio / rule.ratio, after === undefined || !Number.isFinite(next) ? -Infinity : next / after - 1);
-					v.normalRatioMax = Math.max(v.normalRatioMax, ratio);
-					if (found) v.falses++;
+					if (ratio > normalRatioMax) normalRatioMax = ratio;
+					if (found) falses++;
 				}
-				if (term < v.margin) {
-					v.margin = term;
-					v.worst = {
-						crankDeg: norm(thetas[j]!, f.cycle),
-						cylinder: cylinderAt(thetas[j]!, f),
-						what: isGap ? 'gap-too-short' : 'space-too-long'
-					};
+				if (term < margin) {
+					margin = term;
+					worstTheta = th2;
+					worstGap = isGap;
 				}
 				collect?.push({
-					crankDeg: round(norm(thetas[j]!, f.cycle), 3),
+					crankDeg: round(norm(th2, f.cycle), 3),
 					ms: round(space * 1000, 4),
 					ratio: round(ratio),
 					isGap,
-					cylinder: cylinderAt(thetas[j]!, f)
+					cylinder: cylinderAt(th2, f)
 				});
 			}
+			th1 = th2;
+			th2 = th3;
 			t0 = t1;
 			t1 = t2;
 			t2 = t3;
 		}
 	}
-	if (v.gapRatioMin === Infinity) v.gapRatioMin = NaN;
-	return v;
+	return {
+		margin,
+		gapRatioMin: gapRatioMin === Infinity ? NaN : gapRatioMin,
+		normalRatioMax,
+		worst: {
+			crankDeg: norm(worstTheta, f.cycle),
+			cylinder: cylinderAt(worstTheta, f),
+			what: worstGap ? 'gap-too-short' : 'space-too-long'
+		},
+		missed,
+		falses
+	};
 }
 
-/** The read edges' crank angles for one clocking, with room before and after the simulated span. */
-function readThetas(readEdges: readonly WheelEdge[], clockingDeg: number, f: Frame, endDeg: number): Float64Array {
-	// Two wheel turns before the start and one past the end: even a one-tooth wheel has its spaces either side.
-	return Float64Array.from(edgeRun(readEdges, clockingDeg, f, -2 * f.wheelTurn, endDeg + f.wheelTurn), (e) => e.theta);
+/**
+ * The motion's times read once on a grid of crank angles (`origin` + i·`gridStep`) over a window
+ * with room either side: every edge of a clocking on the sweep's grid lies on it, so each clocking
+ * reads its edges' times instead of working them out again.
+ */
+function timeGrid(motion: CrankMotion, origin: number, gridStep: number, from: number, to: number): (thetaDeg: number) => number {
+	const i0 = Math.floor((from - origin) / gridStep) - 1;
+	const i1 = Math.ceil((to - origin) / gridStep) + 1;
+	const table = new Float64Array(i1 - i0 + 1);
+	for (let i = i0; i <= i1; i++) table[i - i0] = motion.timeAt(origin + i * gridStep);
+	return (theta) => table[Math.round((theta - origin) / gridStep) - i0] ?? motion.timeAt(theta);
 }
 
 export function signalCheck(input: SignalInput): SignalCheck {
 	const f = frameOf(input);
 	const profile = { stroke: input.stroke, intervals: input.intervals };
-	const motions = input.cases.map((c) => crankMotion(profile, c));
+	const table = swingTable(profile);
+	const motions = input.cases.map((c) => crankMotion(profile, c, table));
 	const readEdges = wheelEdges(input).filter((e) => e.kind === input.edge);
 	const end = input.cycles * f.cycle;
 	const clocking0 = norm(input.toothAtTdc * f.pitch, 360);
 
-	const thetas0 = readThetas(readEdges, clocking0, f, end);
+	const turn0 = readTurn(readEdges, clocking0, f);
 	const cases: CaseResult[] = input.cases.map((c, i) => {
 		const spaces: Space[] = [];
 		// The chart's cycle: the first, judged on its own for its spaces (the verdict is the whole run's).
-		judge(thetas0, motions[i]!, input.rule, f, [[0, Math.min(f.period, end)]], spaces);
-		const v = judge(thetas0, motions[i]!, input.rule, f, [[0, end]]);
+		judge(turn0, motions[i]!.timeAt, input.rule, f, [[0, Math.min(f.period, end)]], spaces);
+		const v = judge(turn0, motions[i]!.timeAt, input.rule, f, [[0, end]]);
 		return {
 			case: c,
-			margin: round(v.margin),
+			syncMargin: round(v.margin),
 			gapRatioMin: round(v.gapRatioMin),
 			normalRatioMax: round(v.normalRatioMax),
 			worst: { ...v.worst, crankDeg: round(v.worst.crankDeg, 2) },
@@ -311,36 +349,49 @@ export function signalCheck(input: SignalInput): SignalCheck {
 			spaces
 		};
 	});
-	const worstOf = (clockingDeg: number, windows: readonly [number, number][]) => {
-		const thetas = readThetas(readEdges, clockingDeg, f, end);
-		return Math.min(...motions.map((m) => judge(thetas, m, input.rule, f, windows).margin));
-	};
-	const fullWindow: [number, number][] = [[0, end]];
-	const currentMargin = Math.min(...cases.map((c) => c.margin));
+	const fullRun: [number, number][] = [[0, end]];
+	const currentMargin = Math.min(...cases.map((c) => c.syncMargin));
 
-	// The sweep reads the first and the last period: with a steady speed every period is alike, and an
-	// acceleration weighs most at the lowest mean speed, which is at one end of the run.
-	const steady = input.cases.every((c) => c.accelRpmPerS === 0);
-	const sweepWindows: [number, number][] =
-		steady || end <= 2 * f.period
-			? [[0, Math.min(end, steady ? f.period : end)]]
-			: [
-					[0, f.period],
-					[end - f.period, end]
-				];
-	const step = Math.min(1, f.pitch / 4);
+	// The sweep judges one period per case: with a steady speed every period is alike, and an
+	// acceleration weighs most where the mean speed is lowest, the first period speeding up and the
+	// last slowing down. The best it finds is then judged over the whole run, like the current one.
+	// The sweep's step divides the pitch (a quarter, or finer so that steps stay at most 2° apart; an
+	// even count, so an extra tooth's half pitch falls on it too): the read edges of every clocking
+	// then lie on one grid of crank angles, whose times each case works out once.
+	const perPitch = f.pitch > 8 ? 2 * Math.ceil(f.pitch / 4) : Math.max(1, Math.min(4, Math.floor(2 * f.pitch)));
+	const step = f.pitch / perPitch;
+	const origin = (readEdges[0]?.wheelDeg ?? 0) * f.factor;
+	const span = Math.min(f.period, end);
+	const lead = 2 * f.wheelTurn;
+	const sweepTimes = input.cases.map((c, i) => {
+		const [from, to] = c.accelRpmPerS >= 0 ? [0, span] : [end - span, end];
+		return {
+			window: [[from, to]] as [number, number][],
+			timeAt: timeGrid(motions[i]!, origin, step * f.factor, from - lead, to + f.wheelTurn)
+		};
+	});
+	const worstOf = (clockingDeg: number, whole: boolean) => {
+		const at = readTurn(readEdges, clockingDeg, f);
+		let worst = Infinity;
+		for (let i = 0; i < motions.length; i++) {
+			const m = whole
+				? judge(at, motions[i]!.timeAt, input.rule, f, fullRun)
+				: judge(at, sweepTimes[i]!.timeAt, input.rule, f, sweepTimes[i]!.window);
+			worst = Math.min(worst, m.margin);
+		}
+		return worst;
+	};
 	const sweep: SignalCheck['sweep'] = [];
-	for (let k = 0; k * step < 360 - 1e-9; k++)
-		sweep.push({ clockingDeg: round(k * step, 3), margin: round(worstOf(k * step, sweepWindows)) });
+	for (let k = 0; k * step < 360 - 1e-9; k++) sweep.push({ clockingDeg: round(k * step, 3), syncMargin: round(worstOf(k * step, false)) });
 
 	// The best of the sweep, judged over the whole run like the current one; the current stays unless beaten.
-	let best = { toothAtTdc: input.toothAtTdc, margin: currentMargin, keywayShiftDeg: 0 };
-	const ranked = [...sweep].sort((a, b) => b.margin - a.margin).slice(0, 3);
+	let best = { toothAtTdc: input.toothAtTdc, syncMargin: currentMargin, keywayShiftDeg: 0 };
+	const ranked = [...sweep].sort((a, b) => b.syncMargin - a.syncMargin).slice(0, 3);
 	for (const candidate of ranked) {
-		const margin = round(worstOf(candidate.clockingDeg, fullWindow));
-		if (margin > best.margin + 1e-9) {
+		const margin = round(worstOf(candidate.clockingDeg, true));
+		if (margin > best.syncMargin + 1e-9) {
 			const shift = norm(candidate.clockingDeg - clocking0 + 180, 360) - 180;
-			best = { toothAtTdc: round(candidate.clockingDeg / f.pitch, 3), margin, keywayShiftDeg: round(shift, 3) };
+			best = { toothAtTdc: round(candidate.clockingDeg / f.pitch, 3), syncMargin: margin, keywayShiftDeg: round(shift, 3) };
 		}
 	}
 
@@ -349,7 +400,7 @@ export function signalCheck(input: SignalInput): SignalCheck {
 		compression: f.events,
 		cases,
 		sweep,
-		current: { toothAtTdc: input.toothAtTdc, margin: currentMargin },
+		current: { toothAtTdc: input.toothAtTdc, syncMargin: currentMargin },
 		best,
 		sensor: sensorOf(input, motions, end),
 		warnings: warningsOf(input, cases, best, motions, end)
@@ -394,23 +445,23 @@ function warningsOf(input: SignalInput, cases: CaseResult[], best: SignalCheck['
 		warnings.push({ code: 'no-gap', message: 'This wheel has no gap: a rule that looks for a long space cannot find its place on it.' });
 	}
 	for (const c of cases) {
-		if (c.margin < 0) {
+		if (c.syncMargin < 0) {
 			const what = c.worst.what === 'gap-too-short' ? 'the gap does not stand out' : 'an ordinary space looks like the gap';
 			warnings.push({
 				code: 'no-sync',
 				message: `${c.case.label}: ${what} at ${c.worst.crankDeg}° after cylinder 1’s TDC${cylinderWords(c.worst.cylinder)}; the ECU loses or never finds its sync there.`
 			});
-		} else if (c.margin < 0.1) {
+		} else if (c.syncMargin < 0.1) {
 			warnings.push({
 				code: 'thin-margin',
-				message: `${c.case.label}: a sync margin of ${pct(c.margin)} leaves little for sensor noise, runout and a harder start than modelled (from memory, keep it above 10 %).`
+				message: `${c.case.label}: a sync margin of ${pct(c.syncMargin)} leaves little for sensor noise, runout and a harder start than modelled (from memory, keep it above 10 %).`
 			});
 		}
 	}
 	if (best.keywayShiftDeg !== 0) {
 		warnings.push({
 			code: 'better-clocking',
-			message: `Clocked with tooth ${best.toothAtTdc} at the sensor at TDC (the keyway ${best.keywayShiftDeg}° round on the wheel), the worst case keeps a margin of ${pct(best.margin)}.`
+			message: `Clocked with tooth ${best.toothAtTdc} at the sensor at TDC (the keyway ${best.keywayShiftDeg}° round on the wheel), the worst case keeps a sync margin of ${pct(best.syncMargin)}.`
 		});
 	}
 	motions.forEach((m, i) => {
@@ -444,8 +495,8 @@ function warningsOf(input: SignalInput, cases: CaseResult[], best: SignalCheck['
  * Every tooth edge (leading and trailing) reaching the sensor over `cycles` engine cycles from
  * cylinder 1's TDC, with its time in the speed case given.
  */
-export function toothEdges(input: Omit<SignalInput, 'cases' | 'rule' | 'sensor' | 'cycles'>, speed: SpeedCase, cycles = 1): ToothEdge[] {
-	const f = frameOf({ ...input, cases: [], rule: { ratio: 2 }, cycles, sensor: { kind: 'hall' } });
+export function toothEdges(input: WheelOnEngine, speed: SpeedCase, cycles = 1): ToothEdge[] {
+	const f = frameOf(input);
 	const motion = crankMotion({ stroke: input.stroke, intervals: input.intervals }, speed);
 	const clocking = norm(input.toothAtTdc * f.pitch, 360);
 	return edgeRun(wheelEdges(input), clocking, f, 0, cycles * f.cycle).map(({ edge, theta }, index) => ({
