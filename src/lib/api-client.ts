@@ -62,3 +62,20 @@ export function splitRefusal(
 	}
 	return { errors, alerts };
 }
+
+/** A file sent as the request's whole body (a CSV to read, `text/csv`), answered like `callApi`. */
+export async function postFile(path: string, file: Blob, contentType: string, signal?: AbortSignal): Promise<ApiAnswer> {
+	let res: Response;
+	try {
+		res = await fetch(path, { method: 'POST', signal, headers: { accept: 'application/json', 'content-type': contentType }, body: file });
+	} catch (err) {
+		if (err instanceof DOMException && err.name === 'AbortError') throw err;
+		return { ok: false, status: 0, body: { message: 'The server could not be reached: check the connection and try again.' } };
+	}
+	const text = await res.text();
+	try {
+		return { ok: res.ok, status: res.status, body: text ? (JSON.parse(text) as ApiBody) : {} };
+	} catch {
+		return { ok: res.ok, status: res.status, body: { message: `The server answered ${res.status} without a reason.` } };
+	}
+}

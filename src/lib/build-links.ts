@@ -93,3 +93,15 @@ export const tdcHref = (buildId: string) => toolHref('/tdc', { build: buildId })
 /** The build sheet of the build's wheel (the same design the steps follow, named so the sheet and the steps agree). */
 export const buildSheetHref = (buildId: string, wheel: HeadWheel | null) =>
 	toolHref(`/api/v1/builds/${buildId}/build-sheet.pdf`, { design: wheel?.designId ?? '' });
+
+/**
+ * The signal check for a build: the engine profile with the head revision's wheel over it (as the
+ * phasing check opens), the speed cases, gap rule and sensor of the newest signal check saved in the
+ * build kept where the profile and the wheel do not say otherwise; saving goes back into the build.
+ */
+export const signalHref = (buildId: string, profile: Params | null, wheel: HeadWheel | null, newestCheck: Params | null = null) =>
+	toolHref('/signal', {
+		...phasingFromBuild({ ...(newestCheck ?? {}), ...(profile ?? {}) }, wheel?.params ?? null),
+		build: buildId,
+		design: wheel?.designId ?? ''
+	});

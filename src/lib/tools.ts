@@ -5,7 +5,7 @@
  */
 export interface Tool {
 	/** Stable key, also used for test ids. */
-	id: 'wheel' | 'tape' | 'tdc' | 'phasing' | 'builds';
+	id: 'wheel' | 'tape' | 'tdc' | 'phasing' | 'signal' | 'builds';
 	href: `/${string}`;
 	title: string;
 	/** One sentence, in the trade's words. */
@@ -42,6 +42,14 @@ export const tools: readonly Tool[] = [
 		title: 'Phasing check',
 		summary:
 			'Place the sensor, get the first-tooth offset for the ECU, and check gap clearance and tooth pitch frequency at the rev limit.',
+		ready: true
+	},
+	{
+		id: 'signal',
+		href: '/signal',
+		title: 'Signal check',
+		summary:
+			'Simulate the sensor over the engine’s speed swings, cranking to the rev limit: will the ECU find the gap, and where is it best placed?',
 		ready: true
 	},
 	{

@@ -98,6 +98,8 @@ const signedOut: Check[] = [
 	{ path: '/phasing' },
 	{ path: '/phasing?teeth=36&missing=1&toothAtTdc=9&layout=twin-270&rpm=9000', note: 'a checked twin, with its diagram' },
 	{ path: '/phasing?teeth=36&missing=1&toothAtTdc=99', note: 'a refused tooth' },
+	{ path: '/signal' },
+	{ path: '/signal?teeth=36&missing=1&toothAtTdc=9&ratio=0', note: 'a refused detection ratio' },
 	{ path: '/signin' },
 	{
 		path: '/signin',

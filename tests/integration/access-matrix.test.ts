@@ -43,6 +43,8 @@ interface Ids {
 	design: string;
 	tdc: string;
 	tape: string;
+	/** A signal check kept in the build. */
+	signal: string;
 	photo: string;
 	/** A cutting package sent from the build. */
 	package: string;
@@ -51,7 +53,7 @@ interface Ids {
 	/** A member who is neither the caller nor the workshop's only owner. */
 	member: string;
 }
-type IdKind = 'workshop' | 'build' | 'design' | 'tdc' | 'tape' | 'photo' | 'package' | 'invitation' | 'member';
+type IdKind = 'workshop' | 'build' | 'design' | 'tdc' | 'tape' | 'signal' | 'photo' | 'package' | 'invitation' | 'member';
 
 interface Answer {
 	status: number;
@@ -109,6 +111,7 @@ const unique = (label: string) => `${label} ${Date.now().toString(36)}-${counter
 
 const wheel = { units: 'mm', teeth: '36', missing: '1', od: '100', depth: '5', thickness: '3', bore: '20' };
 const engine = { teeth: '36', missing: '1', toothAtTdc: '9', layout: 'twin-270', rpm: '9000' };
+const signalParams = { teeth: '36', missing: '1', toothAtTdc: '9', layout: 'twin-270' };
 const wheelQuery = new URLSearchParams(wheel).toString();
 
 async function head(designId: string) {
@@ -230,6 +233,10 @@ async function shop(word: string, photo: { bytes: Uint8Array }): Promise<Shop> {
 		}),
 		'tape'
 	);
+	const signal = await created(
+		owner.send<{ id: string }>('POST', `/api/v1/builds/${build}/signal-checks`, { label: `${word} signal ${tag}`, params: signalParams }),
+		'signal check'
+	);
 	const photoId = await created(
 		owner.send<{ id: string }>('POST', `/api/v1/builds/${build}/photos`, photoForm(photo.bytes, names.photo)),
 		'photo'
@@ -249,6 +256,7 @@ async function shop(word: string, photo: { bytes: Uint8Array }): Promise<Shop> {
 			design,
 			tdc,
 			tape,
+			signal,
 			photo: photoId,
 			package: cutting,
 			invitation: invitation.id,
@@ -267,6 +275,7 @@ async function shop(word: string, photo: { bytes: Uint8Array }): Promise<Shop> {
 			ownerEmail,
 			`${word} tdc ${tag}`,
 			`${word} tape ${tag}`,
+			`${word} signal ${tag}`,
 			`${word} engine ${tag}`
 		]
 	};
@@ -306,6 +315,12 @@ const fresh = {
 		tape: await created(
 			a.owner.send<{ id: string }>('POST', `/api/v1/builds/${ids.build}/tapes`, { params: { units: 'mm', diameter: '90' } }),
 			'throwaway tape'
+		)
+	}),
+	signal: async (ids: Ids) => ({
+		signal: await created(
+			a.owner.send<{ id: string }>('POST', `/api/v1/builds/${ids.build}/signal-checks`, { params: signalParams }),
+			'throwaway signal check'
 		)
 	}),
 	photo: async (ids: Ids) => ({
@@ -735,6 +750,21 @@ const table: Row[] = [
 		guess: ['build', 'tape']
 	},
 	{
+		route: 'POST /api/v1/builds/[buildId]/signal-checks',
+		object: 'a new signal check',
+		expect: e(401, 403, 201, 201, 404),
+		call: (c, i) => send(c, 'POST', `/api/v1/builds/${i.build}/signal-checks`, { params: signalParams }),
+		guess: ['build']
+	},
+	{
+		route: 'DELETE /api/v1/builds/[buildId]/signal-checks/[recordId]',
+		object: 'signal check',
+		expect: e(401, 403, 204, 204, 404),
+		fresh: fresh.signal,
+		call: (c, i) => send(c, 'DELETE', `/api/v1/builds/${i.build}/signal-checks/${i.signal}`),
+		guess: ['build', 'signal']
+	},
+	{
 		route: 'POST /api/v1/builds/[buildId]/tdc-records',
 		object: 'a new TDC record',
 		expect: e(401, 403, 201, 201, 404),
@@ -863,6 +893,7 @@ async function snapshot(workshopId: string): Promise<string> {
 			'revisions', (select json_agg(r.id order by r.id) from wheel_revision r join wheel_design d on d.id = r.design_id join build b on b.id = d.build_id where b.workshop_id = ${workshopId}),
 			'tdc', (select json_agg(t.id order by t.id) from tdc_record t join build b on b.id = t.build_id where b.workshop_id = ${workshopId}),
 			'tapes', (select json_agg(t.id order by t.id) from degree_tape t join build b on b.id = t.build_id where b.workshop_id = ${workshopId}),
+			'signal', (select json_agg(t.id order by t.id) from signal_check t join build b on b.id = t.build_id where b.workshop_id = ${workshopId}),
 			'photos', (select json_agg(json_build_object('id', p.id, 'name', p.name, 'reading', p.photo_reading) order by p.id) from wheel_photo p join build b on b.id = p.build_id where b.workshop_id = ${workshopId}),
 			'cutting', (select json_agg(c.id order by c.id) from cutting_package c join build b on b.id = c.build_id where b.workshop_id = ${workshopId}),
 			'activity', (select count(*) from activity x join build b on b.id = x.build_id where b.workshop_id = ${workshopId})
@@ -985,6 +1016,7 @@ describe('guessed and foreign ids', () => {
 			['design page', () => page(a.owner, `/builds/${a.ids.build}/designs/${b.ids.design}`)],
 			['photo page', () => page(a.owner, `/builds/${a.ids.build}/photos/${b.ids.photo}`)],
 			['tape', () => send(a.owner, 'DELETE', `/api/v1/builds/${a.ids.build}/tapes/${b.ids.tape}`)],
+			['signal check', () => send(a.owner, 'DELETE', `/api/v1/builds/${a.ids.build}/signal-checks/${b.ids.signal}`)],
 			['TDC record', () => send(a.owner, 'DELETE', `/api/v1/builds/${a.ids.build}/tdc-records/${b.ids.tdc}`)],
 			[
 				'cutting package',

@@ -17,7 +17,8 @@ export type ActivityKind =
 	| 'reading'
 	| 'cutting-package'
 	| 'invitation'
-	| 'build-sheet';
+	| 'build-sheet'
+	| 'signal';
 
 export async function logActivity(
 	database: Queryable,

@@ -8,6 +8,7 @@ import { designsOf } from './designs';
 import { photoKeysOf, photosOf } from './photos/store';
 import { deleteObject } from './storage';
 import { tapesOf, tdcRecordsOf } from './records';
+import { signalChecksOf } from './signal-checks';
 
 // Everything a build holds: read whole for its page and `GET /api/v1/builds/:id`, removed whole.
 
@@ -44,7 +45,7 @@ export async function headRevisionsOf(database: Queryable, buildId: string) {
 }
 
 export async function buildOverview(database: Queryable, buildId: string) {
-	const [build, designs, headRevisions, tdcRecords, tapes, photos, cuttingPackages, activity, latest] = await Promise.all([
+	const [build, designs, headRevisions, tdcRecords, tapes, photos, cuttingPackages, activity, latest, signalChecks] = await Promise.all([
 		getBuild(database, buildId),
 		designsOf(database, buildId),
 		headRevisionsOf(database, buildId),
@@ -53,11 +54,12 @@ export async function buildOverview(database: Queryable, buildId: string) {
 		photosOf(database, buildId),
 		cuttingPackagesOf(database, buildId),
 		listActivity(database, buildId),
-		latestActivity(database, buildId, ['engine', 'build-sheet'])
+		latestActivity(database, buildId, ['engine', 'build-sheet']),
+		signalChecksOf(database, buildId)
 	]);
 	if (!build) return undefined;
 	const steps = buildSteps({ build, designs, headRevisions, cuttingPackages, tdcRecords, tapes, latestActivity: latest });
-	return { build, steps, designs, headRevisions, tdcRecords, tapes, photos, cuttingPackages, activity };
+	return { build, steps, designs, headRevisions, tdcRecords, tapes, photos, cuttingPackages, activity, signalChecks };
 }
 export type BuildOverview = NonNullable<Awaited<ReturnType<typeof buildOverview>>>;
 

@@ -16,6 +16,7 @@ import { designsOf, getDesign, revisionOf } from './designs';
 import type { BuildSheet, SheetCard, SheetTape } from './exports/build-sheet-pdf';
 import { buildSheetName } from './exports/names';
 import { tapesOf, tdcRecordsOf } from './records';
+import { signalChecksOf } from './signal-checks';
 
 // The build sheet, from parameters alone (the public tool) or from a saved build: both checked by
 // checkBuildSheet, both named by names.ts, both printed by build-sheet-pdf.ts.
@@ -141,5 +142,7 @@ export async function buildSheetFor(
 		wheelGiven(revision.params),
 		tape && hub?.ok ? { tape: hub.value, label: tape.label, params: tape.params } : null
 	);
+	const [signal] = await signalChecksOf(database, access.buildId);
+	sheet.signal = signal ? { label: signal.label, date: signal.createdAt.toISOString().slice(0, 10), cases: signal.cases } : null;
 	return { ok: true, value: { sheet, filename: buildSheetName(build.name, revision.number) } };
 }

@@ -1,5 +1,5 @@
 import { phasingParams } from '$lib/schemas/phasing';
-import { clockingTarget } from './clocking-target';
+import { clockingTarget } from '$lib/clocking-target';
 import { formFromAddress, formStart, sheetFormKeys } from './form-query';
 import type { PageLoad } from './$types';
 

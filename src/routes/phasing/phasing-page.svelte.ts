@@ -6,7 +6,8 @@ import { layouts, vAngleRange, vTwin } from '$lib/trade/engine';
 import { patternName } from '$lib/trade/pattern';
 import { clockingFor, phasing, type PhasingResult } from '$lib/trade/phasing';
 import type { Units } from '$lib/trade/units';
-import { defOf, formStart, phasingSent, sheetFormKeys, sheetSent } from './form-query';
+import type { EngineForm } from '$lib/components/engine/tool-form';
+import { defOf, formStart, labelOf, phasingSent, sheetFormKeys, sheetSent } from './form-query';
 
 // The phasing page's state: the form's flat strings, what they send, and the one check the API
 // also runs (checkPhasing, checkBuildSheet) with its refusals by field.
@@ -29,8 +30,11 @@ const loose = (r: Refusal) => (r.field === 'form' ? r.message : `${defOf(r.field
 
 const sheetLengths = ['od', 'depth', 'thickness', 'bore', 'tapeDiameter'];
 
-export class PhasingPage {
+export class PhasingPage implements EngineForm {
 	params: Params = $state({});
+	readonly idPrefix = 'phasing';
+	readonly defOf = defOf;
+	readonly labelOf = labelOf;
 
 	constructor(initial: Params) {
 		this.params = { ...initial };

@@ -238,6 +238,30 @@ export const degreeTape = pgTable(
 	(t) => [index('degree_tape_build').on(t.buildId)]
 );
 
+/** One speed case of a saved signal check as it was answered: the headline the build page and sheet print. */
+export interface SignalCaseHeadline {
+	name: string;
+	rpm: number;
+	/** The sync margin in percent (negative: the gap is missed or an ordinary space taken for it). */
+	marginPct: number;
+	verdict: 'safe' | 'tight' | 'fails';
+}
+
+/** A signal check kept in a build: its parameters as the signal check takes them, and each case's sync margin then. */
+export const signalCheck = pgTable(
+	'signal_check',
+	{
+		id: uuid('id').primaryKey().defaultRandom(),
+		buildId: buildRef(),
+		label: text('label').notNull().default(''),
+		params: jsonb('params').$type<FlatParams>().notNull(),
+		cases: jsonb('cases').$type<SignalCaseHeadline[]>().notNull(),
+		authorId: authorRef(),
+		createdAt: createdAt()
+	},
+	(t) => [index('signal_check_build').on(t.buildId, t.createdAt)]
+);
+
 /** An uploaded photo of a real wheel: the bytes live in the object store under `storageKey`. */
 export const wheelPhoto = pgTable(
 	'wheel_photo',

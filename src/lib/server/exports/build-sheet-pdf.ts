@@ -45,6 +45,15 @@ export interface BuildSheet {
 	given: Params;
 	tape: SheetTape | null;
 	card: SheetCard | null;
+	/** The newest signal check saved in the build: each speed case's sync margin then (absent from the public tool). */
+	signal?: SheetSignal | null;
+}
+
+/** A saved signal check as the sheet prints it. */
+export interface SheetSignal {
+	label: string;
+	date: string;
+	cases: { name: string; rpm: number; marginPct: number; verdict: 'safe' | 'tight' | 'fails' }[];
 }
 
 const margin = 15;
@@ -232,6 +241,8 @@ export async function buildSheetPdf(s: BuildSheet): Promise<Buffer> {
 			);
 	}
 
+	if (s.signal !== undefined) signalRows(s.signal, row, section);
+
 	section('Warnings outstanding');
 	const warnings = [...s.summary.warnings.map((w) => w.message), ...r.warnings.map((w) => w.message)];
 	if (!warnings.length) row('', 'none');
@@ -243,4 +254,15 @@ export async function buildSheetPdf(s: BuildSheet): Promise<Buffer> {
 	}
 	doc.fillColor('black');
 	return finish(doc);
+}
+
+/** The sync margin of each speed case of the newest saved signal check: will the ECU find the gap. */
+function signalRows(signal: SheetSignal | null, row: (k: string, v: string) => void, section: (title: string) => void) {
+	section('Signal check');
+	if (!signal) {
+		row('Sync margin', 'no signal check saved in the build');
+		return;
+	}
+	row('Saved', `${signal.label ? `“${printable(signal.label).text}”, ` : ''}${signal.date}`);
+	for (const c of signal.cases) row(printable(`${c.name}, ${c.rpm} rpm`).text, `sync margin ${Math.round(c.marginPct)}%: ${c.verdict}`);
 }

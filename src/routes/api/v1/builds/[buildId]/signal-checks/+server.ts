@@ -1,0 +1,19 @@
+import { json } from '@sveltejs/kit';
+import { saveRecord } from '$lib/schemas/build';
+import { objectAccess } from '$lib/server/access';
+import { jsonBody, refuse } from '$lib/server/api';
+import { db } from '$lib/server/db';
+import { saveSignalCheck } from '$lib/server/signal-checks';
+
+/**
+ * Keeps a signal check in the build: the parameters GET /api/v1/signal takes, checked by the same
+ * check; answers each case's sync margin as saved. Refusals name `params.<field>`.
+ */
+export async function POST(event) {
+	const access = await objectAccess(event, 'edit', 'build', event.params.buildId);
+	const body = await jsonBody(event.request, saveRecord);
+	if (!body.ok) return body.response;
+	const result = await saveSignalCheck(db(), access.buildId, body.data, access.user.id);
+	if (!result.ok) return refuse(result.refusals.map((r) => ({ ...r, field: `params.${r.field}` })));
+	return json({ id: result.id, cases: result.cases }, { status: 201 });
+}
