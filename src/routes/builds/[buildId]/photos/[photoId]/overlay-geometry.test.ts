@@ -39,7 +39,7 @@ function level(e: Ellipse, p: { x: number; y: number }) {
 function pathPoints(d: string): { x: number; y: number }[] {
 	const model = makerjs.importer.fromSVGPathData(d, { bezierAccuracy: 0.01 });
 	const chains = makerjs.model.findChains(model) as makerjs.IChain[];
-	return chains.flatMap((chain) => makerjs.chain.toPoints(chain, 1).map(([x, y]) => ({ x: x!, y: -y! })));
+	return chains.flatMap((chain) => makerjs.chain.toPoints(chain, 1).map((p) => ({ x: p[0]!, y: -p[1]! })));
 }
 
 const tilted: Ellipse[] = [

@@ -86,7 +86,7 @@ export function rimAt(e: Ellipse, from: Pt, deg: number, scale = 1): Pt {
 	const dx = d.x * u.x + d.y * u.y;
 	const dy = d.x * v.x + d.y * v.y;
 	const A = dx ** 2 / a ** 2 + dy ** 2 / b ** 2;
-	const B = 2 * (px * dx / a ** 2 + py * dy / b ** 2);
+	const B = 2 * ((px * dx) / a ** 2 + (py * dy) / b ** 2);
 	const C = px ** 2 / a ** 2 + py ** 2 / b ** 2 - 1;
 	const s = (-B + Math.sqrt(Math.max(0, B * B - 4 * A * C))) / (2 * A);
 	return { x: from.x + s * d.x, y: from.y + s * d.y };
@@ -170,7 +170,9 @@ export function overlayFacts(answer: unknown): OverlayFacts {
 			const p = t as ToothSeen;
 			return typeof t === 'object' && t !== null && finite(p.x, p.y) && Number.isInteger(p.n) && p.n >= 1;
 		}),
-		unseen: list(a.unseen).filter((s): s is Unseen => typeof s === 'object' && s !== null && finite((s as Unseen).fromDeg, (s as Unseen).toDeg)),
+		unseen: list(a.unseen).filter(
+			(s): s is Unseen => typeof s === 'object' && s !== null && finite((s as Unseen).fromDeg, (s as Unseen).toDeg)
+		),
 		confidenceWord: word === 'high' || word === 'medium' || word === 'low' ? word : null,
 		advice: list(a.advice).filter((s): s is string => typeof s === 'string' && s.trim() !== '')
 	};
