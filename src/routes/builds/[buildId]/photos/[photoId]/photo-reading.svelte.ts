@@ -7,6 +7,7 @@ import { convertLengths, type SwitchMemory } from '$lib/params';
 import { checkPhotoTaps, diameterText, maxTips, photoParams, type Pt } from '$lib/schemas/photo';
 import { byField, type Refusal } from '$lib/schemas/refusal';
 import type { Units } from '$lib/trade/units';
+import { clampTo, confidenceWord, overlayFacts, type ConfidenceWord, type Ellipse, type ToothSeen, type Unseen } from './overlay-geometry';
 
 export interface ReadingAnswer {
 	teeth: number;
@@ -20,6 +21,11 @@ export interface ReadingAnswer {
 	toothCount?: number;
 	radiusPx?: number;
 	mmPerPx?: number;
+	/** Issue 17's reader adds these; older readings (and stored ones) may lack them. */
+	ellipse?: Ellipse;
+	teethAt?: ToothSeen[];
+	unseen?: Unseen[];
+	confidenceWord?: ConfidenceWord;
 }
 
 /** The last stored photo reading of a photo, with its taps (the page's load). */
@@ -52,8 +58,6 @@ const besideTheirField = ['od', 'units'];
 /** What may be refused that is no parameter: the photo itself, the request. */
 const otherLabels: Record<string, string> = { image: 'Photo', body: 'Request', form: 'Request' };
 
-const confidenceWords = (c: number | undefined) => (typeof c !== 'number' ? '' : c < 0.6 ? 'low' : c >= 0.8 ? 'good' : 'fair');
-
 /** Every instruction the page can show: the page reserves room for the longest, so the photo never moves when one changes. */
 export const steps = {
 	centre: 'Tap the centre of the wheel.',
@@ -62,8 +66,8 @@ export const steps = {
 	enough: 'Enough taps: read the teeth.',
 	most: `That is ${maxTips} tips, the most a reading takes: read the teeth.`,
 	reading: 'Reading the teeth…',
-	found: (r: Pick<ReadingAnswer, 'teeth' | 'missing' | 'confidence'>) =>
-		`Found ${r.teeth}-${r.missing}, confidence ${confidenceWords(r.confidence) || 'not known'}: start a design from it, or move the taps and read again.`,
+	found: (r: Pick<ReadingAnswer, 'teeth' | 'missing' | 'confidence' | 'confidenceWord'>) =>
+		`Found ${r.teeth}-${r.missing}, confidence ${confidenceWord(r.confidenceWord, r.confidence) ?? 'not known'}: start a design from it, or drag the taps to correct them.`,
 	changed: 'The taps have changed since the reading: read the teeth again.',
 	fixDiameter: 'Correct the outside diameter as the note beside it says, then read the teeth again.',
 	fixTaps: 'Some taps were refused (the note under Taps says why): undo them, tap again, then read the teeth.',
@@ -73,7 +77,8 @@ export const steps = {
 /** The longest each instruction can be, for the room kept above the photo. */
 export const everyStep: readonly string[] = [
 	...Object.values(steps).filter((s): s is string => typeof s === 'string'),
-	steps.found({ teeth: 720, missing: 719, confidence: undefined })
+	steps.found({ teeth: 720, missing: 719, confidence: undefined }),
+	steps.found({ teeth: 720, missing: 719, confidenceWord: 'medium' })
 ];
 
 export class PhotoReading {
@@ -87,6 +92,13 @@ export class PhotoReading {
 	/** A failure that is no refusal (the server not reached …). */
 	message = $state<string | null>(null);
 	reading = $state(false);
+	/** What the last refusal said would help in this photo, and the tip ellipse it fitted (drawn so a bad fit shows). */
+	advice = $state<string[]>([]);
+	fitTried = $state<Ellipse | null>(null);
+	/** A reading was asked for on these taps: from then on, a corrected tap reads again by itself. */
+	asked = $state(false);
+	/** Taps moved while a reading was on its way: read once more when it is back. */
+	#again = false;
 
 	readonly fresh = $derived(this.result !== null && this.result.key === tapKey(this.centre, this.tips));
 	readonly errors = $derived(byField(this.refusals));
@@ -127,6 +139,8 @@ export class PhotoReading {
 			earlier: true,
 			key: tapKey(stored.taps.centre, stored.taps.tips)
 		};
+		// The stored reading is on screen: a tap corrected now reads again, as after a reading asked for here.
+		this.asked = true;
 	}
 
 	private forget(...fields: string[]) {
@@ -138,6 +152,23 @@ export class PhotoReading {
 		this.message = null;
 		if (!this.centre) this.centre = at;
 		else if (this.tips.length < maxTips) this.tips.push(at);
+	}
+
+	/**
+	 * A tapped point dragged or nudged (`which` is 'centre' or the tip's index), kept on the photo.
+	 * The old answer stays, shown as out of date, until the corrected taps are read.
+	 */
+	move(which: 'centre' | number, to: Pt) {
+		const at = clampTo({ x: Math.round(to.x * 10) / 10, y: Math.round(to.y * 10) / 10 }, this.photo.width, this.photo.height);
+		if (which === 'centre') {
+			if (this.centre) this.centre = at;
+		} else if (which >= 0 && which < this.tips.length) this.tips[which] = at;
+		this.forget('centre', 'tips');
+	}
+
+	/** A drag let go or the arrow keys let go: once a reading was asked for, the corrected taps are read again at once. */
+	corrected() {
+		if (this.asked && this.centre && this.tips.length) void this.read();
 	}
 
 	undo() {
@@ -157,12 +188,16 @@ export class PhotoReading {
 		this.result = null;
 		this.refusals = [];
 		this.message = null;
+		this.advice = [];
+		this.fitTried = null;
+		this.asked = false;
 		this.startedAgain = {
 			message: 'Taps cleared.',
 			undo: () => {
 				this.centre = before.centre;
 				this.tips = before.tips;
 				this.result = before.result;
+				this.asked = before.result !== null;
 			}
 		};
 	}
@@ -187,8 +222,15 @@ export class PhotoReading {
 	}
 
 	async read() {
-		if (!this.centre || !this.tips.length || this.reading) return;
+		if (!this.centre || !this.tips.length) return;
+		if (this.reading) {
+			this.#again = true;
+			return;
+		}
+		this.asked = true;
 		this.message = null;
+		this.advice = [];
+		this.fitTried = null;
 		const od = this.odText.trim();
 		const body = { centre: $state.snapshot(this.centre), tips: $state.snapshot(this.tips), units: this.units, ...(od ? { od } : {}) };
 		const checked = checkPhotoTaps(body, this.photo);
@@ -200,7 +242,15 @@ export class PhotoReading {
 		this.reading = false;
 		const a = answer.body as typeof answer.body & { reading: ReadingAnswer; design: Record<string, string>; stored?: boolean };
 		if (answer.ok) this.result = { reading: a.reading, design: a.design, stored: a.stored === true, earlier: false, key };
-		else if (a.refusals?.length) this.refusals = a.refusals;
-		else this.message = a.message ?? `The reading failed (status ${answer.status}); try again.`;
+		else if (a.refusals?.length) {
+			this.refusals = a.refusals;
+			const facts = overlayFacts(a);
+			this.advice = facts.advice;
+			this.fitTried = facts.ellipse;
+		} else this.message = a.message ?? `The reading failed (status ${answer.status}); try again.`;
+		if (this.#again) {
+			this.#again = false;
+			await this.read();
+		}
 	}
 }
