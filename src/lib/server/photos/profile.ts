@@ -201,6 +201,17 @@ export function readProfile(s: Float64Array): ProfileReading | ProfileFailure {
 	};
 	const confidence = factors.spacing * factors.width * factors.levels * factors.cycles * factors.sum * (0.5 + 0.5 * factors.read);
 	const seen = teethRuns.map((r, i) => ({ phi: toPhi(centre(r)), position: pos[i]! }));
-	const unseen = runs.filter((r) => r.state === -1).map((r) => ({ from: toPhi(r.start), to: toPhi(r.start + r.len) }));
+	// A stretch not read reaches from the last tooth seen before it to the first after: what lies
+	// between them, read as background or not, is not known.
+	const unseen = runs
+		.map((r, i) => ({ r, i }))
+		.filter(({ r }) => r.state === -1)
+		.map(({ r, i }) => {
+			const before = runs[(i - 1 + runs.length) % runs.length]!;
+			const after = runs[(i + 1) % runs.length]!;
+			const from = before.state === 0 ? before.start : r.start;
+			const to = after.state === 0 ? after.start + after.len : r.start + r.len;
+			return { from: toPhi(from), to: toPhi(to) };
+		});
 	return { teeth: N, missing, gaps, gapPhi, duty, confidence, toothCount: N - missing, seen, unseen, factors };
 }

@@ -187,6 +187,22 @@ function findRoot(img: Grey, pose: Homography, radial: (from: number, to: number
 	return { failure: 'depth' };
 }
 
+/**
+ * Angles where something lies over the rim (a finger, a bracket): the solid metal just inside the
+ * root no longer reads as metal, or the background just outside the tips no longer as background.
+ * Their profile becomes unknown, a little wider than found, so the teeth beside them are not cut.
+ */
+function hideCovered(profile: Float64Array, metal: Float64Array, bg: Float64Array) {
+	const n = profile.length;
+	const covered = new Uint8Array(n);
+	for (let i = 0; i < n; i++) if (!(metal[i]! >= 0.8) || !(bg[i]! <= 0.15)) covered[i] = 1;
+	const pad = Math.ceil(n / 720);
+	for (let i = 0; i < n; i++) {
+		if (!covered[i]) continue;
+		for (let d = -pad; d <= pad; d++) profile[(i + d + n) % n] = NaN;
+	}
+}
+
 /** The teeth read round the ring of one pose, na angles, across the middle half of the teeth's depth. */
 function readRing(img: Grey, pose: Homography, radiusPx: number, na: number): RingReading | RingFailure {
 	const radial = (from: number, to: number, px: number) => Math.max(16, Math.ceil(((to - from) * radiusPx) / px));
@@ -195,7 +211,7 @@ function readRing(img: Grey, pose: Homography, radiusPx: number, na: number): Ri
 	const depth = 1 - root;
 	if (!(depth > 0.015 && depth < 0.6)) return { failure: 'depth' };
 	// The metal's colour from solid metal just inside the root, the background's just outside the tips.
-	const metal: [number, number] = [Math.max(0.3, root - 0.07), Math.max(0.35, root - 0.02)];
+	const metal: [number, number] = [Math.max(0.3, root - 0.045), Math.max(0.33, root - 0.015)];
 	const bg: [number, number] = [1.06, 1.2];
 	const px = na >= 2048 ? 1.5 : 2.5;
 	const fine = samplePolar(img, pose, na, metal[0], 1.2, radial(metal[0], 1.2, px));
@@ -204,6 +220,7 @@ function readRing(img: Grey, pose: Homography, radiusPx: number, na: number): Ri
 	const ring = normalise(p2.polar, metal, bg, true, 0.5);
 	const { profile } = bandMean(ring, root + 0.25 * depth, 1 - 0.25 * depth);
 	if (!profile) return { failure: 'depth' };
+	hideCovered(profile, bandMean(ring, metal[0], metal[1]).profile!, bandMean(ring, bg[0], bg[1]).profile!);
 	const read = readProfile(profile);
 	if ('failure' in read) return read;
 	return { profile: read, lightOnDark: p2.lightOnDark, pose };

@@ -226,12 +226,15 @@ export function projectColour(p: Polar, metal: [number, number], background: [nu
 	const k = p.radii.length;
 	const per = p.na / bins;
 	const values = new Float32Array(p.na * k);
+	const off = new Float32Array(p.na * k);
+	const sizes = new Float64Array(p.na);
 	const d = new Float64Array(ch);
 	for (let i = 0; i < p.na; i++) {
 		const binSeen = seen[Math.min(bins - 1, Math.floor(i / per))]!;
 		let size = 0;
 		for (let n = 0; n < ch; n++) [d[n], size] = [fg[n]![i]! - bg[n]![i]!, size + (fg[n]![i]! - bg[n]![i]!) ** 2];
 		size = Math.sqrt(size);
+		sizes[i] = size;
 		for (let j = 0; j < k; j++) {
 			const at = (i * k + j) * ch;
 			if (!binSeen || !(size > 0)) {
@@ -245,9 +248,17 @@ export function projectColour(p: Polar, metal: [number, number], background: [nu
 				s += (v * d[n]!) / size;
 				r2 += v * v;
 			}
-			const off = Math.sqrt(Math.max(0, r2 - s * s));
-			values[i * k + j] = off > 0.6 * size ? NaN : s;
+			values[i * k + j] = s;
+			off[i * k + j] = Math.sqrt(Math.max(0, r2 - s * s));
 		}
+	}
+	// A sample well off the line from background to metal is neither (a finger, a bracket, a cable):
+	// well off is a quarter of the way from one to the other, or four times the noise's usual
+	// distance off it, whichever is more.
+	const noise = median(off.filter((_, x) => x % 7 === 0 && !Number.isNaN(values[x]!)));
+	for (let i = 0; i < p.na; i++) {
+		const cut = Math.max(0.25 * sizes[i]!, 4 * noise);
+		for (let j = 0; j < k; j++) if (off[i * k + j]! > cut) values[i * k + j] = NaN;
 	}
 	const luma = (c: number[]) => c.reduce((a, b) => a + b, 0) / c.length;
 	return { polar: { na: p.na, radii: p.radii, values, channels: 1 }, lightOnDark: luma(fgAll) >= luma(bgAll), contrast, seen };
