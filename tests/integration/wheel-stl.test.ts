@@ -66,7 +66,7 @@ function plainArea(o: { teeth: number; missing: number; duty: number; odMm: numb
 	return Math.PI * (share * R * R + (1 - share) * r * r) - (Math.PI * o.boreMm ** 2) / 4 - holes;
 }
 
-const cases = [
+const cases: { name: string; params: Record<string, string>; area: number; odMm: number; thicknessMm: number }[] = [
 	{
 		name: '36-1, 100 mm, 20 mm bore, 3 mm plate',
 		params: { units: 'mm', teeth: '36', missing: '1', od: '100', depth: '5', bore: '20', thickness: '3' },
