@@ -23,7 +23,8 @@ const referenceTools = [
 	{ pkg: 'python3-fonttools', present: () => spawnSync('/usr/bin/python3', ['-c', 'import fontTools']).status === 0 },
 	{ pkg: 'poppler-utils', present: () => existsSync('/usr/bin/pdfinfo') && existsSync('/usr/bin/pdftotext') },
 	{ pkg: 'librecad', present: () => existsSync('/usr/bin/librecad') },
-	{ pkg: 'openscad', present: () => existsSync('/usr/bin/openscad') }
+	{ pkg: 'openscad', present: () => existsSync('/usr/bin/openscad') },
+	{ pkg: 'admesh', present: () => existsSync('/usr/bin/admesh') }
 ];
 const bin = (name: string) => join(root, 'node_modules', '.bin', name);
 const results = join(root, 'test-results');

@@ -65,3 +65,17 @@ export function underPointer(engine: TurningEngine, crankAtdcDeg: number): numbe
 
 /** The side of the tape's 0 a reading lies on, as read upright: what a person says at the engine. */
 export const sideOf = (tapeMm: number): 'left' | 'right' | 'at 0' => (Math.abs(tapeMm) < 1e-9 ? 'at 0' : tapeMm > 0 ? 'right' : 'left');
+
+/**
+ * A round scale on the hub's face (a degree wheel), read from the wheel side (+z): the face point
+ * under the fixed pointer with the crank at `crankAtdcDeg`, in degrees clockwise from the scale's
+ * 0 as seen from there, (−180, 180]. The scale's 0 sat under the pointer at TDC.
+ */
+export function faceUnderPointer(engine: Pick<TurningEngine, 'rotation' | 'pointerAtDeg'>, crankAtdcDeg: number): number {
+	const a = rad(engine.pointerAtDeg ?? 90);
+	const pointer: V = [Math.cos(a), Math.sin(a), 0];
+	const then = rotate(pointer, spinAxis(engine.rotation), rad(-crankAtdcDeg));
+	const anticlockwise = Math.atan2(dot(cross(pointer, then), [0, 0, 1]), dot(pointer, then));
+	const deg = (-anticlockwise * 180) / Math.PI;
+	return deg <= -180 + 1e-9 ? 180 : deg;
+}

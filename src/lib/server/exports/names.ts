@@ -8,7 +8,7 @@ import type { WheelSpec } from '$lib/trade/wheel';
  * template is laid out for (an A4 print and a Letter print differ, so they must not share a name)
  * and the saved revision.
  */
-export function exportName(spec: WheelSpec, units: Units, ext: 'dxf' | 'svg' | 'pdf', revision?: number, paper?: Paper): string {
+export function exportName(spec: WheelSpec, units: Units, ext: 'dxf' | 'svg' | 'pdf' | 'stl', revision?: number, paper?: Paper): string {
 	const od = Number(fromMm(spec.odMm, units).toFixed(units === 'in' ? 3 : 2));
 	const pattern = patternName(spec.pattern)
 		.split(' ')[0]!

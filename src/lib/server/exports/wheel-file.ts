@@ -1,16 +1,17 @@
-// The three wheel files by kind, for the stateless routes and for saved revisions alike.
+// The wheel files by kind, for the stateless routes and for saved revisions alike.
 import type { ParsedWheel } from '$lib/schemas/wheel';
 import type { WheelSummary } from '$lib/trade/summary';
 import { wheelDxf } from './dxf';
 import { exportName } from './names';
 import { keyOf, Recent } from './recent';
+import { wheelStl } from './stl';
 import { wheelSvg } from './svg';
 import { wheelPdf } from './wheel-pdf';
 
-export const wheelFileKinds = ['dxf', 'svg', 'pdf'] as const;
+export const wheelFileKinds = ['dxf', 'svg', 'pdf', 'stl'] as const;
 export type WheelFileKind = (typeof wheelFileKinds)[number];
 
-const types: Record<WheelFileKind, string> = { dxf: 'application/dxf', svg: 'image/svg+xml', pdf: 'application/pdf' };
+const types: Record<WheelFileKind, string> = { dxf: 'application/dxf', svg: 'image/svg+xml', pdf: 'application/pdf', stl: 'model/stl' };
 
 /**
  * Recent files by what makes them: the parsed design (so `od=120` and `od=120.0` are one) and, for
@@ -21,7 +22,9 @@ const recent = new Recent<Promise<string | Buffer>>(96);
 
 export async function wheelFile(kind: WheelFileKind, wheel: ParsedWheel, summary: WheelSummary, revision?: number) {
 	const { spec, units, paper, running } = wheel;
-	const key = keyOf(kind === 'pdf' ? [kind, spec, units, running, paper] : [kind, spec, units]);
+	// An STL is always in mm (its format has no units), so its name says mm whatever the design's units.
+	const fileUnits = kind === 'stl' ? 'mm' : units;
+	const key = keyOf(kind === 'pdf' ? [kind, spec, units, running, paper] : [kind, spec, fileUnits]);
 	let made = recent.get(key);
 	if (!made) {
 		made = recent.set(
@@ -30,9 +33,15 @@ export async function wheelFile(kind: WheelFileKind, wheel: ParsedWheel, summary
 				? Promise.resolve(wheelDxf(spec, units))
 				: kind === 'svg'
 					? Promise.resolve(wheelSvg(spec, units))
-					: wheelPdf(spec, summary, units, paper)
+					: kind === 'stl'
+						? Promise.resolve(wheelStl(spec, exportName(spec, 'mm', 'stl')))
+						: wheelPdf(spec, summary, units, paper)
 		);
 		made.catch(() => recent.delete(key));
 	}
-	return { body: await made, contentType: types[kind], name: exportName(spec, units, kind, revision, kind === 'pdf' ? paper : undefined) };
+	return {
+		body: await made,
+		contentType: types[kind],
+		name: exportName(spec, fileUnits, kind, revision, kind === 'pdf' ? paper : undefined)
+	};
 }

@@ -7,12 +7,12 @@ import { revisionOf } from '$lib/server/designs';
 import { wheelFile, wheelFileKinds, type WheelFileKind } from '$lib/server/exports/wheel-file';
 import { checkWheel } from '$lib/server/wheel-request';
 
-/** A saved revision as wheel.dxf, wheel.svg or wheel.pdf; the file name carries the revision. */
+/** A saved revision as wheel.dxf, wheel.svg, wheel.pdf or wheel.stl; the file name carries the revision. */
 export async function GET(event) {
 	await objectAccess(event, 'read', 'design', event.params.designId);
 	const kind = event.params.file.replace(/^wheel\./, '') as WheelFileKind;
 	if (!event.params.file.startsWith('wheel.') || !wheelFileKinds.includes(kind))
-		error(404, { message: 'file: wheel.dxf, wheel.svg or wheel.pdf', code: 'not-found' });
+		error(404, { message: 'file: wheel.dxf, wheel.svg, wheel.pdf or wheel.stl', code: 'not-found' });
 	const number = revisionNumber.safeParse(event.params.number);
 	const revision = number.success ? await revisionOf(db(), event.params.designId, number.data) : undefined;
 	if (!revision) error(404, { message: `revision: this design has no revision ${event.params.number}`, code: 'not-found' });

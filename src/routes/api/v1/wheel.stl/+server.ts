@@ -1,0 +1,10 @@
+import { fileResponse } from '$lib/server/api';
+import { wheelFile } from '$lib/server/exports/wheel-file';
+import { wheelFromQuery } from '$lib/server/wheel-request';
+
+export async function GET({ url }) {
+	const r = wheelFromQuery(url);
+	if (!r.ok) return r.response;
+	const file = await wheelFile('stl', r.wheel, r.summary);
+	return fileResponse(file.body, file.contentType, file.name);
+}
