@@ -331,6 +331,7 @@ const publicTool = (route: string, query: string): Row => ({
 const table: Row[] = [
 	// Pages
 	{ route: 'GET /', object: 'none', expect: e(200, 200, 200, 200, 200), call: (c) => page(c, '/') },
+	{ route: 'GET /docs/api', object: 'none (the API page)', expect: e(200, 200, 200, 200, 200), call: (c) => page(c, '/docs/api') },
 	{
 		route: 'GET /builds',
 		object: 'workshop: its builds',
@@ -583,6 +584,7 @@ const table: Row[] = [
 	publicTool('/api/v1/timing-card.pdf', new URLSearchParams({ diameter: '150', curve: '1200:10, 3000:20, 6000:32' }).toString()),
 	publicTool('/api/v1/phasing', new URLSearchParams(engine).toString()),
 	publicTool('/api/v1/build-sheet.pdf', new URLSearchParams({ ...wheel, ...engine, buildName: 'Matrix single' }).toString()),
+	publicTool('/api/v1/openapi.json', ''),
 
 	// API: a workshop's builds
 	{

@@ -104,7 +104,7 @@ const jsonTypes = new Set(['string', 'number', 'integer', 'boolean', 'object', '
 
 /** One field's words as JSON Schema: `array: every tooth …` → { type: 'array', description }. */
 export function fieldSchema(words: string): JsonSchema {
-	const [head, ...rest] = words.split(': ');
+	const [head = '', ...rest] = words.split(': ');
 	const types = head.split('|');
 	if (!types.every((t) => jsonTypes.has(t))) throw new Error(`openapi: "${words}" should start with a JSON type`);
 	const description = rest.join(': ');

@@ -14,6 +14,14 @@ const doc = buildDocument(origin) as {
 	>;
 };
 
+type Op = { parameters?: Record<string, unknown>[]; responses: Record<string, unknown>; security?: unknown };
+/** One operation of the document, or a failed test that says which is missing. */
+function op(path: string, method: string): Op {
+	const found = doc.paths[path]?.[method];
+	if (!found) throw new Error(`${method} ${path} is not in the document`);
+	return found as unknown as Op;
+}
+
 const apiDir = join(process.cwd(), 'src/routes/api/v1');
 const methods = ['GET', 'POST', 'PUT', 'PATCH', 'DELETE', 'OPTIONS', 'HEAD', 'fallback'];
 
@@ -29,7 +37,7 @@ function routesOnDisk(): string[] {
 				const path = `/${rel}`.replace(/\[(?:\.\.\.)?(\w+)\]/g, '{$1}');
 				const source = readFileSync(full, 'utf8');
 				// export async function GET / export function GET / export const GET = … (read from the source, not the table)
-				const exported = [...source.matchAll(/export\s+(?:async\s+function|function|const|let)\s+([A-Za-z]+)\b/g)].map((m) => m[1]);
+				const exported = [...source.matchAll(/export\s+(?:async\s+function|function|const|let)\s+([A-Za-z]+)\b/g)].map((m) => m[1] ?? '');
 				for (const m of exported.filter((e) => methods.includes(e))) found.push(`${m} ${path}`);
 			}
 		}
@@ -86,20 +94,19 @@ describe('the OpenAPI document', () => {
 	});
 
 	it('states the wheel’s ranges and units as the designer takes them', () => {
-		const teeth = doc.paths['/wheel'].get.parameters!.find((p) => p.name === 'teeth')!;
+		const teeth = op('/wheel', 'get').parameters?.find((p) => p.name === 'teeth');
 		// README's parameter table (hand-written before this document): teeth 1–720, required; od 10–2000 mm.
-		expect(teeth.schema).toMatchObject({ type: 'integer', minimum: 1, maximum: 720 });
-		const od = doc.paths['/wheel'].get.parameters!.find((p) => p.name === 'od') as unknown as Record<string, unknown>;
+		expect(teeth?.schema).toMatchObject({ type: 'integer', minimum: 1, maximum: 720 });
+		const od = op('/wheel', 'get').parameters?.find((p) => p.name === 'od') ?? {};
 		expect(od['x-range-mm']).toEqual({ minimum: 10, maximum: 2000 });
 		expect(od.description).toMatch(/10 mm to 2000 mm/);
 		expect(od.required).toBe(true);
 	});
 
 	it('documents the one 400 shape and sign-in on the routes that need it', () => {
-		const post = doc.paths['/builds'].post as unknown as { responses: Record<string, unknown>; security: unknown };
+		const post = op('/builds', 'post');
 		expect(Object.keys(post.responses)).toEqual(['201', '400', '401', '403', '404', '409', '413', '503']);
 		expect(post.security).toEqual([{ session: [] }]);
-		const wheel = doc.paths['/wheel'].get as unknown as Record<string, unknown>;
-		expect(wheel.security).toBeUndefined();
+		expect(op('/wheel', 'get').security).toBeUndefined();
 	});
 });

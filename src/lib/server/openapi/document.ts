@@ -26,7 +26,7 @@ const overview =
 	'Verify timing with a timing light before load; check every printout with a rule before cutting.';
 
 const pathParamsOf = (path: string): Parameter[] =>
-	[...path.matchAll(/\{(\w+)\}/g)].map(([, name]) => ({
+	[...path.matchAll(/\{(\w+)\}/g)].map(([, name = '']) => ({
 		name,
 		in: 'path',
 		required: true,
@@ -64,7 +64,10 @@ function operation(path: string, method: Method, op: Operation): JsonSchema {
 	const example = op.example?.query ?? {};
 	const parameters = [
 		...pathParamsOf(path),
-		...query.map((p) => (example[p.name] === undefined ? p : { ...p, example: exampleValue(p, example[p.name]) }))
+		...query.map((p) => {
+			const given = example[p.name];
+			return given === undefined ? p : { ...p, example: exampleValue(p, given) };
+		})
 	];
 	const signedIn = op.access === 'read' || op.access === 'edit';
 	const responses: Record<string, unknown> = { [op.answer.status]: answerResponse(op.answer) };
