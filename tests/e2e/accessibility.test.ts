@@ -112,6 +112,7 @@ const signedOut: Check[] = [
 		}
 	},
 	{ path: '/signup' },
+	{ path: '/docs/api', note: 'the API page, a route opened', act: (page) => page.locator('#getWheel summary').click() },
 	{
 		path: '/signup',
 		note: 'refused fields',

@@ -354,6 +354,7 @@ const edgeLogForm = () => {
 const table: Row[] = [
 	// Pages
 	{ route: 'GET /', object: 'none', expect: e(200, 200, 200, 200, 200), call: (c) => page(c, '/') },
+	{ route: 'GET /docs/api', object: 'none (the API page)', expect: e(200, 200, 200, 200, 200), call: (c) => page(c, '/docs/api') },
 	{
 		route: 'GET /builds',
 		object: 'workshop: its builds',
@@ -612,6 +613,7 @@ const table: Row[] = [
 		expect: e(200, 200, 200, 200, 200),
 		call: (c) => send(c, 'POST', '/api/v1/signal/log?teeth=36&missing=1', edgeLogForm())
 	},
+	publicTool('/api/v1/openapi.json', ''),
 
 	// API: a workshop's builds
 	{

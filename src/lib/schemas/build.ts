@@ -149,3 +149,9 @@ export const cuttingPackageInput = z.object({
 	/** Surface finish or treatment for the drawing's title block (optional). */
 	finish: singleLine('finish', 120).optional().default('')
 });
+
+/** A saved build's build sheet: which design and revision (its newest design and revision when left out). */
+export const buildSheetQuery = z.object({
+	design: z.uuid({ error: 'design: a wheel design id of this build' }).optional(),
+	revision: revisionNumber.optional()
+});

@@ -1,16 +1,10 @@
-import { z } from 'zod';
-import { revisionNumber } from '$lib/schemas/build';
+import { buildSheetQuery as query } from '$lib/schemas/build';
 import { objectAccess } from '$lib/server/access';
 import { logActivity } from '$lib/server/activity';
 import { fileResponse, queryOf, refuse } from '$lib/server/api';
 import { buildSheetFor } from '$lib/server/build-sheet';
 import { db } from '$lib/server/db';
 import { buildSheetPdf } from '$lib/server/exports/build-sheet-pdf';
-
-const query = z.object({
-	design: z.uuid({ error: 'design: a wheel design id of this build' }).optional(),
-	revision: revisionNumber.optional()
-});
 
 /**
  * The build sheet of the saved build (src/lib/server/build-sheet.ts says what it takes from it).
