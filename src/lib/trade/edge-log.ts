@@ -68,9 +68,10 @@ export interface EdgeLogReading {
 	speedSwingPct: { perTurn: number[]; mean: number; max: number } | null;
 	/**
 	 * The once-per-turn wobble of the spaces (an eccentric wheel or a loose sensor): a sine fitted to
-	 * each space over its expected length, over every whole turn. `amplitudePct` is the sine's
-	 * amplitude in percent of a space; `phaseDeg` the wheel angle, from tooth 0's edge in the sense
-	 * of rotation, where the spaces are longest.
+	 * each tooth's speed over the speed expected there (space over expected length, inverted: the
+	 * same to first order, without a swing's square), over whole turns, an even number where the log
+	 * has them. `amplitudePct` is the sine's amplitude in percent of a space; `phaseDeg` the wheel
+	 * angle, from tooth 0's edge in the sense of rotation, where the spaces are longest.
 	 */
 	runout: { amplitudePct: number; phaseDeg: number } | null;
 	/** Whole turns between the first and the last tooth-0 edge (what the swing and runout are read over). */
