@@ -196,10 +196,16 @@ describe('the photo reading page: correcting taps', () => {
 		await cdp.send('Input.dispatchTouchEvent', { type: 'touchStart', touchPoints: [{ x: m.x, y: m.y }] });
 		for (let i = 1; i <= 6; i++)
 			await cdp.send('Input.dispatchTouchEvent', { type: 'touchMove', touchPoints: [{ x: m.x - 3 * i, y: m.y + 5 * i }] });
-		await cdp.send('Input.dispatchTouchEvent', { type: 'touchEnd', touchPoints: [] });
+		// Held away from the rim, the tip has followed the finger ...
 		const moved = await heldAt(tip);
 		expect(moved.x - start.x).toBeCloseTo(-18 / scale, 0);
 		expect(moved.y - start.y).toBeCloseTo(30 / scale, 0);
+		// ... and brought back before letting go, so the reading (of a tip on the rim again) can succeed.
+		for (let i = 5; i >= 0; i--)
+			await cdp.send('Input.dispatchTouchEvent', { type: 'touchMove', touchPoints: [{ x: m.x - 3 * i, y: m.y + 5 * i }] });
+		await cdp.send('Input.dispatchTouchEvent', { type: 'touchEnd', touchPoints: [] });
+		const back = await heldAt(tip);
+		expect(Math.hypot(back.x - start.x, back.y - start.y)).toBeLessThan(0.2);
 		expect(await page.evaluate(() => window.scrollY)).toBe(scrolled);
 		await expect.poll(() => calls.n, { timeout: 10_000 }).toBe(1);
 		await expect.poll(() => page.getByTestId('reading-answer').innerText(), { timeout: 20_000 }).not.toMatch(/taps have changed/);
@@ -311,8 +317,9 @@ describe('the photo reading page: what is drawn over the photo (answers routed t
 		expect(seen.length).toBeLessThan(58);
 		for (const [options, theme, want] of [
 			// 1600 px shown about 800 px wide: the closest teeth (at the long axis' ends, where the rim runs at b) are 2π·400/60 ≈ 42
-			// image px, about 21 screen px apart: room for all (18 px is the room the page keeps).
-			[desktop, 'light', seen],
+			// image px, about 21 screen px apart: less than the 24 px the page keeps, so every 5th (every tooth when there is
+			// room is in the unit tests: overlay-geometry.test.ts).
+			[desktop, 'light', seen.filter((n) => n === 1 || n % 5 === 0)],
 			// About 350 px wide: those 42 image px are 9 screen px; every 5th (about 45 px) has room.
 			[phone, 'dark', seen.filter((n) => n === 1 || n % 5 === 0)]
 		] as const) {
