@@ -56,7 +56,7 @@ function wheelTexture(m: Material): string {
 
 function prism(pts: [number, number][], y0: number, y1: number): string {
 	return `prism { linear_sweep linear_spline ${f(y0)}, ${f(y1)}, ${pts.length + 1},
-	${[...pts, pts[0]].map(([x, z]) => `<${f(x)}, ${f(z)}>`).join(' ')} }`;
+	${[...pts, pts[0]!].map(([x, z]) => `<${f(x)}, ${f(z)}>`).join(' ')} }`;
 }
 
 function wheelObject(s: SceneSpec): string {

@@ -59,7 +59,7 @@ const tapSets: { key: string; name: string; needed: number; taps: (t: Truth) => 
 			return { centre: move(t.centre), tips: t.tips.map(move) };
 		}
 	},
-	{ key: 'c', name: 'centre and a single tip', needed: 13, taps: (t) => ({ centre: t.centre, tips: [t.tips[t.seed % t.tips.length]] }) }
+	{ key: 'c', name: 'centre and a single tip', needed: 13, taps: (t) => ({ centre: t.centre, tips: [t.tips[t.seed % t.tips.length]!] }) }
 ];
 
 describe('readPhoto on the independent photo set (24 test images)', () => {
