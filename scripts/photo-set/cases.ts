@@ -29,15 +29,15 @@ function spread(prefix: string, patterns: [number, number][], seedBase: number, 
 		const j = i + shift;
 		const occluder: Occluder =
 			i % occludedEvery === occludedEvery - 1 ? (Math.floor(i / occludedEvery) % 2 ? 'bracket' : 'finger') : 'none';
-		const [width, height] = SIZES[j % SIZES.length];
+		const [width, height] = SIZES[j % SIZES.length]!;
 		return {
 			name: `${prefix}${String(i + 1).padStart(2, '0')}`,
 			teeth,
 			missing,
 			seed: seedBase + i * 7919,
-			material: MATERIALS[j % 4],
-			background: BACKGROUNDS[(j + Math.floor(j / 4)) % 4],
-			light: LIGHTS[j % 3],
+			material: MATERIALS[j % 4]!,
+			background: BACKGROUNDS[(j + Math.floor(j / 4)) % 4]!,
+			light: LIGHTS[j % 3]!,
 			occluder,
 			width,
 			height

@@ -73,14 +73,15 @@ function hidden(cam: Camera, p: Vec, blockers: Blocker[], margin: number): boole
 		let t0 = 0;
 		let t1 = 1;
 		for (let k = 0; k < 3; k++) {
-			const dir = e[k] - o[k];
-			const h = b.half[k] + margin;
+			const ok = o[k]!;
+			const dir = e[k]! - ok;
+			const h = b.half[k]! + margin;
 			if (Math.abs(dir) < 1e-9) {
-				if (Math.abs(o[k]) > h) return false;
+				if (Math.abs(ok) > h) return false;
 				continue;
 			}
-			let a = (-h - o[k]) / dir;
-			let c = (h - o[k]) / dir;
+			let a = (-h - ok) / dir;
+			let c = (h - ok) / dir;
 			if (a > c) [a, c] = [c, a];
 			t0 = Math.max(t0, a);
 			t1 = Math.min(t1, c);
@@ -187,7 +188,7 @@ function truthOf(c: CaseDef, spec: SceneSpec, blockers: Blocker[], r: Rng, od: n
 			(p, q) =>
 				Math.min(Math.abs(p - target), g.teeth - Math.abs(p - target)) - Math.min(Math.abs(q - target), g.teeth - Math.abs(q - target))
 		);
-		chosen.push(left[0]);
+		chosen.push(left[0]!);
 	}
 	chosen.sort((p, q) => patternPos(p) - patternPos(q));
 	const tips = chosen.map((k) => project(cam, tipAt(k)));
@@ -238,7 +239,7 @@ async function postProcess(png: string, out: string, c: CaseDef, r: Rng) {
 			const luma = r.gauss() * noise;
 			const i = (y * info.width + x) * 3;
 			for (let ch = 0; ch < 3; ch++)
-				data[i + ch] = Math.max(0, Math.min(255, Math.round(data[i + ch] * gain + luma + r.gauss() * noise * 0.3)));
+				data[i + ch] = Math.max(0, Math.min(255, Math.round(data[i + ch]! * gain + luma + r.gauss() * noise * 0.3)));
 		}
 	}
 	// mozjpeg and quality 80-86 keep the 40 images under 12 MB in all.
@@ -292,9 +293,8 @@ async function main() {
 	const check = args.includes('--check');
 	const reuse = arg('--reuse');
 	mkdirSync(outDir, { recursive: true });
-	const work = check
-		? mkdirSync(join(tmpdir(), 'photo-set-check'), { recursive: true }) && join(tmpdir(), 'photo-set-check')
-		: mkdtempSync(join(tmpdir(), 'photo-set-'));
+	const work = check ? join(tmpdir(), 'photo-set-check') : mkdtempSync(join(tmpdir(), 'photo-set-'));
+	mkdirSync(work, { recursive: true });
 	const all = [...TEST_CASES, ...CALIBRATION_CASES].filter((c) => !only || only.includes(c.name));
 	for (const c of all) await renderCase(c, outDir, work, check, reuse);
 	if (!check) {

@@ -9,7 +9,7 @@ export function rng(seed: number) {
 		return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
 	};
 	const between = (lo: number, hi: number) => lo + (hi - lo) * next();
-	const pick = <T>(xs: readonly T[]): T => xs[Math.floor(next() * xs.length)];
+	const pick = <T>(xs: readonly T[]): T => xs[Math.floor(next() * xs.length)]!;
 	let spare: number | null = null;
 	const gauss = () => {
 		if (spare !== null) {

@@ -56,7 +56,7 @@ function wheelTexture(m: Material): string {
 
 function prism(pts: [number, number][], y0: number, y1: number): string {
 	return `prism { linear_sweep linear_spline ${f(y0)}, ${f(y1)}, ${pts.length + 1},
-	${[...pts, pts[0]].map(([x, z]) => `<${f(x)}, ${f(z)}>`).join(' ')} }`;
+	${[...pts, pts[0]!].map(([x, z]) => `<${f(x)}, ${f(z)}>`).join(' ')} }`;
 }
 
 function wheelObject(s: SceneSpec): string {
@@ -179,10 +179,13 @@ function backgroundObjects(s: SceneSpec, r: Rng): string {
 	const n = Math.floor(r.between(2, 6));
 	for (let i = 0; i < n; i++) {
 		const a = r.between(0, 2 * Math.PI);
-		const d = s.wheel.tipR * r.between(1.45, 2.6) + 15;
+		const far = s.wheel.tipR * r.between(1.45, 2.6) + 15;
+		const kind = r.pick(['bolt', 'washer', 'pencil', 'spanner'] as const);
+		// However it is turned, a long object stays 12 mm clear of the rim.
+		const reach = { bolt: 8, washer: 11, pencil: 49, spanner: 73 }[kind];
+		const d = Math.max(far, s.wheel.tipR + reach + 12);
 		const x = d * Math.cos(a);
 		const z = d * Math.sin(a);
-		const kind = r.pick(['bolt', 'washer', 'pencil', 'spanner'] as const);
 		if (kind === 'bolt') out.push(hexBolt(x, z, 0, 13, 8, BOLT_TEX));
 		else if (kind === 'washer')
 			out.push(
