@@ -39,6 +39,7 @@ const documented = [
 	'balanceSpacing',
 	'mark',
 	'label',
+	'etchRing',
 	'rotation',
 	'material',
 	'density',
@@ -138,7 +139,8 @@ describe('the wheel parameter registry', () => {
 				'boltHole',
 				'balancePcd',
 				'balanceHole',
-				'thickness'
+				'thickness',
+				'etchRing'
 			].sort()
 		);
 	});

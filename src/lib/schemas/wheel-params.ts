@@ -129,6 +129,13 @@ const defs = [
 		default: '',
 		whenEmpty: 'no label'
 	},
+	{
+		name: 'etchRing',
+		label: 'Degree ring diameter',
+		help: 'Etches a crank-degree scale (0 at the index mark, BTDC and ATDC marked) round the wheel at this outer diameter, on its own DXF layer; empty for none.',
+		...length(20, 1990),
+		whenEmpty: 'none'
+	},
 	common.rotation,
 	{ name: 'material', label: 'Material', kind: 'choice', values: ['steel', 'stainless', 'aluminium', 'custom'], default: 'steel' },
 	{ name: 'density', label: 'Density', kind: 'number', min: 0.5, max: 25, unit: ' g/cm³', appliesWhen: (p) => p.material === 'custom' },

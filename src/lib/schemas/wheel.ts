@@ -103,6 +103,7 @@ interface Read {
 	material: 'steel' | 'stainless' | 'aluminium' | 'custom';
 	density?: number;
 	thickness: number;
+	etchRing?: number;
 	rpm: number;
 	grade: number;
 	paper: 'a4' | 'letter';
@@ -217,6 +218,7 @@ export function readWheel(params: WheelParams): Checked<ParsedWheel> {
 				label: v.label,
 				rotation: v.rotation,
 				thicknessMm: v.thickness,
+				etchRingMm: v.etchRing ?? null,
 				densityGcm3,
 				materialLabel: v.material === 'custom' ? `density ${densityGcm3} g/cm³` : materials[v.material].label
 			}

@@ -4,6 +4,7 @@ import { patternRefusals, pitchDeg } from './pattern';
 import { permissibleUnbalanceGmm, unbalanceForceN, type MassProperties } from './balance';
 import { deg, formatLength, type Units } from './units';
 import { circleClear, clearOfHole, clearOfLabel, holeBand } from './clearance';
+import { etchRingRefusal } from './etch-ring';
 import { characterName, labelShape, missingCharacters } from './label';
 import {
 	clearanceMm,
@@ -159,6 +160,8 @@ export function refusals(spec: WheelSpec, units: Units): Refusal[] {
 			message: `label: no room to etch it at least ${formatLength(minLabelHeightMm, units)} high between the bore (with its keyway) and the tooth roots; shorten it or leave it empty`
 		});
 	}
+	const ring = etchRingRefusal(spec, units);
+	if (ring) out.push({ field: 'etchRing', message: `etchRing: ${ring}` });
 	if (spec.bolts) out.push(...holeRefusals(spec, spec.bolts, 'bolt', units));
 	if (spec.balanceHoles) out.push(...holeRefusals(spec, spec.balanceHoles, 'balance', units));
 	if (spec.bolts && spec.balanceHoles) {

@@ -38,6 +38,8 @@ export interface WheelSpec {
 	/** Seen from the face drawn (the face the DXF shows). */
 	rotation: Rotation;
 	thicknessMm: number;
+	/** The etched degree ring's outer diameter (etch-ring.ts); absent or null for none. */
+	etchRingMm?: number | null;
 	densityGcm3: number;
 	materialLabel: string;
 }

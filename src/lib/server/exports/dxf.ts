@@ -7,11 +7,14 @@
 import makerjs from 'makerjs';
 import type { Contour, Segment } from '$lib/trade/geometry';
 import type { Units } from '$lib/trade/units';
+import { etchRing, etchRingSegments } from '$lib/trade/etch-ring';
 import { cutContours, drawWheel, labelSegments, type WheelSpec } from '$lib/trade/wheel';
 
 export const layers = {
 	cut: { name: 'CUT', color: makerjs.exporter.colors.red },
-	etch: { name: 'ETCH', color: makerjs.exporter.colors.blue }
+	etch: { name: 'ETCH', color: makerjs.exporter.colors.blue },
+	// The degree ring on a layer of its own: etched like ETCH, but a shop may run it or leave it out.
+	etchDegrees: { name: 'ETCH-DEGREES', color: makerjs.exporter.colors.green }
 } as const;
 
 // makerjs's rounding (to 1e-7, integers as they are) and its fixed tables, as its toDXF writes them.
@@ -68,7 +71,9 @@ export function wheelDxf(spec: WheelSpec, units: Units): string {
 	const entities = cutContours(d).flatMap((c) => contourEntities(c, k, layers.cut.name));
 	const etch = [...d.etch, ...labelSegments(d)];
 	for (const s of etch) entities.push(entity(s, k, layers.etch.name));
-	const used = [layers.cut, ...(etch.length ? [layers.etch] : [])];
+	const ring = etchRing(spec);
+	for (const s of ring ? etchRingSegments(ring) : []) entities.push(entity(s, k, layers.etchDegrees.name));
+	const used = [layers.cut, ...(etch.length ? [layers.etch] : []), ...(ring ? [layers.etchDegrees] : [])];
 	return [
 		dxfHeader(units),
 		`0\nSECTION\n2\nTABLES\n0\nTABLE\n2\nLTYPE\n${lineTypes}\n0\nENDTAB\n0\nTABLE\n2\nLAYER\n${used.map(layerRow).join('\n')}\n0\nENDTAB\n0\nENDSEC`,
