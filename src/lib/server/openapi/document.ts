@@ -35,6 +35,8 @@ const pathParamsOf = (path: string): Parameter[] =>
 
 /** The request body of an entry, with a tool's parameters spelled out inside `params` (or the body itself). */
 function requestBody(body: NonNullable<Operation['body']>, example: unknown): JsonSchema {
+	if ('content' in body)
+		return { required: true, content: Object.fromEntries(Object.entries(body.content).map(([type, schema]) => [type, { schema }])) };
 	if ('multipart' in body) return { required: true, content: { 'multipart/form-data': { schema: body.multipart } } };
 	let schema = '_zod' in body.json ? zodSchema(body.json as z.ZodType) : (body.json as JsonSchema);
 	if (body.params) {

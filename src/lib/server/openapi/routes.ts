@@ -16,6 +16,9 @@ import { cuttingDetails } from '$lib/schemas/cutting-package';
 import { buildSheetParams, phasingParams } from '$lib/schemas/phasing';
 import { maxTips, photoParams } from '$lib/schemas/photo';
 import type { Registry } from '$lib/schemas/registry';
+import { degreeWheelRegistry } from '$lib/schemas/degree-wheel';
+import { edgeLogDesignParams } from '$lib/schemas/edge-log-design';
+import { signalParams } from '$lib/schemas/signal';
 import { tapeRegistry } from '$lib/schemas/tape';
 import { tdcRegistry } from '$lib/schemas/tdc';
 import { timingCardRegistry } from '$lib/schemas/timing-card';
@@ -35,6 +38,7 @@ export const tags = {
 	Designs: 'Wheel designs and their revisions, which are never changed once saved (signed in).',
 	Photos: 'Wheel photos and reading a wheel from one (signed in).',
 	'Cutting packages': 'The DXF and shop drawing of a revision, e-mailed to a fabricator (signed in).',
+	Signal: 'The signal check: will the ECU find the gap at every speed; a recorded edge log read against the design. No account needed.',
 	Document: 'This document.'
 } as const;
 
@@ -48,7 +52,11 @@ export interface Operation {
 	access?: 'anyone' | 'read' | 'edit';
 	query?: Query;
 	/** A zod schema, or JSON Schema for a body no zod schema states (a tool's own check reads it). */
-	body?: { json: z.ZodType | JsonSchema; params?: Registry | readonly Registry[] } | { multipart: JsonSchema };
+	body?:
+		| { json: z.ZodType | JsonSchema; params?: Registry | readonly Registry[] }
+		| { multipart: JsonSchema }
+		/** A body that is a file in one of several types (an edge log as text/csv or a multipart form). */
+		| { content: Record<string, JsonSchema> };
 	answer: Answer;
 	/** Answers beyond what access, query and body imply (a 409, a 429 …); one given for 400 replaces the shared one. */
 	also?: readonly Extra[];
@@ -61,10 +69,10 @@ export type RouteTable = Record<string, Partial<Record<Method, Operation>>>;
 /** Path parameters by name; a name not here is an object's id (a UUID). */
 export const pathParams: Record<string, JsonSchema> = {
 	number: { type: 'integer', minimum: 1, maximum: 1_000_000, description: 'The revision number.' },
-	file: { type: 'string', enum: ['wheel.dxf', 'wheel.svg', 'wheel.pdf'], description: 'Which file of the revision.' }
+	file: { type: 'string', enum: ['wheel.dxf', 'wheel.svg', 'wheel.pdf', 'wheel.stl'], description: 'Which file of the revision.' }
 };
 
-const wheelFiles = { dxf: 'application/dxf', svg: 'image/svg+xml', pdf: 'application/pdf' } as const;
+const wheelFiles = { dxf: 'application/dxf', svg: 'image/svg+xml', pdf: 'application/pdf', stl: 'model/stl' } as const;
 const wheelExample = { query: { teeth: '36', missing: '1', od: '120', depth: '5', bore: '20', thickness: '3' } };
 const nameTaken: Extra = { status: 409, description: 'Another one in this workshop or build has that name (code `conflict`).' };
 const stale: Extra = {
@@ -94,7 +102,76 @@ const wheelSummary = {
 	warnings: 'array'
 };
 
+const signalAnswer = {
+	cycleDeg: 'number: crank degrees of one engine cycle',
+	compression: 'array: each cylinder’s compression event (fromDeg, tdcDeg, toDeg)',
+	cases:
+		'array: per speed case its syncMargin (a fraction; below 0 the ECU loses sync), gapRatioMin, normalRatioMax, worst (crankDeg, cylinder, what), missedPerCycle, falsePerCycle and the first cycle’s spaces',
+	sweep: 'array: the worst syncMargin over the cases at each clocking (clockingDeg, wheel degrees)',
+	current: 'object: toothAtTdc, syncMargin',
+	best: 'object: toothAtTdc, syncMargin, keywayShiftDeg (add to the designer’s keywayAngle)',
+	sensor: 'object: kind, topRpm, hz, maxHz, vr (crankingRpmAtThreshold, estimated)',
+	warnings: 'array: code and message'
+};
+const edgeLogAnswer = {
+	kind: 'string: times or spaces',
+	unit: 'string: s, ms or us',
+	edges: 'integer',
+	pattern: 'object|null: teeth, missing, gapAt (edge index of tooth 0), gapRow',
+	matchesDesign: 'boolean|null',
+	designDifference: 'string|null',
+	missingEdges: 'object: count, at (row, count)',
+	extraEdges: 'object: count, rows',
+	speedSwingPct: 'object|null: perTurn, mean, max',
+	runout: 'object|null: amplitudePct, phaseDeg',
+	turns: 'integer',
+	meanRpm: 'number|null',
+	notes: 'array'
+};
+
 export const routes: RouteTable = {
+	'/signal': {
+		GET: {
+			tag: 'Signal',
+			summary: 'Will the ECU find the gap: the sync margin per speed case',
+			description:
+				'The phasing check’s wheel and engine parameters, plus `swing` (% peak to peak) and `accel` (rpm/s): either one makes a single case at `rpm`; otherwise cranking, idle, free rev and the rev limit are checked. A space counts as the gap when it is longer than `ratio` times the space before it.',
+			query: signalParams,
+			answer: json('Every case with its sync margin, the clocking sweep and the sensor.', signalAnswer),
+			example: { query: { teeth: '36', missing: '1', toothAtTdc: '9', layout: 'single-4', rpm: '9000' } }
+		}
+	},
+	'/signal/edges.csv': {
+		GET: {
+			tag: 'Signal',
+			summary: 'The tooth-edge table over one engine cycle',
+			description: 'One row per tooth edge: `edge,tooth,kind,wheel_deg,crank_deg,time_ms` (time at the one case given, or at cranking).',
+			query: signalParams,
+			answer: file('The CSV.', 'text/csv'),
+			example: { query: { teeth: '36', missing: '1', toothAtTdc: '9', layout: 'single-4' } }
+		}
+	},
+	'/signal/log': {
+		POST: {
+			tag: 'Signal',
+			summary: 'Read a recorded edge log against the design',
+			description:
+				'One edge time or tooth space per row (docs/edge-log-format.md). Scripts send `text/csv`: `text/plain` and multipart posts from another origin are refused. Stores nothing.',
+			query: edgeLogDesignParams,
+			body: {
+				content: {
+					'text/csv': { type: 'string', description: 'The log, one value per row; an optional header names the unit and kind.' },
+					'multipart/form-data': {
+						type: 'object',
+						required: ['log'],
+						properties: { log: { type: 'string', format: 'binary', description: 'The log file.' } }
+					}
+				}
+			},
+			answer: json('The pattern found and how it compares with the design.', edgeLogAnswer),
+			also: [{ status: 415, description: 'The body is not text/csv, text/plain or a multipart form.' }]
+		}
+	},
 	'/wheel': {
 		GET: {
 			tag: 'Wheel',
@@ -111,6 +188,17 @@ export const routes: RouteTable = {
 			description: 'DXF R12 in the wheel’s units: layer CUT (outline, bore, keyway, holes), layer ETCH (index mark, label).',
 			query: wheelParams,
 			answer: file('The DXF.', wheelFiles.dxf),
+			example: wheelExample
+		}
+	},
+	'/wheel.stl': {
+		GET: {
+			tag: 'Wheel',
+			summary: 'The wheel as binary STL for a 3D-printed test-fit copy',
+			description:
+				'The cut outline with bore, keyway and holes extruded to `thickness`, in mm whatever `units` is. A printed wheel is for test-fit only: never run it on an engine.',
+			query: wheelParams,
+			answer: file('The STL (binary).', wheelFiles.stl),
 			example: wheelExample
 		}
 	},
@@ -164,6 +252,17 @@ export const routes: RouteTable = {
 			query: tapeRegistry,
 			answer: file('The PDF.', 'application/pdf'),
 			example: { query: { diameter: '76.2', rotation: 'cw' } }
+		}
+	},
+	'/degree-wheel.pdf': {
+		GET: {
+			tag: 'Tape and TDC',
+			summary: 'A round degree wheel to print at actual size',
+			description:
+				'The tape’s scale round a disc the hub’s diameter, with a centre hole of `shaft`, BTDC and ATDC as on the tape, and calibration bars. Check the bars with a rule; verify timing with a timing light before load.',
+			query: degreeWheelRegistry,
+			answer: file('The PDF.', 'application/pdf'),
+			example: { query: { diameter: '120', rotation: 'cw', shaft: '20' } }
 		}
 	},
 	'/timing-card.pdf': {
@@ -461,7 +560,7 @@ export const routes: RouteTable = {
 			tag: 'Designs',
 			summary: 'A revision’s wheel file',
 			access: 'read',
-			answer: file('The file; its name carries the revision.', wheelFiles.dxf, wheelFiles.svg, wheelFiles.pdf),
+			answer: file('The file; its name carries the revision.', wheelFiles.dxf, wheelFiles.svg, wheelFiles.pdf, wheelFiles.stl),
 			also: [{ status: 422, description: 'The revision no longer passes the wheel checks (a range was tightened since).' }]
 		}
 	},

@@ -2,7 +2,7 @@ import { json } from '@sveltejs/kit';
 import { refuse } from '$lib/server/api';
 import { refusal } from '$lib/schemas/refusal';
 import { edgeLogLimits, parseEdgeLog, readEdgeLog } from '$lib/trade/edge-log';
-import { designFromQuery } from './design-query';
+import { designFromQuery } from '$lib/schemas/edge-log-design';
 
 // The edge log read against the design (docs/edge-log-format.md): the CSV as the body (text/csv
 // or text/plain) or as the file field `log` of a multipart form; the design, when given, in the
