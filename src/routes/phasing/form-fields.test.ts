@@ -9,14 +9,17 @@ import { formStart, labelOf, phasingSent, sheetFormKeys, sheetSent } from './for
 // list in README.md, not read from the code.
 
 const here = import.meta.dirname;
+/** The engine and wheel fields the page shares with the signal check. */
+const shared = join(here, '..', '..', 'lib', 'components', 'engine');
 const known = new Set<string>([...phasingParams.names, ...buildSheetParams.names]);
 
 /** Every field name the route's components (not the page's head) give a control: `name="…"` on Param, Choice, Field. */
 function namesInComponents(): string[] {
 	const names: string[] = [];
-	for (const file of readdirSync(here).filter((f) => f.endsWith('.svelte') && !f.startsWith('+'))) {
-		for (const m of readFileSync(join(here, file), 'utf8').matchAll(/\bname="([A-Za-z]+)"/g)) names.push(m[1]!);
-	}
+	for (const dir of [here, shared])
+		for (const file of readdirSync(dir).filter((f) => f.endsWith('.svelte') && !f.startsWith('+'))) {
+			for (const m of readFileSync(join(dir, file), 'utf8').matchAll(/\bname="([A-Za-z]+)"/g)) names.push(m[1]!);
+		}
 	return names;
 }
 
