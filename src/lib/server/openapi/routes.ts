@@ -19,6 +19,7 @@ import type { Registry } from '$lib/schemas/registry';
 import { degreeWheelRegistry } from '$lib/schemas/degree-wheel';
 import { edgeLogDesignParams } from '$lib/schemas/edge-log-design';
 import { signalParams } from '$lib/schemas/signal';
+import { caseParams } from '$lib/schemas/signal-cases';
 import { tapeRegistry } from '$lib/schemas/tape';
 import { tdcRegistry } from '$lib/schemas/tdc';
 import { timingCardRegistry } from '$lib/schemas/timing-card';
@@ -441,6 +442,21 @@ export const routes: RouteTable = {
 	},
 	'/builds/{buildId}/tapes/{recordId}': {
 		DELETE: { tag: 'Builds', summary: 'Delete a saved degree tape', access: 'edit', answer: empty('Deleted.') }
+	},
+	'/builds/{buildId}/signal-checks': {
+		POST: {
+			tag: 'Builds',
+			summary: 'Save a signal check',
+			description:
+				'The parameters `GET /api/v1/signal` takes, plus each speed case’s own (`idleRpm`, `freeRevRpm`, `<case>Swing`, `<case>Accel`); checked again and its margins worked out on the server. Refusals of a tool parameter name `params.<field>`.',
+			access: 'edit',
+			body: { json: saveRecord, params: [signalParams, caseParams] },
+			answer: json('Saved, with each case’s sync margin.', { id: 'string', cases: 'array' }, 201),
+			example: { body: { label: 'Cranking check', params: { teeth: '36', missing: '1', toothAtTdc: '9', layout: 'single-4' } } }
+		}
+	},
+	'/builds/{buildId}/signal-checks/{recordId}': {
+		DELETE: { tag: 'Builds', summary: 'Delete a saved signal check', access: 'edit', answer: empty('Deleted.') }
 	},
 	'/builds/{buildId}/build-sheet.pdf': {
 		GET: {
