@@ -1,6 +1,6 @@
 // The tape page and GET /api/v1/tape check a query with the same function (checkTape), so for the
 // same bad query they give the same first reason; the expected texts are typed here from the
-// ranges the tape publishes (README: /api/v1/tape), not taken from the code under test.
+// ranges the tape publishes (the tape's parameters as the README published them), not taken from the code under test.
 import { describe, expect, it } from 'vitest';
 import { checkTape } from '../../src/lib/schemas/tape';
 import { checkTdc } from '../../src/lib/schemas/tdc';

@@ -1,5 +1,5 @@
 // The tape's and the timing-light card's one check. Expected refusals are typed here from the
-// ranges the tools publish (README: /api/v1/tape), not taken from the registry under test.
+// ranges the tools publish (the tape's parameters as the README published them), not taken from the registry under test.
 import { describe, expect, it } from 'vitest';
 import { checkTape, tapeRegistry } from './tape';
 import { checkTimingCard } from './timing-card';

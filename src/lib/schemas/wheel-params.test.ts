@@ -5,10 +5,10 @@ import { checkWheel } from './wheel';
 import { allows } from './registry';
 import { applying, filledWheel, lengthParams, newWheel, wheelParams } from './wheel-params';
 
-// Expected values are typed here from the README's table of wheel parameters (names, defaults,
-// ranges in mm) and from 1 in = 25.4 mm exactly; none is read from the registry under test.
+// Expected values are typed here from the wheel parameter table the README published before the
+// OpenAPI document replaced it (names, defaults, ranges in mm) and from 1 in = 25.4 mm exactly; none is read from the registry under test.
 
-/** The README's wheel parameter table, plus `paper` from its wheel.pdf row. */
+/** That published wheel parameter table, plus `paper` from its wheel.pdf row. */
 const documented = [
 	'units',
 	'pattern',

@@ -6,7 +6,7 @@ import { formStart, labelOf, phasingSent, sheetFormKeys, sheetSent } from './for
 
 // The phasing page's form against its registries (src/lib/schemas/phasing.ts): every field it
 // shows or sends is a registered public name. Expected names are typed from the API's parameter
-// list in README.md, not read from the code.
+// list as README.md published it, not read from the code.
 
 const here = import.meta.dirname;
 /** The engine and wheel fields the page shares with the signal check. */

@@ -96,7 +96,7 @@ describe('the OpenAPI document', () => {
 
 	it('states the wheel’s ranges and units as the designer takes them', () => {
 		const teeth = op('/wheel', 'get').parameters?.find((p) => p.name === 'teeth');
-		// README's parameter table (hand-written before this document): teeth 1–720, required; od 10–2000 mm.
+		// The parameter table the README published before this document: teeth 1–720, required; od 10–2000 mm.
 		expect(teeth?.schema).toMatchObject({ type: 'integer', minimum: 1, maximum: 720 });
 		const od = op('/wheel', 'get').parameters?.find((p) => p.name === 'od') ?? {};
 		expect(od['x-range-mm']).toEqual({ minimum: 10, maximum: 2000 });
