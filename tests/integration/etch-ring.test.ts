@@ -53,9 +53,10 @@ describe('etched degree ring in the wheel DXF (ezdxf) against the turning engine
 		// 360 ticks, each radial (both ends on one ray), their outer ends on the ring's diameter.
 		expect(ring.ticks.length).toBe(360);
 		const outerR = Math.max(...ring.ticks.map((t) => t.rOuter));
+		// The DXF's coordinates are rounded to its written decimals: on an inch ring that alone is about 2e-6.
 		for (const t of ring.ticks) {
-			expect(t.spread).toBeLessThan(1e-6);
-			expect(Math.abs(t.rOuter - outerR)).toBeLessThan(1e-6);
+			expect(t.spread).toBeLessThan(1e-5);
+			expect(Math.abs(t.rOuter - outerR)).toBeLessThan(1e-5);
 		}
 		const tickLength = (t: Ring['ticks'][number]) => t.rOuter - t.rInner;
 		const lengths = [...new Set(ring.ticks.map((t) => tickLength(t).toFixed(3)))].map(Number).sort((a, b) => a - b);

@@ -124,7 +124,7 @@ describe('wheel STL read by admesh', () => {
 	});
 
 	it('refuses a wheel that cannot be made, naming the field, as wheel.dxf does', async () => {
-		const res = await fetch(`${app}/api/v1/wheel.stl?${new URLSearchParams({ od: '100', depth: '5', bore: '95' })}`);
+		const res = await fetch(`${app}/api/v1/wheel.stl?${new URLSearchParams({ teeth: '36', od: '100', depth: '5', bore: '95' })}`);
 		expect(res.status).toBe(400);
 		const body = (await res.json()) as { refusals: { field: string }[] };
 		expect(body.refusals.map((r) => r.field)).toContain('bore');
