@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { defaultCases, signalCheck, toothEdges, type SignalInput, type SpeedCase } from './signal';
+import { syncVerdict } from './sync-verdict';
 
 const steady = (rpm: number): SpeedCase => ({ id: 's', label: 'Steady', rpm, swingPct: 0, accelRpmPerS: 0 });
 const wheel36 = {
@@ -189,6 +190,18 @@ describe('the sweep and the sensor', () => {
 		// Keyway shift: wheel degrees between the two clockings, the short way round (the tooth is rounded to 3 places).
 		const shift = (((((r.best.toothAtTdc - 9) * 10 + 180) % 360) + 360) % 360) - 180;
 		expect(Math.abs(r.best.keywayShiftDeg - shift)).toBeLessThan(0.01);
+	});
+
+	it('one line between tight and safe: the words and the warning agree on a 12 % and a 20 % margin', () => {
+		// At constant speed a 36-1's gap is 2 spaces, so a ratio r leaves min(2/r − 1, 1 − 1/r) (geometry):
+		// r = 1.785 gives 12.0 %, r = 1.65 gives 21.2 %.
+		const tight = check({ rule: { ratio: 1.785 } });
+		expect(tight.cases[0]!.syncMargin).toBeCloseTo(2 / 1.785 - 1, 4);
+		expect(syncVerdict(tight.cases[0]!.syncMargin)).toBe('tight');
+		expect(tight.warnings.map((w) => w.code)).toContain('thin-margin');
+		const safe = check({ rule: { ratio: 1.65 } });
+		expect(syncVerdict(safe.cases[0]!.syncMargin)).toBe('safe');
+		expect(safe.warnings.map((w) => w.code)).not.toContain('thin-margin');
 	});
 
 	it('Hall frequency at the top speed: f = N·rpm/60 (common practice), half on the cam', () => {

@@ -9,6 +9,7 @@ import { compressionEvents, crankMotion, swingShape, swingTable, type CrankMotio
 import { cycleDeg, firingTdcs } from './engine';
 import type { PhasingInput } from './phasing';
 import { gapsOf, pitchDeg, teethOf } from './pattern';
+import { tightBelow } from './sync-verdict';
 
 /** One speed the engine turns at while the ECU must keep its sync. */
 export interface SpeedCase {
@@ -451,10 +452,10 @@ function warningsOf(input: SignalInput, cases: CaseResult[], best: SignalCheck['
 				code: 'no-sync',
 				message: `${c.case.label}: ${what} at ${c.worst.crankDeg}° after cylinder 1’s TDC${cylinderWords(c.worst.cylinder)}; the ECU loses or never finds its sync there.`
 			});
-		} else if (c.syncMargin < 0.1) {
+		} else if (c.syncMargin < tightBelow) {
 			warnings.push({
 				code: 'thin-margin',
-				message: `${c.case.label}: a sync margin of ${pct(c.syncMargin)} leaves little for sensor noise, runout and a harder start than modelled (from memory, keep it above 10 %).`
+				message: `${c.case.label}: a sync margin of ${pct(c.syncMargin)} leaves little for sensor noise, runout and a harder start than modelled (from memory, keep it above ${pct(tightBelow)}).`
 			});
 		}
 	}
