@@ -12,6 +12,8 @@ import fc from 'fast-check';
 import sharp from 'sharp';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { buildSheetKeys } from '../../src/lib/schemas/phasing';
+import { edgeLogDesignParams } from '../../src/lib/schemas/edge-log-design';
+import { signalParams } from '../../src/lib/schemas/signal';
 import { wheelParams as wheelRegistry } from '../../src/lib/schemas/wheel-params';
 import { cutContours, drawWheel } from '../../src/lib/trade/wheel';
 import { outlineDefects } from '../support/outline-check';
@@ -69,6 +71,8 @@ const phasingNames = [
 	'keyFromSensor'
 ];
 const sheetNames = [...new Set([...wheelNames, ...phasingNames, ...buildSheetKeys])];
+const signalNames = signalParams.names;
+const degreeWheelNames = [...tapeNames, 'shaft'];
 /** Every name any route takes, for requests sent to routes at random. */
 const everyName = [
 	...new Set([
@@ -76,6 +80,8 @@ const everyName = [
 		...tapeNames,
 		...tdcNames,
 		...cardNames,
+		...signalNames,
+		'shaft',
 		'workshop',
 		'q',
 		'sort',
@@ -509,6 +515,10 @@ const statelessRoutes: { path: string; names: readonly string[]; base: Record<st
 	{ path: '/api/v1/timing-card.pdf', names: cardNames, base: cardBase, runs: 60 },
 	{ path: '/api/v1/phasing', names: phasingNames, base: phasingBase, runs: 300 },
 	{ path: '/api/v1/build-sheet.pdf', names: sheetNames, base: sheetBase, runs: 40 },
+	{ path: '/api/v1/wheel.stl', names: wheelNames, base: wheelBase, runs: 40 },
+	{ path: '/api/v1/degree-wheel.pdf', names: degreeWheelNames, base: { ...tapeBase, shaft: '20' }, runs: 40 },
+	{ path: '/api/v1/signal', names: signalNames, base: phasingBase, runs: 120 },
+	{ path: '/api/v1/signal/edges.csv', names: signalNames, base: phasingBase, runs: 40 },
 	{ path: '/api/health', names: ['x'], base: {}, runs: 20 }
 ];
 
@@ -568,6 +578,21 @@ describe('the stateless tool routes', () => {
 			);
 		}, 120_000);
 	}
+
+	it('POST /api/v1/signal/log: any text as the log, any design in the query, any content type', async () => {
+		const names = [...edgeLogDesignParams.names, 'log'];
+		// Rows a scope or an ECU might write, and rows nobody would.
+		const row = fc.oneof(fc.integer({ min: 0, max: 1e7 }).map(String), fc.double().map(String), edgeText, fc.string({ maxLength: 20 }));
+		const log = fc.tuple(fc.array(row, { maxLength: 300 }), fc.constantFrom('\n', '\r\n', '\r', ',')).map(([rows, end]) => rows.join(end));
+		const type = fc.constantFrom('text/csv', 'text/plain; charset=utf-8', 'application/json', 'multipart/form-data', 'image/png');
+		await run(
+			fc.record({ query: queryArb(edgeLogDesignParams.names, {}), log, type }),
+			120,
+			async ({ query, log, type }) =>
+				expectSound(await send({ method: 'POST', path: `/api/v1/signal/log?${query}`, body: log, type }), names),
+			40
+		);
+	}, 120_000);
 });
 
 describe('the signed-in routes', () => {
