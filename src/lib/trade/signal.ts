@@ -9,6 +9,7 @@ import { compressionEvents, crankMotion, swingShape, swingTable, type CrankMotio
 import { cycleDeg, firingTdcs } from './engine';
 import type { PhasingInput } from './phasing';
 import { gapsOf, pitchDeg, teethOf } from './pattern';
+import { gridMargin, gridTurn, marginTerm, timeTable } from './signal-sweep';
 import { tightBelow } from './sync-verdict';
 
 /** One speed the engine turns at while the ECU must keep its sync. */
@@ -267,13 +268,11 @@ function judge(
 			const isGap = th2 - th1 > gapSpan;
 			if (Number.isFinite(ratio)) {
 				const found = ratio > rule.ratio && (after === undefined || next < after);
-				let term: number;
+				const term = marginTerm(ratio, next, isGap, rule);
 				if (isGap) {
-					term = Math.min(ratio / rule.ratio - 1, after === undefined ? Infinity : 1 - next / after);
 					if (ratio < gapRatioMin) gapRatioMin = ratio;
 					if (!found) missed++;
 				} else {
-					term = Math.max(1 - ratio / rule.ratio, after === undefined || !Number.isFinite(next) ? -Infinity : next / after - 1);
 					if (ratio > normalRatioMax) normalRatioMax = ratio;
 					if (found) falses++;
 				}
@@ -309,19 +308,6 @@ function judge(
 		missed,
 		falses
 	};
-}
-
-/**
- * The motion's times read once on a grid of crank angles (`origin` + i·`gridStep`) over a window
- * with room either side: every edge of a clocking on the sweep's grid lies on it, so each clocking
- * reads its edges' times instead of working them out again.
- */
-function timeGrid(motion: CrankMotion, origin: number, gridStep: number, from: number, to: number): (thetaDeg: number) => number {
-	const i0 = Math.floor((from - origin) / gridStep) - 1;
-	const i1 = Math.ceil((to - origin) / gridStep) + 1;
-	const table = new Float64Array(i1 - i0 + 1);
-	for (let i = i0; i <= i1; i++) table[i - i0] = motion.timeAt(origin + i * gridStep);
-	return (theta) => table[Math.round((theta - origin) / gridStep) - i0] ?? motion.timeAt(theta);
 }
 
 export function signalCheck(input: SignalInput): SignalCheck {
@@ -364,32 +350,31 @@ export function signalCheck(input: SignalInput): SignalCheck {
 	const origin = (readEdges[0]?.wheelDeg ?? 0) * f.factor;
 	const span = Math.min(f.period, end);
 	const lead = 2 * f.wheelTurn;
-	const sweepTimes = input.cases.map((c, i) => {
+	const sweepCases = input.cases.map((c, i) => {
 		const [from, to] = c.accelRpmPerS >= 0 ? [0, span] : [end - span, end];
-		return {
-			window: [[from, to]] as [number, number][],
-			timeAt: timeGrid(motions[i]!, origin, step * f.factor, from - lead, to + f.wheelTurn)
-		};
+		return { from, to, table: timeTable(motions[i]!.timeAt, origin, step * f.factor, from - lead, to + f.wheelTurn) };
 	});
-	const worstOf = (clockingDeg: number, whole: boolean) => {
-		const at = readTurn(readEdges, clockingDeg, f);
+	const gapSpan = 1.5 * f.pitch * f.factor;
+	const sweepMargin = (clockingDeg: number) => {
+		const turn = gridTurn(readTurn(readEdges, clockingDeg, f), origin, step * f.factor, f.wheelTurn);
 		let worst = Infinity;
-		for (let i = 0; i < motions.length; i++) {
-			const m = whole
-				? judge(at, motions[i]!.timeAt, input.rule, f, fullRun)
-				: judge(at, sweepTimes[i]!.timeAt, input.rule, f, sweepTimes[i]!.window);
-			worst = Math.min(worst, m.margin);
-		}
+		for (const c of sweepCases) worst = Math.min(worst, gridMargin(turn, c.table, input.rule, gapSpan, c.from, c.to));
 		return worst;
 	};
+	const wholeRunMargin = (clockingDeg: number) => {
+		const at = readTurn(readEdges, clockingDeg, f);
+		return Math.min(...motions.map((m) => judge(at, m.timeAt, input.rule, f, fullRun).margin));
+	};
 	const sweep: SignalCheck['sweep'] = [];
-	for (let k = 0; k * step < 360 - 1e-9; k++) sweep.push({ clockingDeg: round(k * step, 3), syncMargin: round(worstOf(k * step, false)) });
+	for (let k = 0; k * step < 360 - 1e-9; k++) sweep.push({ clockingDeg: round(k * step, 3), syncMargin: round(sweepMargin(k * step)) });
 
 	// The best of the sweep, judged over the whole run like the current one; the current stays unless beaten.
 	let best = { toothAtTdc: input.toothAtTdc, syncMargin: currentMargin, keywayShiftDeg: 0 };
 	const ranked = [...sweep].sort((a, b) => b.syncMargin - a.syncMargin).slice(0, 3);
 	for (const candidate of ranked) {
-		const margin = round(worstOf(candidate.clockingDeg, true));
+		// The whole run holds the sweep's window, so it can only do worse there than in the sweep.
+		if (candidate.syncMargin <= best.syncMargin + 1e-9) continue;
+		const margin = round(wholeRunMargin(candidate.clockingDeg));
 		if (margin > best.syncMargin + 1e-9) {
 			const shift = norm(candidate.clockingDeg - clocking0 + 180, 360) - 180;
 			best = { toothAtTdc: round(candidate.clockingDeg / f.pitch, 3), syncMargin: margin, keywayShiftDeg: round(shift, 3) };
