@@ -73,4 +73,22 @@ describe('TDC finder and degree tape in Chromium (signed out)', () => {
 		expect(execFileSync('pdfinfo', [file], { encoding: 'utf8' })).toMatch(/Pages:\s+1/);
 		await context.close();
 	});
+
+	it('cuts the round degree wheel’s centre hole to the shaft typed, and refuses one wider than the ring of marks allows', async () => {
+		const context = await browser.newContext();
+		const page = await context.newPage();
+		await page.goto(`${baseUrl}/tape`);
+		await page.getByLabel('Hub diameter (mm)').fill('150');
+		const disc = page.getByRole('link', { name: 'Download degree wheel PDF (disc)' });
+		await expect.poll(() => disc.getAttribute('href')).toMatch(/diameter=150/);
+		expect(await disc.getAttribute('href')).not.toMatch(/shaft=/);
+		const shaft = page.getByLabel('Shaft diameter (mm)');
+		await shaft.fill('25');
+		await expect.poll(() => disc.getAttribute('href')).toMatch(/[?&]shaft=25(&|$)/);
+		// A hole as wide as the disc cannot leave the marks whole: the field says so and the link waits.
+		await shaft.fill('140');
+		await expect.poll(() => disc.getAttribute('aria-disabled')).toBe('true');
+		expect(await shaft.getAttribute('aria-invalid')).toBe('true');
+		await context.close();
+	});
 });
