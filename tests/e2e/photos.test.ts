@@ -90,6 +90,8 @@ describe('wheel photos and the photo reading in Chromium', () => {
 		await expect.poll(() => thumbnail.count(), { timeout: 10_000 }).toBe(1);
 		await thumbnail.scrollIntoViewIfNeeded();
 		await expect.poll(() => thumbnail.evaluate((img: HTMLImageElement) => img.complete && img.naturalWidth > 0)).toBe(true);
+		// The page's data reloaded for the thumbnail; the finished upload still says so.
+		expect(await row.getAttribute('data-status')).toBe('done');
 
 		// A text file named like a JPEG is refused by its bytes, and the refusal names the file.
 		await page
