@@ -28,6 +28,17 @@ export type ListOptions = Pick<BuildQuery, 'q' | 'sort' | 'size' | 'dir' | 'curs
  * workshop, so the name alone orders; times tie, so the id breaks ties in the same direction.
  */
 export async function listBuilds(database: Queryable, workshopId: string, options: ListOptions = { q: '', sort: 'name', size: 100 }) {
+	const { query, sort, dir, size } = buildsPageQuery(database, workshopId, options);
+	const rows = await query;
+	const more = rows.length > size;
+	const shown = rows.slice(0, size);
+	const last = shown.at(-1);
+	const next = more && last ? writeBuildCursor({ sort, dir, key: last.key, id: last.id }) : null;
+	return { builds: shown.map(({ key: _key, ...row }) => row), next, size, sort, dir };
+}
+
+/** The statement of one page (one row more than asked for), apart so a test can EXPLAIN it. */
+export function buildsPageQuery(database: Queryable, workshopId: string, options: ListOptions) {
 	const { sort, size } = options;
 	const dir = options.dir ?? defaultDir(sort);
 	const after = options.cursor === undefined ? null : readBuildCursor(options.cursor);
@@ -49,17 +60,13 @@ export async function listBuilds(database: Queryable, workshopId: string, option
 		order = dir === 'asc' ? [asc(column), asc(build.id)] : [desc(column), desc(build.id)];
 	}
 	const designs = database.$count(wheelDesign, eq(wheelDesign.buildId, build.id));
-	const rows = await database
+	const query = database
 		.select({ id: build.id, name: build.name, engine: build.engine, designs, createdAt: build.createdAt, updatedAt: build.updatedAt, key })
 		.from(build)
 		.where(and(...conditions))
 		.orderBy(...order)
 		.limit(size + 1);
-	const more = rows.length > size;
-	const shown = rows.slice(0, size);
-	const last = shown.at(-1);
-	const next = more && last ? writeBuildCursor({ sort, dir, key: last.key, id: last.id }) : null;
-	return { builds: shown.map(({ key: _key, ...row }) => row), next, size, sort, dir };
+	return { query, sort, dir, size };
 }
 
 export async function getBuild(database: Queryable, buildId: string) {

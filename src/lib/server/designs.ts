@@ -55,14 +55,18 @@ export async function designsOf(database: Queryable, buildId: string) {
 
 /** The newest revision's number (0 for a design with none, which createDesign never leaves). */
 export async function headRevisionOf(database: Queryable, designId: string): Promise<number> {
-	const [row] = await database
+	const [row] = await headRevisionQuery(database, designId);
+	return row?.number ?? 0;
+}
+
+/** The head probe's statement, apart so a test can EXPLAIN it. */
+export const headRevisionQuery = (database: Queryable, designId: string) =>
+	database
 		.select({ number: wheelRevision.number })
 		.from(wheelRevision)
 		.where(eq(wheelRevision.designId, designId))
 		.orderBy(desc(wheelRevision.number))
 		.limit(1);
-	return row?.number ?? 0;
-}
 
 export async function getDesign(database: Queryable, designId: string) {
 	const [row] = await database.select().from(wheelDesign).where(eq(wheelDesign.id, designId));
@@ -86,6 +90,14 @@ export async function revisionPage(
 	options: { cursor?: string; q?: string; size?: number } = {}
 ): Promise<{ revisions: Revision[]; next: string | null }> {
 	const size = options.size ?? revisionPageSize;
+	const rows = await revisionPageQuery(database, designId, { ...options, size });
+	const revisions = rows.slice(0, size);
+	const last = revisions.at(-1);
+	return { revisions, next: rows.length > size && last ? writeRevisionCursor(last.number) : null };
+}
+
+/** One page's statement (one row more than `size`), apart so a test can EXPLAIN it. */
+export function revisionPageQuery(database: Queryable, designId: string, options: { cursor?: string; q?: string; size: number }) {
 	const below = options.cursor === undefined ? null : readRevisionCursor(options.cursor);
 	const conditions = [eq(wheelRevision.designId, designId)];
 	if (below !== null) conditions.push(lt(wheelRevision.number, below));
@@ -95,16 +107,13 @@ export async function revisionPage(
 		const byMessage = ilike(wheelRevision.message, likePattern(q));
 		conditions.push(asNumber === null ? byMessage : or(eq(wheelRevision.number, asNumber), byMessage)!);
 	}
-	const rows = await database
+	return database
 		.select(revisionColumns)
 		.from(wheelRevision)
 		.leftJoin(user, eq(user.id, wheelRevision.authorId))
 		.where(and(...conditions))
 		.orderBy(desc(wheelRevision.number))
-		.limit(size + 1);
-	const revisions = rows.slice(0, size);
-	const last = revisions.at(-1);
-	return { revisions, next: rows.length > size && last ? writeRevisionCursor(last.number) : null };
+		.limit(options.size + 1);
 }
 
 /** One revision, or the newest when `number` is not given. */
