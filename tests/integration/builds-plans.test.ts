@@ -32,6 +32,9 @@ beforeAll(async () => {
 		`insert into wheel_revision (design_id, number, params, message) select $1, g, '{}'::jsonb, 'Step ' || g from generate_series(1, 5000) g`,
 		[designId]
 	);
+	// Rows fresh from one transaction sit in the trigram indexes' GIN pending list, which makes a
+	// bitmap scan look dear; autovacuum merges it in a live database, this does it now.
+	await client.query(`select gin_clean_pending_list('build_name_trgm'::regclass), gin_clean_pending_list('build_engine_trgm'::regclass)`);
 	// ANALYZE counts the rows this transaction inserted; its statistics roll back with it.
 	await client.query('analyze build, wheel_revision');
 }, 60_000);
@@ -84,7 +87,7 @@ describe('the list statements’ plans', () => {
 
 	it('a rare search goes through the trigram indexes on name and engine', async () => {
 		const plan = await planOf(buildsPageQuery(database, workshopId, { q: 'no. 12345', sort: 'updated', size: 20 }).query);
-		expect(plan).toContain('Bitmap Index Scan on build_name_trgm');
+		expect(plan, plan.join(' | ')).toContain('Bitmap Index Scan on build_name_trgm');
 		expect(plan).toContain('Bitmap Index Scan on build_engine_trgm');
 		expect(plan).not.toContain('Seq Scan');
 	});

@@ -1,5 +1,4 @@
-import { and, desc, eq, ilike, lt, or, sql, type SQL } from 'drizzle-orm';
-import type { PgColumn } from 'drizzle-orm/pg-core';
+import { and, desc, eq, ilike, lt, or, sql } from 'drizzle-orm';
 import { readRevisionCursor, writeRevisionCursor } from '$lib/schemas/build';
 import type { Database, Queryable } from './db';
 import { user, wheelDesign, wheelRevision, type FlatParams } from './db/schema';
@@ -34,17 +33,18 @@ export type Revision = {
  * A design's newest revision number as one probe of the unique (design, number) index, read
  * backwards: a design with thousands of revisions costs what one with a single revision does.
  */
-const headProbe = (designId: SQL | PgColumn) =>
-	sql<
-		number | null
-	>`(select ${wheelRevision.number} from ${wheelRevision} where ${wheelRevision.designId} = ${designId} order by ${wheelRevision.number} desc limit 1)`;
+// Written out with an alias: Drizzle leaves columns unqualified in a one-table select, where
+// "id" inside the subquery would be the revision's own.
+const headProbe = sql<
+	number | null
+>`(select r.number from ${wheelRevision} r where r.design_id = ${wheelDesign}.id order by r.number desc limit 1)`;
 
 export async function designsOf(database: Queryable, buildId: string) {
 	return database
 		.select({
 			id: wheelDesign.id,
 			name: wheelDesign.name,
-			headRevision: headProbe(wheelDesign.id),
+			headRevision: headProbe,
 			createdAt: wheelDesign.createdAt,
 			updatedAt: wheelDesign.updatedAt
 		})
