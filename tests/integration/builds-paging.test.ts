@@ -180,6 +180,11 @@ describe('a design’s revisions, keyset paged', () => {
 		expect(byNumber.body.revisions.map((r) => r.number)).toContain(7);
 	});
 
+	it('the build’s designs carry the head revision (the 120 inserted)', async () => {
+		const res = await client.json<{ designs: { id: string; headRevision: number }[] }>(`/api/v1/builds/${buildId}/designs`);
+		expect(res.body.designs).toEqual([expect.objectContaining({ id: designId, headRevision: 120 })]);
+	});
+
 	it('refuses a bad revision cursor with 400 naming cursor', async () => {
 		for (const cursor of [
 			'zzz',
