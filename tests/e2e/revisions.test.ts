@@ -91,8 +91,11 @@ describe('wheel design revisions in Chromium: save, history, restore, conflict',
 
 		// ---- History: compare 1 and 2 ----
 		await page.goto(`${baseUrl}/builds/${buildId}/designs/${designId}`);
-		await page.getByLabel('A: from revision').selectOption('1');
-		await page.getByLabel('B: to revision').selectOption('2');
+		// Issue 20: revisions are chosen by number (or from the paged list), not from a select of them all.
+		await page.getByLabel('A: from revision').fill('1');
+		await page.getByLabel('B: to revision').fill('2');
+		await page.getByRole('button', { name: 'Compare', exact: true }).click();
+		await expect.poll(() => new URL(page.url()).searchParams.get('a')).toBe('1');
 		const row = (name: string) => page.locator(`[data-testid="param-changes"] tr[data-param="${name}"]`);
 		await expect.poll(async () => squash(await text(row('teeth')))).toMatch(/36 → 60$/);
 		expect(squash(await text(row('missing')))).toMatch(/1 → 2$/);

@@ -619,7 +619,7 @@ describe('the signed-in routes', () => {
 		photoId = (await client.send<{ photos: { id: string }[] }>('POST', `/api/v1/builds/${buildId}/photos`, form)).body.photos[0]!.id;
 	});
 
-	const buildFields = ['workshop', 'q', 'sort', 'dir', 'page', 'size'];
+	const buildFields = ['workshop', 'q', 'sort', 'dir', 'page', 'size', 'cursor'];
 	const text = fc.oneof(textValue, fc.string({ maxLength: 200 }), awkwardText);
 
 	it('GET /api/v1/builds: the list query', async () => {

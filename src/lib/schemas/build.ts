@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { decodeCursor, encodeCursor } from './cursor';
 import { singleLine } from './text';
 
 // Builds, their wheel designs, revisions, records and cutting packages: what forms and the JSON API
@@ -49,25 +50,72 @@ export const updateBuild = z
 
 export const buildSorts = ['name', 'updated', 'created'] as const;
 
-/** The builds list: search in name and engine, sort, paging. */
-export const buildQuery = z.object({
-	workshop: z.uuid({ error: 'workshop: a workshop id' }).optional(),
-	q: singleLine('q', 100).optional().default(''),
-	sort: z.enum(buildSorts, { error: `sort: one of ${buildSorts.join(', ')}` }).default('updated'),
-	dir: z.enum(['asc', 'desc'], { error: 'dir: asc or desc' }).optional(),
-	page: z.coerce
-		.number({ error: 'page: a whole number from 1' })
-		.int({ error: 'page: a whole number from 1' })
-		.min(1, { error: 'page: a whole number from 1' })
-		.max(100_000, { error: 'page: at most 100000' })
-		.default(1),
-	size: z.coerce
-		.number({ error: 'size: a whole number from 1 to 100' })
-		.int({ error: 'size: a whole number from 1 to 100' })
-		.min(1, { error: 'size: a whole number from 1 to 100' })
-		.max(100, { error: 'size: a whole number from 1 to 100' })
-		.default(20)
-});
+const sortDirs = ['asc', 'desc'] as const;
+type SortDir = (typeof sortDirs)[number];
+export type BuildSort = (typeof buildSorts)[number];
+
+/** The direction a sort takes when the address does not say: names A to Z, times newest first. */
+export const defaultDir = (sort: BuildSort): SortDir => (sort === 'name' ? 'asc' : 'desc');
+
+/** A timestamp as PostgreSQL's `to_char` writes it for a cursor (microseconds, UTC). */
+const cursorTime = /^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}:\d{2}\.\d{6}Z$/;
+const uuidText = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+
+/** Where the next page starts: the last row shown, under the sort and direction it was listed by. */
+export interface BuildCursor {
+	sort: BuildSort;
+	dir: SortDir;
+	key: string;
+	id: string;
+}
+
+/** A builds cursor's parts, or null when it is not one this list wrote. */
+export function readBuildCursor(text: string): BuildCursor | null {
+	const parts = decodeCursor(text, 4);
+	if (!parts) return null;
+	const [sort, dir, key, id] = parts as [string, string, string, string];
+	if (!(buildSorts as readonly string[]).includes(sort) || !(sortDirs as readonly string[]).includes(dir) || !uuidText.test(id))
+		return null;
+	if (sort === 'name' ? key.length > buildLimits.name : !cursorTime.test(key) || Number.isNaN(Date.parse(key))) return null;
+	return { sort: sort as BuildSort, dir: dir as SortDir, key, id };
+}
+
+export const writeBuildCursor = (c: BuildCursor) => encodeCursor([c.sort, c.dir, c.key, c.id]);
+
+const cursorRule = 'cursor: the `next` value of the previous page, unchanged';
+
+/**
+ * The builds list: search in name and engine, sort, and a keyset page (`cursor`, the previous
+ * answer's `next`). The old `page` is ignored (the first page): paging by offset is gone.
+ */
+export const buildQuery = z
+	.object({
+		workshop: z.uuid({ error: 'workshop: a workshop id' }).optional(),
+		q: singleLine('q', 100).optional().default(''),
+		sort: z.enum(buildSorts, { error: `sort: one of ${buildSorts.join(', ')}` }).default('updated'),
+		dir: z.enum(sortDirs, { error: 'dir: asc or desc' }).optional(),
+		cursor: z
+			.string({ error: cursorRule })
+			.max(600, { error: cursorRule })
+			.refine((c) => readBuildCursor(c) !== null, { error: cursorRule })
+			.describe('The previous answer’s `next`: the page after its last build, under the same q, sort and dir.')
+			.optional(),
+		size: z.coerce
+			.number({ error: 'size: a whole number from 1 to 100' })
+			.int({ error: 'size: a whole number from 1 to 100' })
+			.min(1, { error: 'size: a whole number from 1 to 100' })
+			.max(100, { error: 'size: a whole number from 1 to 100' })
+			.default(20)
+	})
+	.superRefine((v, ctx) => {
+		const cursor = v.cursor === undefined ? null : readBuildCursor(v.cursor);
+		if (cursor && (cursor.sort !== v.sort || cursor.dir !== (v.dir ?? defaultDir(v.sort))))
+			ctx.addIssue({
+				code: 'custom',
+				path: ['cursor'],
+				message: 'cursor: belongs to another sort or direction; start again without it'
+			});
+	});
 export type BuildQuery = z.infer<typeof buildQuery>;
 
 /** Flat string parameters of a tool (wheel, tape, phasing): names and values bounded, values as text. */
@@ -124,6 +172,27 @@ const revisionNumberOf = (field: string) =>
 		.max(maxRevision, { error: `${field}: a whole number from 1 to ${maxRevision}` });
 
 export const revisionNumber = revisionNumberOf('revision');
+
+/** A page of revisions starts below the number its cursor carries (the last revision of the page before). */
+export function readRevisionCursor(text: string): number | null {
+	const parts = decodeCursor(text, 1);
+	if (!parts || !/^[1-9]\d{0,6}$/.test(parts[0]!)) return null;
+	const number = Number(parts[0]);
+	return number <= maxRevision ? number : null;
+}
+
+export const writeRevisionCursor = (number: number) => encodeCursor([String(number)]);
+
+/** A design's history, a page at a time: `cursor` is the previous answer's `next`; `q` finds revisions by number or message. */
+export const revisionListQuery = z.object({
+	cursor: z
+		.string({ error: cursorRule })
+		.max(100, { error: cursorRule })
+		.refine((c) => readRevisionCursor(c) !== null, { error: cursorRule })
+		.describe('The previous answer’s `next`: the revisions older than its last.')
+		.optional(),
+	q: singleLine('q', 100).optional().default('').describe('A revision number, or words of its message.')
+});
 
 export const compareQuery = z.object({ a: revisionNumberOf('a'), b: revisionNumberOf('b') });
 

@@ -1,5 +1,6 @@
-import { and, asc, count, desc, eq, ilike, or, sql } from 'drizzle-orm';
-import type { BuildQuery } from '$lib/schemas/build';
+import { and, asc, desc, eq, ilike, or, sql } from 'drizzle-orm';
+import type { PgColumn } from 'drizzle-orm/pg-core';
+import { defaultDir, readBuildCursor, writeBuildCursor, type BuildQuery } from '$lib/schemas/build';
 import { checkPhasing } from '$lib/schemas/phasing';
 import type { Refusal } from '$lib/schemas/refusal';
 import { phasing, type PhasingResult } from '$lib/trade/phasing';
@@ -12,33 +13,60 @@ import { build, wheelDesign, type FlatParams } from './db/schema';
 
 const likePattern = (q: string) => `%${q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
 
-const sortColumn = { name: build.name, updated: build.updatedAt, created: build.createdAt } as const;
+const timeColumn = { updated: build.updatedAt, created: build.createdAt } as const;
 
-export type ListOptions = Pick<BuildQuery, 'q' | 'sort' | 'page' | 'size'> & { dir?: 'asc' | 'desc' };
+/** A timestamp to microseconds in UTC: a JavaScript Date keeps only milliseconds, and a cursor must find its row exactly. */
+const exactTime = (column: PgColumn) => sql<string>`to_char(${column} at time zone 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.US"Z"')`;
 
-/** One page of a workshop's builds, searched in name and engine; newest change first unless told. */
-export async function listBuilds(
-	database: Queryable,
-	workshopId: string,
-	options: ListOptions = { q: '', sort: 'name', page: 1, size: 100 }
-) {
-	const where = options.q
-		? and(eq(build.workshopId, workshopId), or(ilike(build.name, likePattern(options.q)), ilike(build.engine, likePattern(options.q))))
-		: eq(build.workshopId, workshopId);
-	const dir = options.dir ?? (options.sort === 'name' ? 'asc' : 'desc');
-	const order = dir === 'asc' ? asc(sortColumn[options.sort]) : desc(sortColumn[options.sort]);
+export type ListOptions = Pick<BuildQuery, 'q' | 'sort' | 'size' | 'dir' | 'cursor'>;
+
+/**
+ * One page of a workshop's builds, searched in name and engine, and the cursor of the next page
+ * (null on the last). Keyset paging: the page starts after the cursor's row, found through the
+ * index of the sort (schema.ts), so a deep page costs what the first does; one row more than the
+ * page tells whether there is a next one, with no count of them all. Names are unique in a
+ * workshop, so the name alone orders; times tie, so the id breaks ties in the same direction.
+ */
+export async function listBuilds(database: Queryable, workshopId: string, options: ListOptions = { q: '', sort: 'name', size: 100 }) {
+	const { query, sort, dir, size } = buildsPageQuery(database, workshopId, options);
+	const rows = await query;
+	const more = rows.length > size;
+	const shown = rows.slice(0, size);
+	const last = shown.at(-1);
+	const next = more && last ? writeBuildCursor({ sort, dir, key: last.key, id: last.id }) : null;
+	return { builds: shown.map(({ key: _key, ...row }) => row), next, size, sort, dir };
+}
+
+/** The statement of one page (one row more than asked for), apart so a test can EXPLAIN it. */
+export function buildsPageQuery(database: Queryable, workshopId: string, options: ListOptions) {
+	const { sort, size } = options;
+	const dir = options.dir ?? defaultDir(sort);
+	const after = options.cursor === undefined ? null : readBuildCursor(options.cursor);
+	if (after && (after.sort !== sort || after.dir !== dir)) throw new Error('listBuilds: a cursor of another sort (buildQuery refuses it)');
+	const conditions = [eq(build.workshopId, workshopId)];
+	if (options.q) conditions.push(or(ilike(build.name, likePattern(options.q)), ilike(build.engine, likePattern(options.q)))!);
+	const past = dir === 'asc' ? sql`>` : sql`<`;
+	let key;
+	let order;
+	if (sort === 'name') {
+		key = build.name;
+		if (after) conditions.push(sql`${build.name} ${past} ${after.key}`);
+		order = [dir === 'asc' ? asc(build.name) : desc(build.name)];
+	} else {
+		const column = timeColumn[sort];
+		key = exactTime(column);
+		// A row comparison: the btree walks (time, id) as one key, so the page starts inside the index.
+		if (after) conditions.push(sql`(${column}, ${build.id}) ${past} (${after.key}::timestamptz, ${after.id}::uuid)`);
+		order = dir === 'asc' ? [asc(column), asc(build.id)] : [desc(column), desc(build.id)];
+	}
 	const designs = database.$count(wheelDesign, eq(wheelDesign.buildId, build.id));
-	const [rows, [total]] = await Promise.all([
-		database
-			.select({ id: build.id, name: build.name, engine: build.engine, designs, createdAt: build.createdAt, updatedAt: build.updatedAt })
-			.from(build)
-			.where(where)
-			.orderBy(order, asc(build.id))
-			.limit(options.size)
-			.offset((options.page - 1) * options.size),
-		database.select({ n: count() }).from(build).where(where)
-	]);
-	return { builds: rows, total: total?.n ?? 0, page: options.page, size: options.size, sort: options.sort, dir };
+	const query = database
+		.select({ id: build.id, name: build.name, engine: build.engine, designs, createdAt: build.createdAt, updatedAt: build.updatedAt, key })
+		.from(build)
+		.where(and(...conditions))
+		.orderBy(...order)
+		.limit(size + 1);
+	return { query, sort, dir, size };
 }
 
 export async function getBuild(database: Queryable, buildId: string) {

@@ -1,4 +1,5 @@
-import { and, desc, eq, max } from 'drizzle-orm';
+import { and, desc, eq, ilike, lt, or, sql } from 'drizzle-orm';
+import { readRevisionCursor, writeRevisionCursor } from '$lib/schemas/build';
 import type { Database, Queryable } from './db';
 import { user, wheelDesign, wheelRevision, type FlatParams } from './db/schema';
 import { refusalsUnder, type Refusal } from '$lib/schemas/refusal';
@@ -28,36 +29,91 @@ export type Revision = {
 	createdAt: Date;
 };
 
+/**
+ * A design's newest revision number as one probe of the unique (design, number) index, read
+ * backwards: a design with thousands of revisions costs what one with a single revision does.
+ */
+// Written out with an alias: Drizzle leaves columns unqualified in a one-table select, where
+// "id" inside the subquery would be the revision's own.
+const headProbe = sql<
+	number | null
+>`(select r.number from ${wheelRevision} r where r.design_id = ${wheelDesign}.id order by r.number desc limit 1)`;
+
 export async function designsOf(database: Queryable, buildId: string) {
-	const head = max(wheelRevision.number);
 	return database
 		.select({
 			id: wheelDesign.id,
 			name: wheelDesign.name,
-			headRevision: head,
+			headRevision: headProbe,
 			createdAt: wheelDesign.createdAt,
 			updatedAt: wheelDesign.updatedAt
 		})
 		.from(wheelDesign)
-		.leftJoin(wheelRevision, eq(wheelRevision.designId, wheelDesign.id))
 		.where(eq(wheelDesign.buildId, buildId))
-		.groupBy(wheelDesign.id)
 		.orderBy(wheelDesign.name);
 }
+
+/** The newest revision's number (0 for a design with none, which createDesign never leaves). */
+export async function headRevisionOf(database: Queryable, designId: string): Promise<number> {
+	const [row] = await headRevisionQuery(database, designId);
+	return row?.number ?? 0;
+}
+
+/** The head probe's statement, apart so a test can EXPLAIN it. */
+export const headRevisionQuery = (database: Queryable, designId: string) =>
+	database
+		.select({ number: wheelRevision.number })
+		.from(wheelRevision)
+		.where(eq(wheelRevision.designId, designId))
+		.orderBy(desc(wheelRevision.number))
+		.limit(1);
 
 export async function getDesign(database: Queryable, designId: string) {
 	const [row] = await database.select().from(wheelDesign).where(eq(wheelDesign.id, designId));
 	return row;
 }
 
-/** Every revision of a design, newest first. */
-export async function revisionsOf(database: Queryable, designId: string): Promise<Revision[]> {
+/** How many revisions a page of the history holds (the API's and the history page's). */
+export const revisionPageSize = 50;
+
+const likePattern = (q: string) => `%${q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+
+/**
+ * A page of a design's revisions, newest first: those below the cursor's number, and the cursor of
+ * the page after (null on the last). Keyset paging down the unique (design, number) index; one row
+ * more than the page tells whether there is another. `q` finds a revision by its number or by words
+ * of its message; a design's revisions are few enough (thousands) that the index range is filtered.
+ */
+export async function revisionPage(
+	database: Queryable,
+	designId: string,
+	options: { cursor?: string; q?: string; size?: number } = {}
+): Promise<{ revisions: Revision[]; next: string | null }> {
+	const size = options.size ?? revisionPageSize;
+	const rows = await revisionPageQuery(database, designId, { ...options, size });
+	const revisions = rows.slice(0, size);
+	const last = revisions.at(-1);
+	return { revisions, next: rows.length > size && last ? writeRevisionCursor(last.number) : null };
+}
+
+/** One page's statement (one row more than `size`), apart so a test can EXPLAIN it. */
+export function revisionPageQuery(database: Queryable, designId: string, options: { cursor?: string; q?: string; size: number }) {
+	const below = options.cursor === undefined ? null : readRevisionCursor(options.cursor);
+	const conditions = [eq(wheelRevision.designId, designId)];
+	if (below !== null) conditions.push(lt(wheelRevision.number, below));
+	const q = options.q?.trim() ?? '';
+	if (q) {
+		const asNumber = /^\d{1,7}$/.test(q) ? Number(q) : null;
+		const byMessage = ilike(wheelRevision.message, likePattern(q));
+		conditions.push(asNumber === null ? byMessage : or(eq(wheelRevision.number, asNumber), byMessage)!);
+	}
 	return database
 		.select(revisionColumns)
 		.from(wheelRevision)
 		.leftJoin(user, eq(user.id, wheelRevision.authorId))
-		.where(eq(wheelRevision.designId, designId))
-		.orderBy(desc(wheelRevision.number));
+		.where(and(...conditions))
+		.orderBy(desc(wheelRevision.number))
+		.limit(options.size + 1);
 }
 
 /** One revision, or the newest when `number` is not given. */

@@ -14,18 +14,16 @@ const refusals = {
 
 /**
  * The page of the list the address names (the same query as `GET /api/v1/builds`). The page moves
- * between views with `goto`, so this load runs again for each search, sort and page, and after each
- * action. An address the schema refuses (a hand-edited page=0) shows the default view rather than
- * an error; a page past the end (its last build just deleted) shows the last page there is.
+ * between views with `goto`, so this load runs again for each search and sort, and after each
+ * action; "More builds" is a plain link with the next page's cursor. An address the schema refuses
+ * (a hand-edited cursor or sort) shows the default view rather than an error.
  */
 export const load: PageServerLoad = async (event) => {
 	const access = await workshopAccess(event, 'read');
 	const query = buildQuery.safeParse(Object.fromEntries(event.url.searchParams));
 	const view = query.success ? query.data : buildQuery.parse({});
-	let list = await listBuilds(db(), access.workshop.id, view);
-	const last = Math.max(1, Math.ceil(list.total / list.size));
-	if (list.builds.length === 0 && view.page > last) list = await listBuilds(db(), access.workshop.id, { ...view, page: last });
-	return { workshop: access.workshop, can: access.can, q: view.q, list };
+	const list = await listBuilds(db(), access.workshop.id, view);
+	return { workshop: access.workshop, can: access.can, q: view.q, after: view.cursor !== undefined, list };
 };
 
 // Each action calls the same service as the API route for the same change (builds.ts, build-overview.ts).

@@ -162,12 +162,24 @@ export const build = pgTable(
 		createdAt: createdAt(),
 		updatedAt: updatedAt()
 	},
-	(t) => [unique('build_workshop_name').on(t.workshopId, t.name)]
+	// One index per sort the list offers, ending in the id that breaks ties, so a keyset page is an
+	// index range scan in either direction (builds.ts); the unique (workshop, name) serves the name
+	// sort. Search matches name and engine anywhere in them: trigram indexes serve `ilike '%q%'`.
+	(t) => [
+		unique('build_workshop_name').on(t.workshopId, t.name),
+		index('build_workshop_updated').on(t.workshopId, t.updatedAt.desc().nullsFirst(), t.id.desc().nullsFirst()),
+		index('build_workshop_created').on(t.workshopId, t.createdAt.desc().nullsFirst(), t.id.desc().nullsFirst()),
+		index('build_name_trgm').using('gin', t.name.op('gin_trgm_ops')),
+		index('build_engine_trgm').using('gin', t.engine.op('gin_trgm_ops'))
+	]
 );
 
 /** Flat string parameters as the tools and the API take them (a wheel's, a tape's, the phasing check's). */
 export type FlatParams = Record<string, string>;
 
+// The build page's lists (designs, records, tapes, photos, packages, checks, activity) are read newest
+// first a page at a time: each has an index on (build, time desc, id desc), which also serves the
+// foreign key's cascade from build.
 const buildRef = () =>
 	uuid('build_id')
 		.notNull()
@@ -184,7 +196,10 @@ export const wheelDesign = pgTable(
 		createdAt: createdAt(),
 		updatedAt: updatedAt()
 	},
-	(t) => [unique('wheel_design_build_name').on(t.buildId, t.name)]
+	(t) => [
+		unique('wheel_design_build_name').on(t.buildId, t.name),
+		index('wheel_design_build_updated').on(t.buildId, t.updatedAt.desc().nullsFirst(), t.id.desc().nullsFirst())
+	]
 );
 
 /**
@@ -221,7 +236,7 @@ export const tdcRecord = pgTable(
 		authorId: authorRef(),
 		createdAt: createdAt()
 	},
-	(t) => [index('tdc_record_build').on(t.buildId)]
+	(t) => [index('tdc_record_build_time').on(t.buildId, t.createdAt.desc().nullsFirst(), t.id.desc().nullsFirst())]
 );
 
 /** A degree tape printed for the build's timing hub. */
@@ -235,7 +250,7 @@ export const degreeTape = pgTable(
 		authorId: authorRef(),
 		createdAt: createdAt()
 	},
-	(t) => [index('degree_tape_build').on(t.buildId)]
+	(t) => [index('degree_tape_build_time').on(t.buildId, t.createdAt.desc().nullsFirst(), t.id.desc().nullsFirst())]
 );
 
 /** One speed case of a saved signal check as it was answered: the headline the build page and sheet print. */
@@ -259,7 +274,7 @@ export const signalCheck = pgTable(
 		authorId: authorRef(),
 		createdAt: createdAt()
 	},
-	(t) => [index('signal_check_build').on(t.buildId, t.createdAt)]
+	(t) => [index('signal_check_build_time').on(t.buildId, t.createdAt.desc().nullsFirst(), t.id.desc().nullsFirst())]
 );
 
 /** An uploaded photo of a real wheel: the bytes live in the object store under `storageKey`. */
@@ -281,7 +296,7 @@ export const wheelPhoto = pgTable(
 		uploadedBy: authorRef('uploaded_by'),
 		createdAt: createdAt()
 	},
-	(t) => [index('wheel_photo_build').on(t.buildId)]
+	(t) => [index('wheel_photo_build_time').on(t.buildId, t.createdAt.desc().nullsFirst(), t.id.desc().nullsFirst())]
 );
 
 /** What was sent to a fabricator: the DXF and the spec sheet of one revision. */
@@ -298,7 +313,7 @@ export const cuttingPackage = pgTable(
 		sentBy: authorRef('sent_by'),
 		createdAt: createdAt()
 	},
-	(t) => [index('cutting_package_build').on(t.buildId)]
+	(t) => [index('cutting_package_build_time').on(t.buildId, t.createdAt.desc().nullsFirst(), t.id.desc().nullsFirst())]
 );
 
 /** The build's activity log, newest first when read. */
@@ -312,7 +327,7 @@ export const activity = pgTable(
 		summary: text('summary').notNull(),
 		createdAt: createdAt()
 	},
-	(t) => [index('activity_build_time').on(t.buildId, t.createdAt)]
+	(t) => [index('activity_build_newest').on(t.buildId, t.createdAt.desc().nullsFirst(), t.id.desc().nullsFirst())]
 );
 
 export type Role = (typeof role.enumValues)[number];

@@ -9,6 +9,7 @@ import {
 	saveRecord,
 	saveRevision,
 	buildQuery,
+	revisionListQuery,
 	buildSheetQuery,
 	updateBuild
 } from '$lib/schemas/build';
@@ -339,15 +340,15 @@ export const routes: RouteTable = {
 		GET: {
 			tag: 'Builds',
 			summary: 'The builds of the current workshop',
-			description: '`workshop` picks one of the caller’s workshops; `q` searches name and engine.',
+			description:
+				'`workshop` picks one of the caller’s workshops; `q` searches name and engine. Keyset paging: pass the answer’s `next` as `cursor` (with the same `q`, `sort` and `dir`) for the page after it; `next` is null on the last page. No total is counted. `page` is no longer read (the first page).',
 			access: 'read',
 			query: buildQuery,
 			answer: json('One page of builds.', {
 				workshop: 'object',
 				role: 'string',
 				builds: 'array',
-				total: 'integer',
-				page: 'integer',
+				next: 'string|null: the `cursor` of the next page; null on the last',
 				size: 'integer',
 				sort: 'string',
 				dir: 'string'
@@ -550,13 +551,29 @@ export const routes: RouteTable = {
 	'/designs/{designId}': {
 		GET: {
 			tag: 'Designs',
-			summary: 'A design and its revisions, newest first',
+			summary: 'A design and a page of its revisions, newest first',
+			description:
+				'At most 50 revisions a page; pass the answer’s `next` as `cursor` for the older ones (`next` is null on the last page). `q` keeps the revisions whose number it is or whose message holds it.',
 			access: 'read',
-			answer: json('The design.', { role: 'string', design: 'object', headRevision: 'integer', revisions: 'array' })
+			query: revisionListQuery,
+			answer: json('The design.', {
+				role: 'string',
+				design: 'object',
+				headRevision: 'integer: the newest revision’s number',
+				revisions: 'array: this page, newest first',
+				next: 'string|null: the `cursor` of the older revisions; null on the last page'
+			})
 		}
 	},
 	'/designs/{designId}/revisions': {
-		GET: { tag: 'Designs', summary: 'The design’s revisions', access: 'read', answer: json('The revisions.', { revisions: 'array' }) },
+		GET: {
+			tag: 'Designs',
+			summary: 'A page of the design’s revisions, newest first',
+			description: 'Paged as `GET /designs/{designId}` is: `cursor` from the answer’s `next`, `q` by number or message.',
+			access: 'read',
+			query: revisionListQuery,
+			answer: json('The revisions.', { revisions: 'array', next: 'string|null: the `cursor` of the older revisions' })
+		},
 		POST: {
 			tag: 'Designs',
 			summary: 'Save a new revision',

@@ -1,13 +1,16 @@
 import { json } from '@sveltejs/kit';
-import { saveRevision as saveSchema } from '$lib/schemas/build';
+import { revisionListQuery, saveRevision as saveSchema } from '$lib/schemas/build';
 import { objectAccess } from '$lib/server/access';
-import { conflict, jsonBody, refuse } from '$lib/server/api';
+import { conflict, jsonBody, queryOf, refuse } from '$lib/server/api';
 import { db } from '$lib/server/db';
-import { getDesign, revisionsOf, saveRevision } from '$lib/server/designs';
+import { getDesign, revisionPage, saveRevision } from '$lib/server/designs';
 
+/** A page of the design's revisions, newest first; `next` is the `cursor` of the older ones. */
 export async function GET(event) {
+	const query = queryOf(event.url, revisionListQuery);
+	if (!query.ok) return query.response;
 	await objectAccess(event, 'read', 'design', event.params.designId);
-	return json({ revisions: await revisionsOf(db(), event.params.designId) });
+	return json(await revisionPage(db(), event.params.designId, query.data));
 }
 
 /**
