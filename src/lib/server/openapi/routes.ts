@@ -430,7 +430,7 @@ export const routes: RouteTable = {
 			summary: 'The build’s TDC records',
 			access: 'read',
 			query: listQuery,
-			answer: json('50 a page, newest first; `next` for the page after, null on the last.', { tdcRecords: 'array', next: 'string or null' }),
+			answer: json('50 a page, newest first; `next` for the page after, null on the last.', { tdcRecords: 'array', next: 'string|null: the cursor of the page after, null on the last' }),
 			also: [badCursor]
 		},
 		POST: {
@@ -452,7 +452,7 @@ export const routes: RouteTable = {
 			summary: 'The build’s saved degree tapes',
 			access: 'read',
 			query: listQuery,
-			answer: json('50 a page, newest first; `next` for the page after, null on the last.', { tapes: 'array', next: 'string or null' }),
+			answer: json('50 a page, newest first; `next` for the page after, null on the last.', { tapes: 'array', next: 'string|null: the cursor of the page after, null on the last' }),
 			also: [badCursor]
 		},
 		POST: {
@@ -474,7 +474,7 @@ export const routes: RouteTable = {
 			summary: 'The build’s saved signal checks',
 			access: 'read',
 			query: listQuery,
-			answer: json('50 a page, newest first; `next` for the page after, null on the last.', { signalChecks: 'array', next: 'string or null' }),
+			answer: json('50 a page, newest first; `next` for the page after, null on the last.', { signalChecks: 'array', next: 'string|null: the cursor of the page after, null on the last' }),
 			also: [badCursor]
 		},
 		POST: {
@@ -497,7 +497,7 @@ export const routes: RouteTable = {
 			summary: 'The build’s activity log',
 			access: 'read',
 			query: listQuery,
-			answer: json('50 a page, newest first; `next` for the page after, null on the last.', { activity: 'array', next: 'string or null' }),
+			answer: json('50 a page, newest first; `next` for the page after, null on the last.', { activity: 'array', next: 'string|null: the cursor of the page after, null on the last' }),
 			also: [badCursor]
 		}
 	},
@@ -517,7 +517,7 @@ export const routes: RouteTable = {
 			summary: 'The build’s photos',
 			access: 'read',
 			query: listQuery,
-			answer: json('50 a page, newest first; `next` for the page after, null on the last.', { photos: 'array', next: 'string or null' }),
+			answer: json('50 a page, newest first; `next` for the page after, null on the last.', { photos: 'array', next: 'string|null: the cursor of the page after, null on the last' }),
 			also: [badCursor]
 		},
 		POST: {
@@ -578,7 +578,7 @@ export const routes: RouteTable = {
 			query: listQuery,
 			answer: json('50 a page, newest first; `next` for the page after, null on the last.', {
 				cuttingPackages: 'array',
-				next: 'string or null'
+				next: 'string|null: the cursor of the page after, null on the last'
 			}),
 			also: [badCursor]
 		},
