@@ -143,7 +143,11 @@ function forbidden(current: WorkshopMembership, action: Action): never {
 	error(403, { message: `Your role in ${current.name} is ${current.role}; this needs ${leastRole[action]} or above.`, code: 'forbidden' });
 }
 
-const canOf = (role: Role): Record<Action, boolean> => ({ read: allows(role, 'read'), edit: allows(role, 'edit'), manage: allows(role, 'manage') });
+const canOf = (role: Role): Record<Action, boolean> => ({
+	read: allows(role, 'read'),
+	edit: allows(role, 'edit'),
+	manage: allows(role, 'manage')
+});
 
 const workshopsPerRequest = new WeakMap<Request, Promise<WorkshopMembership[]>>();
 

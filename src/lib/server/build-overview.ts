@@ -47,22 +47,35 @@ export async function buildOverview(database: Queryable, buildId: string, option
 	const newest = (list: BuildList) => (options.cursors?.[list] ? { limit: 1 } : undefined);
 	const tdcNewest = newest('tdcRecords');
 	const tapeNewest = newest('tapes');
-	const [build, designs, headRevisions, tdcRecords, tapes, photos, cuttingPackages, activity, latest, signalChecks, sent, firstTdc, firstTape] =
-		await Promise.all([
-			getBuild(database, buildId),
-			designsOf(database, buildId),
-			headRevisionsOf(database, buildId),
-			tdcRecordPage(database, buildId, ask('tdcRecords')),
-			tapePage(database, buildId, ask('tapes')),
-			photoPage(database, buildId, ask('photos')),
-			cuttingPackagePage(database, buildId, ask('cuttingPackages')),
-			activityPage(database, buildId, ask('activity')),
-			latestActivity(database, buildId, ['engine', 'build-sheet']),
-			signalCheckPage(database, buildId, ask('signalChecks')),
-			packagesForSteps(database, buildId),
-			tdcNewest && tdcRecordPage(database, buildId, tdcNewest),
-			tapeNewest && tapePage(database, buildId, tapeNewest)
-		]);
+	const [
+		build,
+		designs,
+		headRevisions,
+		tdcRecords,
+		tapes,
+		photos,
+		cuttingPackages,
+		activity,
+		latest,
+		signalChecks,
+		sent,
+		firstTdc,
+		firstTape
+	] = await Promise.all([
+		getBuild(database, buildId),
+		designsOf(database, buildId),
+		headRevisionsOf(database, buildId),
+		tdcRecordPage(database, buildId, ask('tdcRecords')),
+		tapePage(database, buildId, ask('tapes')),
+		photoPage(database, buildId, ask('photos')),
+		cuttingPackagePage(database, buildId, ask('cuttingPackages')),
+		activityPage(database, buildId, ask('activity')),
+		latestActivity(database, buildId, ['engine', 'build-sheet']),
+		signalCheckPage(database, buildId, ask('signalChecks')),
+		packagesForSteps(database, buildId),
+		tdcNewest && tdcRecordPage(database, buildId, tdcNewest),
+		tapeNewest && tapePage(database, buildId, tapeNewest)
+	]);
 	if (!build) return undefined;
 	const steps = buildSteps({
 		build,

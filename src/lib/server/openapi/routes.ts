@@ -373,7 +373,8 @@ export const routes: RouteTable = {
 		GET: {
 			tag: 'Builds',
 			summary: 'A build with the newest 50 of each list it holds',
-			description: '`next.<list>` is the cursor for that list’s own route (null when the 50 are all): `…/photos?cursor=`, `…/activity?cursor=`, …',
+			description:
+				'`next.<list>` is the cursor for that list’s own route (null when the 50 are all): `…/photos?cursor=`, `…/activity?cursor=`, …',
 			access: 'read',
 			answer: json('The build, each list newest first.', {
 				role: 'string',
@@ -430,7 +431,10 @@ export const routes: RouteTable = {
 			summary: 'The build’s TDC records',
 			access: 'read',
 			query: listQuery,
-			answer: json('50 a page, newest first; `next` for the page after, null on the last.', { tdcRecords: 'array', next: 'string|null: the cursor of the page after, null on the last' }),
+			answer: json('50 a page, newest first; `next` for the page after, null on the last.', {
+				tdcRecords: 'array',
+				next: 'string|null: the cursor of the page after, null on the last'
+			}),
 			also: [badCursor]
 		},
 		POST: {
@@ -452,7 +456,10 @@ export const routes: RouteTable = {
 			summary: 'The build’s saved degree tapes',
 			access: 'read',
 			query: listQuery,
-			answer: json('50 a page, newest first; `next` for the page after, null on the last.', { tapes: 'array', next: 'string|null: the cursor of the page after, null on the last' }),
+			answer: json('50 a page, newest first; `next` for the page after, null on the last.', {
+				tapes: 'array',
+				next: 'string|null: the cursor of the page after, null on the last'
+			}),
 			also: [badCursor]
 		},
 		POST: {
@@ -474,7 +481,10 @@ export const routes: RouteTable = {
 			summary: 'The build’s saved signal checks',
 			access: 'read',
 			query: listQuery,
-			answer: json('50 a page, newest first; `next` for the page after, null on the last.', { signalChecks: 'array', next: 'string|null: the cursor of the page after, null on the last' }),
+			answer: json('50 a page, newest first; `next` for the page after, null on the last.', {
+				signalChecks: 'array',
+				next: 'string|null: the cursor of the page after, null on the last'
+			}),
 			also: [badCursor]
 		},
 		POST: {
@@ -497,7 +507,10 @@ export const routes: RouteTable = {
 			summary: 'The build’s activity log',
 			access: 'read',
 			query: listQuery,
-			answer: json('50 a page, newest first; `next` for the page after, null on the last.', { activity: 'array', next: 'string|null: the cursor of the page after, null on the last' }),
+			answer: json('50 a page, newest first; `next` for the page after, null on the last.', {
+				activity: 'array',
+				next: 'string|null: the cursor of the page after, null on the last'
+			}),
 			also: [badCursor]
 		}
 	},
@@ -517,7 +530,10 @@ export const routes: RouteTable = {
 			summary: 'The build’s photos',
 			access: 'read',
 			query: listQuery,
-			answer: json('50 a page, newest first; `next` for the page after, null on the last.', { photos: 'array', next: 'string|null: the cursor of the page after, null on the last' }),
+			answer: json('50 a page, newest first; `next` for the page after, null on the last.', {
+				photos: 'array',
+				next: 'string|null: the cursor of the page after, null on the last'
+			}),
 			also: [badCursor]
 		},
 		POST: {
