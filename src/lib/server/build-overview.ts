@@ -1,4 +1,4 @@
-import { and, desc, eq } from 'drizzle-orm';
+import { and, desc, eq, sql } from 'drizzle-orm';
 import { buildSteps } from '$lib/build-steps';
 import type { Database, Queryable } from './db';
 import { build as buildTable, wheelDesign, wheelRevision } from './db/schema';
@@ -22,19 +22,25 @@ import { deleteObject } from './storage';
 // What a build holds: each list a page at a time for its page and `GET /api/v1/builds/:id`
 // (build-lists.ts), and removed whole.
 
-/** The newest revision of each of the build's designs, with its parameters: the wheel each tool is opened with. */
+/**
+ * The newest revision of each of the build's designs, with its parameters: the wheel each tool is
+ * opened with. One index probe per design on wheel_revision (design_id, number), however many
+ * revisions a design has.
+ */
 export async function headRevisionsOf(database: Queryable, buildId: string) {
-	return database
-		.selectDistinctOn([wheelRevision.designId], {
-			designId: wheelRevision.designId,
-			number: wheelRevision.number,
-			params: wheelRevision.params,
-			createdAt: wheelRevision.createdAt
-		})
+	const head = database
+		.select({ number: wheelRevision.number, params: wheelRevision.params, createdAt: wheelRevision.createdAt })
 		.from(wheelRevision)
-		.innerJoin(wheelDesign, eq(wheelDesign.id, wheelRevision.designId))
+		.where(eq(wheelRevision.designId, wheelDesign.id))
+		.orderBy(desc(wheelRevision.number))
+		.limit(1)
+		.as('head');
+	return database
+		.select({ designId: wheelDesign.id, number: head.number, params: head.params, createdAt: head.createdAt })
+		.from(wheelDesign)
+		.innerJoinLateral(head, sql`true`)
 		.where(eq(wheelDesign.buildId, buildId))
-		.orderBy(wheelRevision.designId, desc(wheelRevision.number));
+		.orderBy(wheelDesign.id);
 }
 
 /**
