@@ -4,7 +4,7 @@
 import type { Browser, BrowserContext } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { freshEmail, signUp, type Client } from '../support/client';
-import { contextFor, launch } from './browser';
+import { baseUrl, contextFor, launch } from './browser';
 
 let browser: Browser;
 let context: BrowserContext;
@@ -30,7 +30,7 @@ afterAll(() => browser?.close());
 describe('a build with 25 TDC records', () => {
 	it('shows the newest 20, and "Older TDC records" shows the other 5, then "Newest" the first 20 again', async () => {
 		const page = await context.newPage();
-		await page.goto(`/builds/${buildId}`);
+		await page.goto(`${baseUrl}/builds/${buildId}`);
 		const records = page.getByTestId('tdc-records');
 		const text = await records.innerText();
 		for (let i = 6; i <= 25; i++) expect(text).toContain(label(i));
@@ -51,7 +51,7 @@ describe('a build with 25 TDC records', () => {
 
 	it('reaches the oldest activity entry (the build made) through "Older activity"', async () => {
 		const page = await context.newPage();
-		await page.goto(`/builds/${buildId}`);
+		await page.goto(`${baseUrl}/builds/${buildId}`);
 		const log = page.getByTestId('activity-log');
 		expect(await log.getByRole('listitem').count()).toBe(20);
 		await page.getByRole('link', { name: 'Older activity' }).click();
