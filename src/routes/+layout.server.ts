@@ -1,11 +1,9 @@
-import { signedInUser, workshopCookie } from '$lib/server/access';
-import { db } from '$lib/server/db';
-import { workshopsOf } from '$lib/server/workshops';
+import { signedInUser, workshopCookie, workshopsFor } from '$lib/server/access';
 import type { LayoutServerLoad } from './$types';
 
 export const load: LayoutServerLoad = async (event) => {
 	const me = await signedInUser(event);
-	const workshops = me ? await workshopsOf(db(), me.id) : [];
+	const workshops = me ? await workshopsFor(event, me.id) : [];
 	const chosen = event.cookies.get(workshopCookie);
 	return {
 		theme: event.locals.theme,

@@ -676,6 +676,37 @@ const table: Row[] = [
 		guess: ['build']
 	},
 	{
+		route: 'GET /api/v1/builds/[buildId]/tdc-records',
+		object: 'TDC records (a page)',
+		expect: e(401, 200, 200, 200, 404),
+		call: (c, i) => getApi(c, `/api/v1/builds/${i.build}/tdc-records`),
+		// The record's label is made like the build's name, with "tdc" for "build".
+		shows: () => a.names.build.replace(' build ', ' tdc '),
+		guess: ['build']
+	},
+	{
+		route: 'GET /api/v1/builds/[buildId]/tapes',
+		object: 'degree tapes (a page)',
+		expect: e(401, 200, 200, 200, 404),
+		call: (c, i) => getApi(c, `/api/v1/builds/${i.build}/tapes`),
+		guess: ['build']
+	},
+	{
+		route: 'GET /api/v1/builds/[buildId]/signal-checks',
+		object: 'signal checks (a page)',
+		expect: e(401, 200, 200, 200, 404),
+		call: (c, i) => getApi(c, `/api/v1/builds/${i.build}/signal-checks`),
+		guess: ['build']
+	},
+	{
+		route: 'GET /api/v1/builds/[buildId]/activity',
+		object: 'activity log (a page)',
+		expect: e(401, 200, 200, 200, 404),
+		call: (c, i) => getApi(c, `/api/v1/builds/${i.build}/activity`),
+		shows: () => a.names.build,
+		guess: ['build']
+	},
+	{
 		route: 'POST /api/v1/builds/[buildId]/cutting-packages',
 		object: 'cutting package of a revision',
 		expect: e(401, 403, 201, 201, 404),

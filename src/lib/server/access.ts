@@ -1,8 +1,8 @@
 import { error, redirect, type RequestEvent } from '@sveltejs/kit';
-import { and, eq, gt } from 'drizzle-orm';
+import { and, eq, sql } from 'drizzle-orm';
 import { z } from 'zod';
 import { db } from './db';
-import { build, member, user, userSession, wheelDesign, wheelPhoto, type Role } from './db/schema';
+import { build, member, user, userSession, wheelDesign, wheelPhoto, workshop, type Role } from './db/schema';
 import { sessionIdOf, sessionLifetimeS } from './sessions';
 import { workshopsOf, type WorkshopMembership } from './workshops';
 
@@ -36,6 +36,66 @@ export interface WorkshopAccess {
 
 const perRequest = new WeakMap<Request, Promise<SessionUser | null>>();
 
+/** The ids the session cookie carries (Auth.js decodes its JWT without the database), or null. */
+async function tokenOf(event: RequestEvent): Promise<{ userId: string; sid: string } | null> {
+	const session = await event.locals.auth();
+	const userId = session?.user?.id;
+	const sid = sessionIdOf((session as { sid?: unknown } | null)?.sid);
+	return userId && sid ? { userId, sid } : null;
+}
+
+// The session must still have its row and be younger than its lifetime; PostgreSQL's clock decides.
+const liveSession = and(
+	eq(userSession.id, sql.placeholder('sid')),
+	eq(userSession.userId, user.id),
+	sql`${userSession.createdAt} > now() - make_interval(secs => ${sql.raw(String(sessionLifetimeS))})`
+);
+
+// Prepared statements (named, so each pooled connection parses and plans them once): every
+// signed-in request runs one of these. Built on first use, as db() needs the configuration.
+let prepared: ReturnType<typeof prepare> | undefined;
+const statements = () => (prepared ??= prepare());
+
+function prepare() {
+	const userColumns = { id: user.id, email: user.email, name: user.name };
+	const sessionUser = db()
+		.select(userColumns)
+		.from(user)
+		.innerJoin(userSession, liveSession)
+		.where(eq(user.id, sql.placeholder('userId')))
+		.prepare('pw_session_user');
+	const mine = and(eq(member.workshopId, build.workshopId), eq(member.userId, user.id));
+	const ownerColumns = { ...userColumns, workshopId: build.workshopId, buildId: build.id, role: member.role, workshopName: workshop.name };
+	const objectId = sql.placeholder('objectId');
+	// The session, its user and the object with the user's membership of its workshop, in one round
+	// trip. Left joins: a live session with an object that is missing or not the user's still answers
+	// the user (role null), so "signed out" and "not yours" stay apart.
+	const base = () => db().select(ownerColumns).from(user).innerJoin(userSession, liveSession);
+	const withMember = {
+		build: base()
+			.leftJoin(build, eq(build.id, objectId))
+			.leftJoin(member, mine)
+			.leftJoin(workshop, eq(workshop.id, member.workshopId))
+			.where(eq(user.id, sql.placeholder('userId')))
+			.prepare('pw_object_build'),
+		design: base()
+			.leftJoin(wheelDesign, eq(wheelDesign.id, objectId))
+			.leftJoin(build, eq(build.id, wheelDesign.buildId))
+			.leftJoin(member, mine)
+			.leftJoin(workshop, eq(workshop.id, member.workshopId))
+			.where(eq(user.id, sql.placeholder('userId')))
+			.prepare('pw_object_design'),
+		photo: base()
+			.leftJoin(wheelPhoto, eq(wheelPhoto.id, objectId))
+			.leftJoin(build, eq(build.id, wheelPhoto.buildId))
+			.leftJoin(member, mine)
+			.leftJoin(workshop, eq(workshop.id, member.workshopId))
+			.where(eq(user.id, sql.placeholder('userId')))
+			.prepare('pw_object_photo')
+	};
+	return { sessionUser, withMember };
+}
+
 /**
  * The signed-in user, or null. The session cookie may outlive the account and its session (signed
  * out, password changed), so both are looked up: one query, with the user's row.
@@ -44,20 +104,9 @@ export function signedInUser(event: RequestEvent): Promise<SessionUser | null> {
 	let found = perRequest.get(event.request);
 	if (!found) {
 		found = (async () => {
-			const session = await event.locals.auth();
-			const id = session?.user?.id;
-			const sid = sessionIdOf((session as { sid?: unknown } | null)?.sid);
-			if (!id || !sid) return null;
-			const live = and(
-				eq(userSession.id, sid),
-				eq(userSession.userId, user.id),
-				gt(userSession.createdAt, new Date(Date.now() - sessionLifetimeS * 1000))
-			);
-			const [row] = await db()
-				.select({ id: user.id, email: user.email, name: user.name })
-				.from(user)
-				.innerJoin(userSession, live)
-				.where(eq(user.id, id));
+			const token = await tokenOf(event);
+			if (!token) return null;
+			const [row] = await statements().sessionUser.execute(token);
 			return row ?? null;
 		})();
 		perRequest.set(event.request, found);
@@ -82,18 +131,34 @@ export async function requireUser(event: RequestEvent): Promise<SessionUser> {
  */
 export async function workshopAccess(event: RequestEvent, action: Action, workshopId?: string): Promise<WorkshopAccess> {
 	const me = await requireUser(event);
-	const workshops = await workshopsOf(db(), me.id);
+	const workshops = await workshopsFor(event, me.id);
 	const chosen = event.cookies.get(workshopCookie);
 	const current = workshopId ? workshops.find((w) => w.id === workshopId) : (workshops.find((w) => w.id === chosen) ?? workshops[0]);
 	if (!current) error(404, { message: 'No such workshop among yours.', code: 'not-found' });
-	if (!allows(current.role, action)) {
-		error(403, {
-			message: `Your role in ${current.name} is ${current.role}; this needs ${leastRole[action]} or above.`,
-			code: 'forbidden'
-		});
+	if (!allows(current.role, action)) forbidden(current, action);
+	return { user: me, workshop: current, workshops, can: canOf(current.role) };
+}
+
+function forbidden(current: WorkshopMembership, action: Action): never {
+	error(403, { message: `Your role in ${current.name} is ${current.role}; this needs ${leastRole[action]} or above.`, code: 'forbidden' });
+}
+
+const canOf = (role: Role): Record<Action, boolean> => ({
+	read: allows(role, 'read'),
+	edit: allows(role, 'edit'),
+	manage: allows(role, 'manage')
+});
+
+const workshopsPerRequest = new WeakMap<Request, Promise<WorkshopMembership[]>>();
+
+/** The user's workshops, read once per request however many loads ask (the layout and the page). */
+export function workshopsFor(event: RequestEvent, userId: string): Promise<WorkshopMembership[]> {
+	let found = workshopsPerRequest.get(event.request);
+	if (!found) {
+		found = workshopsOf(db(), userId);
+		workshopsPerRequest.set(event.request, found);
 	}
-	const can = { read: allows(current.role, 'read'), edit: allows(current.role, 'edit'), manage: allows(current.role, 'manage') };
-	return { user: me, workshop: current, workshops, can };
+	return found;
 }
 
 /** Makes `workshopId` the one the user works in, if they belong to it. */
@@ -113,44 +178,47 @@ export type ObjectKind = 'build' | 'design' | 'photo';
 
 const notFound = (kind: ObjectKind) => error(404, { message: `No such ${kind} in your workshops.`, code: 'not-found' });
 
-/** The build (and workshop) an object belongs to, found only among the workshops `userId` is a member of. */
-async function ownerOf(kind: ObjectKind, id: string, userId: string): Promise<{ workshopId: string; buildId: string } | undefined> {
-	const mine = and(eq(member.workshopId, build.workshopId), eq(member.userId, userId));
-	const columns = { workshopId: build.workshopId, buildId: build.id };
-	const rows =
-		kind === 'build'
-			? await db().select(columns).from(build).innerJoin(member, mine).where(eq(build.id, id))
-			: kind === 'design'
-				? await db()
-						.select(columns)
-						.from(wheelDesign)
-						.innerJoin(build, eq(build.id, wheelDesign.buildId))
-						.innerJoin(member, mine)
-						.where(eq(wheelDesign.id, id))
-				: await db()
-						.select(columns)
-						.from(wheelPhoto)
-						.innerJoin(build, eq(build.id, wheelPhoto.buildId))
-						.innerJoin(member, mine)
-						.where(eq(wheelPhoto.id, id));
-	return rows[0];
+export type ObjectAccess = Omit<WorkshopAccess, 'workshops'> & { buildId: string };
+
+type OwnerRow = Awaited<ReturnType<ReturnType<typeof prepare>['withMember']['build']['execute']>>[number];
+
+async function ownerRow(event: RequestEvent, kind: ObjectKind, id: string): Promise<OwnerRow | undefined> {
+	const token = await tokenOf(event);
+	if (!token) return undefined;
+	const [row] = await statements().withMember[kind].execute({ ...token, objectId: id });
+	return row;
 }
 
 /**
  * Access to one build, design or photo named by id (from a path): 401 signed out, 404 when it is
  * not in one of the caller's workshops (a malformed or guessed id looks the same as a missing one),
  * 403 when the role is too low. Queries that follow scope by the returned build id.
+ *
+ * One round trip when nothing of the request has read the session yet (an API call): the session,
+ * the user, the object and the membership together. Otherwise (a page, whose layout read the user)
+ * one for the object with the membership.
  */
-export async function objectAccess(
-	event: RequestEvent,
-	action: Action,
-	kind: ObjectKind,
-	id: string
-): Promise<WorkshopAccess & { buildId: string }> {
+export async function objectAccess(event: RequestEvent, action: Action, kind: ObjectKind, id: string): Promise<ObjectAccess> {
+	const validId = z.uuid().safeParse(id).success;
+	let owner: Promise<OwnerRow | undefined> | undefined;
+	if (validId && !perRequest.has(event.request)) {
+		const together = (async () => {
+			const token = await tokenOf(event);
+			if (!token) return { me: null, row: undefined };
+			const [row] = await statements().withMember[kind].execute({ ...token, objectId: id });
+			return { me: row ? { id: row.id, email: row.email, name: row.name } : null, row };
+		})();
+		const me = together.then((t) => t.me);
+		// Whoever reads the user next shares this; a failure is thrown where it is awaited below.
+		me.catch(() => undefined);
+		perRequest.set(event.request, me);
+		owner = together.then((t) => t.row);
+	}
 	const me = await requireUser(event);
-	if (!z.uuid().safeParse(id).success) notFound(kind);
-	const found = await ownerOf(kind, id, me.id);
-	if (!found) notFound(kind);
-	const access = await workshopAccess(event, action, found!.workshopId);
-	return { ...access, buildId: found!.buildId };
+	if (!validId) notFound(kind);
+	const row = owner ? await owner : await ownerRow(event, kind, id);
+	if (!row?.role || !row.workshopId || !row.buildId || row.workshopName === null) notFound(kind);
+	const current: WorkshopMembership = { id: row!.workshopId!, name: row!.workshopName!, role: row!.role! };
+	if (!allows(current.role, action)) forbidden(current, action);
+	return { user: me, workshop: current, can: canOf(current.role), buildId: row!.buildId! };
 }

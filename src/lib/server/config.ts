@@ -1,3 +1,4 @@
+import { availableParallelism } from 'node:os';
 import { z } from 'zod';
 
 /**
@@ -7,6 +8,11 @@ import { z } from 'zod';
  */
 const Env = z.object({
 	DATABASE_URL: z.url({ protocol: /^postgres(ql)?$/ }),
+	/**
+	 * Connections the app's pool may hold. By default twice the cores plus one, the starting point
+	 * the PostgreSQL wiki gives ("Number Of Database Connections"): more only queue inside the server.
+	 */
+	DATABASE_POOL_MAX: z.coerce.number().int().min(1).max(200).optional(),
 	SMTP_URL: z.url({ protocol: /^smtps?$/ }),
 	MAIL_FROM: z.string().min(3).default('Phasewright <no-reply@phasewright.invalid>'),
 	S3_ENDPOINT: z.url().optional(),
@@ -41,6 +47,7 @@ export function parseConfig(env: Record<string, string | undefined>) {
 	const e = parsed.data;
 	return {
 		databaseUrl: e.DATABASE_URL,
+		databasePoolMax: e.DATABASE_POOL_MAX ?? 2 * availableParallelism() + 1,
 		smtpUrl: e.SMTP_URL,
 		mailFrom: e.MAIL_FROM,
 		s3: {

@@ -10,10 +10,10 @@ export type Transaction = Parameters<Parameters<Database['transaction']>[0]>[0];
 export type Queryable = Database | Transaction;
 
 /** A pool and its Drizzle handle. Scripts and tests call this with their own address. */
-export function connect(url: string): Database {
+export function connect(url: string, max = 10): Database {
 	const pool = new pg.Pool({
 		connectionString: url,
-		max: 10,
+		max,
 		// Fail fast while the database is down, so pages can answer 503 instead of hanging.
 		connectionTimeoutMillis: 3_000,
 		idleTimeoutMillis: 30_000,
@@ -35,7 +35,7 @@ let shared: Database | undefined;
 /** The app's own database handle, opened on first use. */
 export function db(): Database {
 	if (!shared) {
-		const database = connect(config().databaseUrl);
+		const database = connect(config().databaseUrl, config().databasePoolMax);
 		// adapter-node emits this once it has stopped taking requests (graceful shutdown).
 		process.once('sveltekit:shutdown', () => void database.$client.end());
 		shared = database;

@@ -13,6 +13,7 @@ import {
 	buildSheetQuery,
 	updateBuild
 } from '$lib/schemas/build';
+import { listQuery } from '$lib/schemas/build-lists';
 import { cuttingDetails } from '$lib/schemas/cutting-package';
 import { buildSheetParams, phasingParams } from '$lib/schemas/phasing';
 import { maxTips, photoParams } from '$lib/schemas/photo';
@@ -81,6 +82,11 @@ const stale: Extra = {
 	status: 409,
 	description: 'Someone saved a newer revision since `baseRevision` (code `stale`); nothing was written.',
 	fields: { baseRevision: 'integer', head: 'object: the newest revision', yours: 'object: what this save sent' }
+};
+const badCursor: Extra = {
+	status: 400,
+	description: 'A `cursor` this list did not give (code `invalid`, `errors.cursor`); start again without it.',
+	fields: { errors: 'object', refusals: 'array' }
 };
 const point = { type: 'object', required: ['x', 'y'], properties: { x: { type: 'number' }, y: { type: 'number' } } };
 
@@ -367,9 +373,11 @@ export const routes: RouteTable = {
 	'/builds/{buildId}': {
 		GET: {
 			tag: 'Builds',
-			summary: 'A build with everything it holds',
+			summary: 'A build with the newest 50 of each list it holds',
+			description:
+				'`next.<list>` is the cursor for that list’s own route (null when the 50 are all): `…/photos?cursor=`, `…/activity?cursor=`, …',
 			access: 'read',
-			answer: json('The build whole.', {
+			answer: json('The build, each list newest first.', {
 				role: 'string',
 				build: 'object',
 				steps: 'array: the job in order, each with state todo, done or stale',
@@ -379,7 +387,9 @@ export const routes: RouteTable = {
 				tapes: 'array',
 				photos: 'array',
 				cuttingPackages: 'array',
-				activity: 'array'
+				activity: 'array',
+				signalChecks: 'array',
+				next: 'object: a cursor or null for each of tdcRecords, tapes, signalChecks, photos, cuttingPackages, activity'
 			})
 		},
 		PATCH: {
@@ -417,6 +427,17 @@ export const routes: RouteTable = {
 		}
 	},
 	'/builds/{buildId}/tdc-records': {
+		GET: {
+			tag: 'Builds',
+			summary: 'The build’s TDC records',
+			access: 'read',
+			query: listQuery,
+			answer: json('50 a page, newest first; `next` for the page after, null on the last.', {
+				tdcRecords: 'array',
+				next: 'string|null: the cursor of the page after, null on the last'
+			}),
+			also: [badCursor]
+		},
 		POST: {
 			tag: 'Builds',
 			summary: 'Save a TDC record',
@@ -431,6 +452,17 @@ export const routes: RouteTable = {
 		DELETE: { tag: 'Builds', summary: 'Delete a TDC record', access: 'edit', answer: empty('Deleted.') }
 	},
 	'/builds/{buildId}/tapes': {
+		GET: {
+			tag: 'Builds',
+			summary: 'The build’s saved degree tapes',
+			access: 'read',
+			query: listQuery,
+			answer: json('50 a page, newest first; `next` for the page after, null on the last.', {
+				tapes: 'array',
+				next: 'string|null: the cursor of the page after, null on the last'
+			}),
+			also: [badCursor]
+		},
 		POST: {
 			tag: 'Builds',
 			summary: 'Save a degree tape',
@@ -445,6 +477,17 @@ export const routes: RouteTable = {
 		DELETE: { tag: 'Builds', summary: 'Delete a saved degree tape', access: 'edit', answer: empty('Deleted.') }
 	},
 	'/builds/{buildId}/signal-checks': {
+		GET: {
+			tag: 'Builds',
+			summary: 'The build’s saved signal checks',
+			access: 'read',
+			query: listQuery,
+			answer: json('50 a page, newest first; `next` for the page after, null on the last.', {
+				signalChecks: 'array',
+				next: 'string|null: the cursor of the page after, null on the last'
+			}),
+			also: [badCursor]
+		},
 		POST: {
 			tag: 'Builds',
 			summary: 'Save a signal check',
@@ -459,6 +502,19 @@ export const routes: RouteTable = {
 	'/builds/{buildId}/signal-checks/{recordId}': {
 		DELETE: { tag: 'Builds', summary: 'Delete a saved signal check', access: 'edit', answer: empty('Deleted.') }
 	},
+	'/builds/{buildId}/activity': {
+		GET: {
+			tag: 'Builds',
+			summary: 'The build’s activity log',
+			access: 'read',
+			query: listQuery,
+			answer: json('50 a page, newest first; `next` for the page after, null on the last.', {
+				activity: 'array',
+				next: 'string|null: the cursor of the page after, null on the last'
+			}),
+			also: [badCursor]
+		}
+	},
 	'/builds/{buildId}/build-sheet.pdf': {
 		GET: {
 			tag: 'Builds',
@@ -470,7 +526,17 @@ export const routes: RouteTable = {
 		}
 	},
 	'/builds/{buildId}/photos': {
-		GET: { tag: 'Photos', summary: 'The build’s photos', access: 'read', answer: json('The photos, newest first.', { photos: 'array' }) },
+		GET: {
+			tag: 'Photos',
+			summary: 'The build’s photos',
+			access: 'read',
+			query: listQuery,
+			answer: json('50 a page, newest first; `next` for the page after, null on the last.', {
+				photos: 'array',
+				next: 'string|null: the cursor of the page after, null on the last'
+			}),
+			also: [badCursor]
+		},
 		POST: {
 			tag: 'Photos',
 			summary: 'Upload wheel photos',
@@ -522,7 +588,17 @@ export const routes: RouteTable = {
 		}
 	},
 	'/builds/{buildId}/cutting-packages': {
-		GET: { tag: 'Cutting packages', summary: 'Packages sent', access: 'read', answer: json('The packages.', { cuttingPackages: 'array' }) },
+		GET: {
+			tag: 'Cutting packages',
+			summary: 'Packages sent',
+			access: 'read',
+			query: listQuery,
+			answer: json('50 a page, newest first; `next` for the page after, null on the last.', {
+				cuttingPackages: 'array',
+				next: 'string|null: the cursor of the page after, null on the last'
+			}),
+			also: [badCursor]
+		},
 		POST: {
 			tag: 'Cutting packages',
 			summary: 'E-mail a revision’s DXF and shop drawing to a fabricator',

@@ -2,14 +2,18 @@ import { error, json } from '@sveltejs/kit';
 import { updateBuild as updateSchema } from '$lib/schemas/build';
 import { objectAccess } from '$lib/server/access';
 import { jsonBody } from '$lib/server/api';
+import { pageSize } from '$lib/server/build-lists';
 import { buildOverview, deleteBuild } from '$lib/server/build-overview';
 import { changeBuild } from '$lib/server/builds';
 import { db } from '$lib/server/db';
 
-/** The build with everything it holds: engine profile, wheel designs, records, photos, cutting packages, activity. */
+/**
+ * The build with the newest 50 of each list it holds (records, tapes, signal checks, photos,
+ * cutting packages, activity); `next.<list>` is the cursor for that list's own route.
+ */
 export async function GET(event) {
 	const access = await objectAccess(event, 'read', 'build', event.params.buildId);
-	const overview = await buildOverview(db(), access.buildId);
+	const overview = await buildOverview(db(), access.buildId, { limit: pageSize.api });
 	if (!overview) error(404, { message: 'No such build in your workshops.', code: 'not-found' });
 	return json({ role: access.workshop.role, ...overview });
 }

@@ -2,15 +2,15 @@ import { json } from '@sveltejs/kit';
 import { cuttingPackageInput } from '$lib/schemas/build';
 import { objectAccess } from '$lib/server/access';
 import { jsonBody } from '$lib/server/api';
-import { cuttingPackagesOf } from '$lib/server/build-overview';
+import { listAnswer } from '$lib/server/build-list-route';
 import { getBuild } from '$lib/server/builds';
 import { revisionToCut, sendCuttingPackage } from '$lib/server/cutting-package';
 import { db } from '$lib/server/db';
 import { mailRefusal, reserveMail } from '$lib/server/mail-throttle';
 
+/** The newest 50 packages sent, or the 50 after `cursor`; `next` gives the page after. */
 export async function GET(event) {
-	const access = await objectAccess(event, 'read', 'build', event.params.buildId);
-	return json({ cuttingPackages: await cuttingPackagesOf(db(), access.buildId) });
+	return listAnswer(event, 'cuttingPackages');
 }
 
 /** E-mails a fabricator (and a copy to the sender) the DXF and the shop drawing of a design's revision (the newest unless `revision` is given). */

@@ -3,7 +3,9 @@ import { objectAccess } from '$lib/server/access';
 import { db } from '$lib/server/db';
 import { intakePhoto, photoLimits } from '$lib/server/photos/intake';
 import { decodeSlot } from '$lib/server/photos/limit';
-import { photosOf, storePhoto } from '$lib/server/photos/store';
+import { storePhoto } from '$lib/server/photos/store';
+import { listAnswer } from '$lib/server/build-list-route';
+import { photosById } from '$lib/server/build-lists';
 
 const maxFiles = 12;
 const MB = 1024 * 1024;
@@ -11,9 +13,9 @@ const MB = 1024 * 1024;
 const maxRequestBytes = photoLimits.maxBytes + MB;
 const tooLarge = `file: at most ${photoLimits.maxBytes / MB} MB per photo, and ${maxRequestBytes / MB} MB per upload (send large photos one at a time)`;
 
+/** The newest 50 photos, or the 50 after `cursor`; `next` gives the page after (null on the last). */
 export async function GET(event) {
-	const access = await objectAccess(event, 'read', 'build', event.params.buildId);
-	return json({ photos: await photosOf(db(), access.buildId) });
+	return listAnswer(event, 'photos');
 }
 
 const refusal = (status: number, message: string) => json({ message, code: 'invalid', errors: { file: message } }, { status });
@@ -49,6 +51,5 @@ export async function POST(event) {
 	const ids = [];
 	for (const photo of accepted)
 		ids.push(await storePhoto(db(), { workshopId: access.workshop.id, buildId: access.buildId }, photo, access.user.id));
-	const mine = new Set(ids);
-	return json({ photos: (await photosOf(db(), access.buildId)).filter((p) => mine.has(p.id)) }, { status: 201 });
+	return json({ photos: await photosById(db(), access.buildId, ids) }, { status: 201 });
 }

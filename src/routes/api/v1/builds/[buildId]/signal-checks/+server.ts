@@ -2,8 +2,14 @@ import { json } from '@sveltejs/kit';
 import { saveRecord } from '$lib/schemas/build';
 import { objectAccess } from '$lib/server/access';
 import { jsonBody, refuse } from '$lib/server/api';
+import { listAnswer } from '$lib/server/build-list-route';
 import { db } from '$lib/server/db';
 import { saveSignalCheck } from '$lib/server/signal-checks';
+
+/** The newest 50 signal checks, or the 50 after `cursor`; `next` gives the page after (null on the last). */
+export async function GET(event) {
+	return listAnswer(event, 'signalChecks');
+}
 
 /**
  * Keeps a signal check in the build: the parameters GET /api/v1/signal takes, checked by the same

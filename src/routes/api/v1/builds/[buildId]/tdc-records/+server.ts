@@ -2,8 +2,14 @@ import { json } from '@sveltejs/kit';
 import { saveRecord } from '$lib/schemas/build';
 import { objectAccess } from '$lib/server/access';
 import { jsonBody, refuse } from '$lib/server/api';
+import { listAnswer } from '$lib/server/build-list-route';
 import { db } from '$lib/server/db';
 import { saveTdcRecord } from '$lib/server/records';
+
+/** The newest 50 TDC records, or the 50 after `cursor`; `next` gives the page after (null on the last). */
+export async function GET(event) {
+	return listAnswer(event, 'tdcRecords');
+}
 
 /** Saves a record with the tool's own parameters (the names its API route takes); refusals name `params.<field>`. */
 export async function POST(event) {
