@@ -118,7 +118,7 @@ describe('a build with 130 photos, TDC records and activity entries', () => {
 	it.each(['photos', 'tdc-records', 'tapes', 'signal-checks', 'cutting-packages', 'activity'])(
 		'refuses a cursor it did not give on %s with a 400 naming cursor',
 		async (route) => {
-			const forged = Buffer.from(`2026-02-31T00:00:00.000000Z|${buildId}`).toString('base64url');
+			const forged = Buffer.from(JSON.stringify(['2026-02-31T00:00:00.000000Z', buildId])).toString('base64url');
 			for (const bad of ['x', forged, '%00', 'A'.repeat(400)]) {
 				const res = await owner.json<{ errors: Record<string, string>; refusals: { field: string }[] }>(
 					`/api/v1/builds/${buildId}/${route}?cursor=${encodeURIComponent(bad)}`

@@ -9,17 +9,18 @@ describe('cursor', () => {
 		expect(decodeCursor(encodeCursor(cursor))).toEqual(cursor);
 	});
 
-	it('is base64url of the time and the id (the brief’s form, checked with Node’s own decoder)', () => {
+	it('is base64url of a JSON array of the time and the id (checked with Node’s own decoder)', () => {
 		const text = encodeCursor({ at: '2026-12-02T20:22:57.000001Z', id });
 		expect(text).toMatch(/^[A-Za-z0-9_-]+$/);
-		expect(Buffer.from(text, 'base64').toString('utf8')).toBe(`2026-12-02T20:22:57.000001Z|${id}`);
+		expect(JSON.parse(Buffer.from(text, 'base64').toString('utf8'))).toEqual(['2026-12-02T20:22:57.000001Z', id]);
 	});
 
 	// Hostile or stale input: each must come back null (a 400 naming the field), never reach SQL.
-	const b64 = (text: string) => Buffer.from(text, 'utf8').toString('base64url');
+	const b64 = (text: string) => Buffer.from(JSON.stringify(text.split('|')), 'utf8').toString('base64url');
 	it.each([
 		['empty', ''],
 		['not base64url', 'abc+/='],
+		['not JSON', Buffer.from('2026-12-02T20:22:57.123456Z|x', 'utf8').toString('base64url')],
 		['no separator', b64('2026-12-02T20:22:57.123456Z')],
 		['three parts', b64(`2026-12-02T20:22:57.123456Z|${id}|x`)],
 		['milliseconds only', b64(`2026-12-02T20:22:57.123Z|${id}`)],
@@ -51,7 +52,7 @@ describe('pageOf', () => {
 			{ id: '2', v: 2 }
 		]);
 		expect(decodeCursor(page.next!)).toBeNull(); // ids here are not uuids: the cursor is still what was given
-		expect(Buffer.from(page.next!, 'base64url').toString()).toBe('2026-12-02T00:00:57.000000Z|2');
+		expect(JSON.parse(Buffer.from(page.next!, 'base64url').toString())).toEqual(['2026-12-02T00:00:57.000000Z', '2']);
 	});
 
 	it('has no next page when no extra row came back', () => {

@@ -1,4 +1,5 @@
 import { sql, type AnyColumn, type SQL } from 'drizzle-orm';
+import { decodeCursor as decodeParts, encodeCursor as encodeParts } from '$lib/schemas/cursor';
 import { refusal, type Refusal } from '$lib/schemas/refusal';
 
 // Keyset paging for a build's lists (newest first by created_at, then id): a page ends where the
@@ -28,15 +29,16 @@ export interface PageAsk {
 const stamp = /^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}:\d{2}\.\d{6}Z$/;
 const uuid = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/;
 
+/** One cursor form for every list (src/lib/schemas/cursor.ts): here its parts are the time and the id. */
 export function encodeCursor(cursor: Cursor): string {
-	return Buffer.from(`${cursor.at}|${cursor.id}`, 'utf8').toString('base64url');
+	return encodeParts([cursor.at, cursor.id]);
 }
 
 /** The cursor in `text`, or null for anything this code did not write (never thrown: hostile input is normal). */
 export function decodeCursor(text: string): Cursor | null {
-	if (text.length === 0 || text.length > 120 || !/^[A-Za-z0-9_-]+$/.test(text)) return null;
-	const parts = Buffer.from(text, 'base64url').toString('utf8').split('|');
-	if (parts.length !== 2) return null;
+	if (text.length > 120) return null;
+	const parts = decodeParts(text, 2);
+	if (!parts) return null;
 	const [at, id] = parts as [string, string];
 	if (!stamp.test(at) || !uuid.test(id)) return null;
 	// A well-formed but impossible date (February 31) must not reach PostgreSQL, which would refuse it with a 500.
