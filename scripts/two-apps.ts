@@ -11,7 +11,7 @@
 // Run as `tsx scripts/two-apps.ts <build dir>` with the app's environment: the balancer listens on
 // HOST:PORT, the apps on two free loopback ports. SIGTERM/SIGINT stop the balancer from accepting,
 // pass the signal to both apps (each finishes what it has: src/lib/server/shutdown.ts) and exit 0
-// once they have.
+// once they have. SIGHUP restarts them one at a time, as a rolling deploy does.
 import { spawn, type ChildProcess } from 'node:child_process';
 import { once } from 'node:events';
 import http from 'node:http';
@@ -21,6 +21,8 @@ import { join } from 'node:path';
 export interface Upstream {
 	port: number;
 	served: number;
+	/** Taken out of the rotation (being restarted): no new requests go to it. */
+	out?: boolean;
 }
 
 /** A round-robin proxy over `upstreams` on 127.0.0.1. */
@@ -28,7 +30,9 @@ export function balancer(upstreams: Upstream[]): http.Server {
 	const agent = new http.Agent({ keepAlive: true, maxSockets: 64 });
 	let turn = 0;
 	const forward = (req: http.IncomingMessage, res: http.ServerResponse, tries: number) => {
-		const up = upstreams[turn++ % upstreams.length]!;
+		const live = upstreams.filter((u) => !u.out);
+		const pool = live.length ? live : upstreams;
+		const up = pool[turn++ % pool.length]!;
 		const out = http.request(
 			{ host: '127.0.0.1', port: up.port, method: req.method, path: req.url, headers: req.headers, agent },
 			(answer) => {
@@ -78,15 +82,24 @@ async function main() {
 	const port = Number(process.env.PORT ?? 3000);
 	const upstreams: Upstream[] = [];
 	const apps: ChildProcess[] = [];
-	for (const name of ['app 1', 'app 2']) {
-		const up = { port: await freePort(), served: 0 };
-		upstreams.push(up);
+	let stopping = false;
+	const restarting = new Set<number>();
+	const startApp = (i: number) => {
+		const up = upstreams[i]!;
 		const child = spawn(process.execPath, [join(process.cwd(), dir, 'index.js')], {
 			env: { ...process.env, HOST: '127.0.0.1', PORT: String(up.port) },
 			stdio: ['ignore', 'inherit', 'inherit']
 		});
-		child.on('exit', (code, signal) => console.log(`${name} (port ${up.port}) exited: ${signal ?? code}`));
-		apps.push(child);
+		child.on('exit', (code, signal) => {
+			console.log(`app ${i + 1} (port ${up.port}) exited: ${signal ?? code}`);
+			// One app dying on its own is a fault: stop the other too, so the caller sees it.
+			if (!stopping && !restarting.has(i)) void stop('SIGTERM');
+		});
+		apps[i] = child;
+	};
+	for (const i of [0, 1]) {
+		upstreams.push({ port: await freePort(), served: 0 });
+		startApp(i);
 	}
 	// Listening only once both answer, so the caller's own wait for the app means both are up.
 	for (const up of upstreams) await answering(up.port);
@@ -95,8 +108,7 @@ async function main() {
 		console.log(`Balancer on http://${host}:${port} over ports ${upstreams.map((u) => u.port).join(' and ')}`)
 	);
 
-	let stopping = false;
-	const stop = async (signal: NodeJS.Signals) => {
+	async function stop(signal: NodeJS.Signals) {
 		if (stopping) return;
 		stopping = true;
 		server.close();
@@ -111,10 +123,34 @@ async function main() {
 		server.closeAllConnections();
 		console.log(`balancer: ${upstreams.map((u) => `${u.served} answers from port ${u.port}`).join(', ')}`);
 		process.exit(apps.every((a) => a.exitCode === 0) ? 0 : 1);
-	};
+	}
+
+	/**
+	 * SIGHUP: a rolling restart, as a deploy behind a balancer does it. Each app in turn leaves the
+	 * rotation, is stopped (it finishes what it has), and a new one on its port joins once it answers.
+	 */
+	async function rollingRestart() {
+		for (const i of [0, 1]) {
+			if (stopping) return;
+			const up = upstreams[i]!;
+			restarting.add(i);
+			up.out = true;
+			const old = apps[i]!;
+			old.kill('SIGTERM');
+			const [code] = (await once(old, 'exit')) as [number | null];
+			console.log(`rolling restart: app ${i + 1} stopped with ${code}; starting it again`);
+			startApp(i);
+			await answering(up.port);
+			up.out = false;
+			restarting.delete(i);
+		}
+		console.log('rolling restart: done');
+	}
+	let rolling: Promise<void> | undefined;
+	process.on('SIGHUP', () => {
+		rolling ??= rollingRestart().finally(() => (rolling = undefined));
+	});
 	for (const signal of ['SIGTERM', 'SIGINT'] as const) process.on(signal, () => void stop(signal));
-	// One app dying on its own is a fault: stop the other too, so the caller sees it.
-	for (const app of apps) app.on('exit', () => void (stopping || stop('SIGTERM')));
 }
 
 if (process.argv[1] && import.meta.filename === process.argv[1]) await main();
