@@ -42,10 +42,25 @@ export function buildApp(build: AppBuild = productBuild) {
 	if (res.status !== 0) throw new StepError('vite build failed (errors above).', 'Fix the reported error, then run this again.');
 }
 
+/**
+ * adapter-node's limit on a stop (SIGTERM/SIGINT): requests still open after it are cut, and the
+ * pool and mail transport close (src/lib/server/shutdown.ts). Its own default is 30 s; ours 10.
+ */
+export const shutdownEnv = () => ({ SHUTDOWN_TIMEOUT: process.env.SHUTDOWN_TIMEOUT || '10' });
+
+/** PW_TWO_APPS=1: two app processes behind a round-robin balancer on the app's port (scripts/two-apps.ts). */
+export const twoApps = () => process.env.PW_TWO_APPS === '1';
+
 export function serveApp(env: Record<string, string>, build: AppBuild = productBuild): ChildProcess {
+	if (twoApps())
+		return spawn(process.execPath, ['--import', 'tsx', join(root, 'scripts', 'two-apps.ts'), build.dir], {
+			cwd: root,
+			env: { ...process.env, NODE_ENV: 'production', ...shutdownEnv(), ...env },
+			stdio: ['ignore', 'inherit', 'inherit']
+		});
 	return spawn(process.execPath, [builtServer(build)], {
 		cwd: root,
-		env: { ...process.env, NODE_ENV: 'production', ...env },
+		env: { ...process.env, NODE_ENV: 'production', ...shutdownEnv(), ...env },
 		stdio: ['ignore', 'inherit', 'inherit']
 	});
 }
@@ -60,7 +75,8 @@ export function devServer(env: Record<string, string>): ChildProcess {
 }
 
 /** Waits until the server answers its health check (any status: a 503 still means it is serving). */
-export async function waitForApp(baseUrl: string, child: ChildProcess, timeoutMs = 30_000) {
+// Two processes (and tsx for the balancer) take longer to come up on a busy machine.
+export async function waitForApp(baseUrl: string, child: ChildProcess, timeoutMs = twoApps() ? 60_000 : 30_000) {
 	const deadline = Date.now() + timeoutMs;
 	while (Date.now() < deadline) {
 		if (child.exitCode !== null) throw new StepError(`the server exited with code ${child.exitCode}.`, 'Read its output above.');

@@ -1,11 +1,13 @@
 import type { Handle, HandleServerError } from '@sveltejs/kit';
 import { sequence } from '@sveltejs/kit/hooks';
+import { building, dev } from '$app/environment';
 import { parseTheme, themeCookie } from '$lib/theme';
 import { bodyLimitHandle } from '$lib/server/body-limit';
 import { drainBodyHandle } from '$lib/server/drain-body';
 import { hostHandle } from '$lib/server/origin';
 import { formActionHandle } from '$lib/server/form-actions';
 import { securityHeadersHandle } from '$lib/server/security-headers';
+import { counted, installShutdown } from '$lib/server/shutdown';
 import { unavailableError, unavailableHandle } from '$lib/server/unavailable';
 import { authHandle } from './auth';
 
@@ -21,7 +23,17 @@ export const themeHandle: Handle = async ({ event, resolve }) => {
 	});
 };
 
-// Auth.js first: it answers its own routes under /auth and gives every request locals.auth().
+// Only the built server stops by signal through adapter-node; Vite's dev server keeps its own Ctrl-C.
+if (!dev && !building) installShutdown();
+
+/**
+ * Counts each request as work in flight until its handler is done, even when its client has gone
+ * (adapter-node counts connections only), so a stop closes the pool after it (shutdown.ts).
+ */
+export const inFlightHandle: Handle = ({ event, resolve }) => counted(async () => resolve(event));
+
+// inFlightHandle outermost of all. Auth.js first: it answers its own routes under /auth and gives every request
+// locals.auth().
 // unavailableHandle outermost: it turns a lost database connection anywhere inside into a 503.
 // drainBodyHandle around even that: it reads what a refusal left unread, so the connection serves
 // the next request (drain-body.ts). hostHandle next: a request for another host name is refused
@@ -32,6 +44,7 @@ export const themeHandle: Handle = async ({ event, resolve }) => {
 // is fixed at build time: only the bench's own build (VITE_PW_BENCH=1) has the branch and the module.
 const benchHandles: Handle[] = import.meta.env.VITE_PW_BENCH === '1' ? [(await import('$lib/server/bench-floor')).benchFloorHandle] : [];
 export const handle: Handle = sequence(
+	inFlightHandle,
 	drainBodyHandle,
 	hostHandle,
 	unavailableHandle,

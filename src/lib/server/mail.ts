@@ -1,11 +1,17 @@
 import nodemailer, { type Transporter } from 'nodemailer';
 import type Mail from 'nodemailer/lib/mailer';
 import { config } from './config';
+import { onShutdown } from './shutdown';
 
 let transport: Transporter | undefined;
 
 function mailer(): Transporter {
-	transport ??= nodemailer.createTransport(config().smtpUrl);
+	if (!transport) {
+		const made = nodemailer.createTransport(config().smtpUrl);
+		// After the mail queue has drained (shutdown.ts counts its jobs as work in flight).
+		onShutdown('mail transport', () => made.close());
+		transport = made;
+	}
 	return transport;
 }
 

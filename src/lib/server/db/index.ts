@@ -2,6 +2,7 @@ import { sql } from 'drizzle-orm';
 import { drizzle, type NodePgDatabase } from 'drizzle-orm/node-postgres';
 import pg from 'pg';
 import { config } from '../config';
+import { onShutdown } from '../shutdown';
 import * as schema from './schema';
 
 export type Database = NodePgDatabase<typeof schema> & { $client: pg.Pool };
@@ -36,8 +37,8 @@ let shared: Database | undefined;
 export function db(): Database {
 	if (!shared) {
 		const database = connect(config().databaseUrl, config().databasePoolMax);
-		// adapter-node emits this once it has stopped taking requests (graceful shutdown).
-		process.once('sveltekit:shutdown', () => void database.$client.end());
+		// Ended once the server has stopped taking requests and the work in flight is done (shutdown.ts).
+		onShutdown('database pool', () => database.$client.end());
 		shared = database;
 	}
 	return shared;
