@@ -200,6 +200,24 @@ export function finish(doc: PDFKit.PDFDocument): Promise<Buffer> {
 	});
 }
 
+/**
+ * The arguments of doc.text() for one line set as pdfkit's `align` sets it in a box `widthPt` wide
+ * from x, measured here in the current font instead of by pdfkit's line wrapper, which costs more
+ * than the text it sets (a tape has a label per tick). For a line that fits its box, as every
+ * caller's does: `doc.font(f).fontSize(s).text(...alignedAt(doc, ...))` measures in f at s.
+ */
+export function alignedAt(
+	doc: PDFKit.PDFDocument,
+	text: string,
+	x: number,
+	y: number,
+	widthPt: number,
+	align: 'center' | 'right' = 'center'
+) {
+	const w = doc.widthOfString(text);
+	return [text, x + (align === 'center' ? (widthPt - w) / 2 : widthPt - w), y, { lineBreak: false }] as const;
+}
+
 export const printNote = 'Print at 100% / actual size (no "fit to page"). Measure both bars before you use this print.';
 
 /** A 100 mm bar with millimetre ticks and a 4 in bar with quarter-inch ticks, starting at (x, y) mm. */
@@ -223,7 +241,7 @@ export function calibrationBars(doc: PDFKit.PDFDocument, xMm: number, yMm: numbe
 				doc
 					.font('mono')
 					.fontSize(6)
-					.text(label, x - 10, mm(y + 1), { width: 20, align: 'center' });
+					.text(...alignedAt(doc, label, x - 10, mm(y + 1), 20));
 		}
 	};
 	bar(yMm, 100, 1, 10, (i) => (i % 10 === 0 ? `${i}` : null));
