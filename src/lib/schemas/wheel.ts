@@ -2,6 +2,7 @@ import { z } from 'zod';
 import { ansiShaftRangeIn, ansiSlot, dinShaftRange, dinSlot, woodruffSlot, type HubSlot } from '$lib/trade/keys';
 import { materials } from '$lib/trade/materials';
 import type { Pattern } from '$lib/trade/pattern';
+import { refusals as tradeRefusals } from '$lib/trade/checks';
 import { summarize, type WheelSummary } from '$lib/trade/summary';
 import { formatLength, fromMm, toMm, type Units } from '$lib/trade/units';
 import type { WheelSpec } from '$lib/trade/wheel';
@@ -250,6 +251,17 @@ export function checkWheel(params: WheelParams): Checked<ValidWheel> {
 		Object.entries(params).filter((e): e is [string, string] => wheelParams.get(e[0]) !== undefined && e[1] !== undefined && e[1] !== '')
 	);
 	return { ok: true, value: { ...parsed.value, summary: result.summary, params: known } };
+}
+
+/**
+ * checkWheel's refusals, the same ones in the same order, without the summary (mass, balance,
+ * warnings) a drawing file never states: the DXF, SVG and STL routes answer a quarter sooner.
+ */
+export function checkWheelShape(params: WheelParams): Checked<ParsedWheel> {
+	const parsed = readWheel(params);
+	if (!parsed.ok) return parsed;
+	const refused = tradeRefusals(parsed.value.spec, parsed.value.units);
+	return refused.length ? { ok: false, refusals: firstPerField(refused.map((r) => userField(r, parsed.value))) } : parsed;
 }
 
 /** `readWheel` with its refusals as a field → `field: message` map, for the callers written before it. */

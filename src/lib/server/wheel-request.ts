@@ -1,5 +1,5 @@
 import { refuse } from './api';
-import { checkWheel as check, type ParsedWheel } from '$lib/schemas/wheel';
+import { checkWheel as check, checkWheelShape, type ParsedWheel } from '$lib/schemas/wheel';
 import { namedErrors, type Refusal } from '$lib/schemas/refusal';
 import type { WheelSummary } from '$lib/trade/summary';
 import type { FieldErrors } from '$lib/schemas/form';
@@ -27,4 +27,12 @@ export function wheelFromQuery(url: URL): WheelRequest {
 	if (!checked.ok) return { ok: false, response: refuse(checked.refusals) };
 	const { summary, ...wheel } = checked.value;
 	return { ok: true, wheel, summary };
+}
+
+export type WheelShapeRequest = { ok: true; wheel: ParsedWheel } | { ok: false; response: Response };
+
+/** The same for a drawing file (DXF, SVG, STL): the same refusals, without the summary such a file never states. */
+export function wheelShapeFromQuery(url: URL): WheelShapeRequest {
+	const checked = checkWheelShape(Object.fromEntries(url.searchParams));
+	return checked.ok ? { ok: true, wheel: checked.value } : { ok: false, response: refuse(checked.refusals) };
 }

@@ -5,7 +5,7 @@ import { summarize } from '$lib/trade/summary';
 import { exampleSpec } from '$support/example-spec';
 import type { WheelSpec } from '$lib/trade/wheel';
 import { dxfOptions, wheelModel } from '$support/wheel-model';
-import { wheelDxf } from './dxf';
+import { dxfNumber, wheelDxf } from './dxf';
 
 // The reference is makerjs's own DXF writer (makerjs.exporter.toDXF) given the wheel's model: the
 // file written straight from the drawing must be the same text, character for character, past two
@@ -128,4 +128,27 @@ describe('the wheel DXF', () => {
 		expect(end).toBeCloseTo(90 - (Math.asin(3 / 10) * 180) / Math.PI, 3);
 		expect(lines.join('\n')).not.toContain('ndung');
 	});
+});
+
+// The oracle is makerjs's own rounding and JavaScript's own shortest decimal: the text makerjs's DXF writes.
+describe('dxfNumber', () => {
+	const reference = (v: number) => String(makerjs.round(v));
+	it('writes every number as String(makerjs.round(v)) does (property test over doubles from 1e-9 to 1e9)', () => {
+		fc.assert(
+			fc.property(fc.double({ min: -1e9, max: 1e9, noNaN: true }), (v) => {
+				expect(dxfNumber(v)).toBe(reference(v));
+			}),
+			{ numRuns: 20_000 }
+		);
+		fc.assert(
+			fc.property(fc.double({ min: -1e-3, max: 1e-3, noNaN: true }), (v) => {
+				expect(dxfNumber(v)).toBe(reference(v));
+			}),
+			{ numRuns: 20_000 }
+		);
+	});
+	it.each([
+		0, -0, 1e-7, -1e-7, 2.0000001, -12.0000003, 0.0000012, 4e-8, 6e-8, 1e-6, 0.5, -0.5, 359.99999999, 12.30000004, -60.00000005, 1e20,
+		123456.7654321
+	])('writes %s as makerjs does', (v) => expect(dxfNumber(v)).toBe(reference(v)));
 });

@@ -24,6 +24,31 @@ const lineTypes = [
 	'0\nLTYPE\n72\n65\n70\n0\n2\nDASHED\n3\n_ _ _ \n73\n2\n40\n7.5\n49\n5\n49\n-2.5',
 	'0\nLTYPE\n72\n65\n70\n0\n2\nDOTTED\n3\n. . . \n73\n2\n40\n1.5\n49\n0.5\n49\n-1'
 ].join('\n');
+/**
+ * A coordinate as makerjs's DXF writes it, String(makerjs.round(v)), without its cost: turning a
+ * fraction into its shortest decimal is most of a DXF's time, and a rounded value's shortest
+ * decimal is its whole ten-millionths with the point put in (exact below 2^53 of them, far past
+ * any wheel). Values below 1e-6, which JavaScript writes with an exponent, go the long way.
+ */
+export function dxfNumber(v: number): string {
+	if (v % 1 === 0) return String(v);
+	const q = Math.round((v + Number.EPSILON) * 1e7);
+	const a = q < 0 ? -q : q;
+	if (!(a >= 10 && a <= Number.MAX_SAFE_INTEGER)) return String(q / 1e7);
+	const whole = Math.floor(a / 1e7);
+	let f = a - whole * 1e7;
+	const text = q < 0 ? '-' + whole : '' + whole;
+	if (!f) return text;
+	let digits = 7;
+	while (f % 10 === 0) {
+		f /= 10;
+		digits--;
+	}
+	const fraction = '' + f;
+	return text + '.' + '000000'.slice(0, digits - fraction.length) + fraction;
+}
+const n = dxfNumber;
+
 const layerRow = (l: { name: string; color: number }) => `0\nLAYER\n2\n${l.name}\n70\n0\n62\n${l.color}\n6\nCONTINUOUS`;
 
 /**
@@ -38,9 +63,9 @@ export function dxfAngle(deg: number): number {
 
 function entity(s: Segment, k: number, layer: string): string {
 	if (s.kind === 'line')
-		return `0\nLINE\n8\n${layer}\n6\nCONTINUOUS\n10\n${r(s.from.x * k)}\n20\n${r(s.from.y * k)}\n11\n${r(s.to.x * k)}\n21\n${r(s.to.y * k)}`;
+		return `0\nLINE\n8\n${layer}\n6\nCONTINUOUS\n10\n${n(s.from.x * k)}\n20\n${n(s.from.y * k)}\n11\n${n(s.to.x * k)}\n21\n${n(s.to.y * k)}`;
 	const [start, end] = s.ccw ? [s.startDeg, s.endDeg] : [s.endDeg, s.startDeg];
-	return `0\nARC\n8\n${layer}\n6\nCONTINUOUS\n10\n${r(s.center.x * k)}\n20\n${r(s.center.y * k)}\n40\n${r(s.radius * k)}\n50\n${dxfAngle(start)}\n51\n${dxfAngle(end)}`;
+	return `0\nARC\n8\n${layer}\n6\nCONTINUOUS\n10\n${n(s.center.x * k)}\n20\n${n(s.center.y * k)}\n40\n${n(s.radius * k)}\n50\n${dxfAngle(start)}\n51\n${dxfAngle(end)}`;
 }
 
 /**
@@ -61,7 +86,7 @@ export function dxfHeader(units: Units): string {
 
 function contourEntities(c: Contour, k: number, layer: string): string[] {
 	if (c.kind === 'circle')
-		return [`0\nCIRCLE\n8\n${layer}\n6\nCONTINUOUS\n10\n${r(c.center.x * k)}\n20\n${r(c.center.y * k)}\n40\n${r(c.radius * k)}`];
+		return [`0\nCIRCLE\n8\n${layer}\n6\nCONTINUOUS\n10\n${n(c.center.x * k)}\n20\n${n(c.center.y * k)}\n40\n${n(c.radius * k)}`];
 	return c.segments.map((s) => entity(s, k, layer));
 }
 

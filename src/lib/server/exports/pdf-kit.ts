@@ -18,36 +18,68 @@ export { papers } from '$lib/trade/paper';
 // is; so each font is parsed once per process, by the very fontkit pdfkit itself depends on.
 const fontkit = createRequire(createRequire(import.meta.url).resolve('pdfkit'))('fontkit') as typeof Fontkit;
 
-/** Shaped strings kept per font, at most this many (a page of text has a few hundred). */
+/** Shaped words kept per font, at most this many (a page of text has a few hundred). */
 const shapedLimit = 20_000;
 
 /**
- * The font, with its shaping remembered across documents: the same string in the same font always
- * gives the same glyphs and positions. Each call answers fresh position objects, since pdfkit
- * scales the ones it is given in place.
+ * pdfkit keeps each word it shapes (glyphs and positions, already scaled) in its font's
+ * `layoutCache`, one per document, and never changes an entry once made; so one cache per font
+ * serves every document, and a word shaped once is measured and written from it ever after (the
+ * shaping and measuring were half of a wheel PDF's time). The font's layout() runs only on a miss,
+ * which is what counts the entries: past the limit, documents begun afterwards start a new cache.
+ *
+ * Each document embeds the subset of the font its text used, glyphs numbered in the order they
+ * first appear; the subset's bytes follow from that list alone, so they are made once per list
+ * (making them was a quarter of a wheel PDF's time). Every document takes the glyphs of `seeded`
+ * first (newDocument), so the numbers a template prints, which change from file to file, do not
+ * change the list.
  */
-function remembered(font: Fontkit.Font): Fontkit.Font {
-	const runs = new Map<string, Fontkit.GlyphRun>();
-	const shaped: Fontkit.Font = Object.create(font);
-	shaped.layout = (text, features, ...rest) => {
-		if (features !== undefined || rest.length) return font.layout(text, features, ...rest);
-		let run = runs.get(text);
-		if (!run) {
-			if (runs.size >= shapedLimit) runs.clear();
-			runs.set(text, (run = font.layout(text)));
-		}
-		const copy: Fontkit.GlyphRun = Object.create(Object.getPrototypeOf(run));
-		return Object.assign(copy, run, { glyphs: [...run.glyphs], positions: run.positions.map((p) => ({ ...p })) });
+interface Shared {
+	font: Fontkit.Font;
+	cache: Record<string, unknown>;
+	entries: number;
+}
+const subsetLimit = 200;
+type Subset = Fontkit.Subset & { glyphs: number[] };
+
+function shared(font: Fontkit.Font): Shared {
+	const s: Shared = { font: Object.create(font) as Fontkit.Font, cache: Object.create(null) as Record<string, unknown>, entries: 0 };
+	s.font.layout = (...args: Parameters<Fontkit.Font['layout']>) => {
+		s.entries++;
+		return font.layout(...args);
 	};
-	return shaped;
+	const subsets = new Map<string, Uint8Array>();
+	s.font.createSubset = () => {
+		const subset = font.createSubset() as Subset;
+		const encode = subset.encode.bind(subset);
+		subset.encode = () => {
+			const key = subset.glyphs.join(',');
+			let bytes = subsets.get(key);
+			if (!bytes) {
+				if (subsets.size >= subsetLimit) subsets.clear();
+				subsets.set(key, (bytes = encode()));
+			}
+			return bytes;
+		};
+		return subset;
+	};
+	return s;
 }
 
-const fonts = new Map<string, Fontkit.Font>();
-function parsedFont(file: string): Fontkit.Font {
+/** The characters of numbers, one word each so each is its own glyph: embedded in every document, first. */
+const seeded = '0 1 2 3 4 5 6 7 8 9 . , - ° / ( ) %';
+
+const fonts = new Map<string, Shared>();
+function sharedFont(file: string): Shared {
 	let font = fonts.get(file);
-	if (!font) fonts.set(file, (font = remembered(fontkit.create(readFileSync(fontFile(file))) as Fontkit.Font)));
+	if (!font) fonts.set(file, (font = shared(fontkit.create(readFileSync(fontFile(file))) as Fontkit.Font)));
+	if (font.entries > shapedLimit) {
+		font.cache = Object.create(null) as Record<string, unknown>;
+		font.entries = 0;
+	}
 	return font;
 }
+const parsedFont = (file: string) => sharedFont(file).font;
 
 /**
  * A user-given name as this PDF can print it. The shipped fonts cover Latin, Greek and Cyrillic;
@@ -75,18 +107,28 @@ export function printable(text: string, font: keyof typeof pdfFonts = 'text'): {
 export const missingNote = (missing: string[]) =>
 	`Characters the PDF font cannot print are shown as “?”: ${missing.slice(0, 12).join(', ')}${missing.length > 12 ? ` and ${missing.length - 12} more` : ''}.`;
 
+/** What pdfkit keeps of a document's current font that newDocument reaches into. */
+type Internals = { _font: { layoutCache?: Record<string, unknown>; encode(text: string): unknown } };
+
 /** A document with the shipped fonts; its first page `size`, or none yet when size is null (add it with addPageMm). */
 export function newDocument(title: string, size: { widthMm: number; heightMm: number } | null) {
 	const doc = new PDFDocument({
 		size: size ? [mm(size.widthMm), mm(size.heightMm)] : 'A4',
 		margin: 0,
 		info: { Title: title, Creator: 'Phasewright' },
-		autoFirstPage: size !== null
+		autoFirstPage: size !== null,
+		// No Helvetica to start with (pdfkit would parse its metrics for every document): the shipped fonts follow.
+		font: null as unknown as string
 	});
-	// pdfkit takes a parsed font (anything with layout()), though its types list only files and bytes.
-	doc.registerFont('text', parsedFont(pdfFonts.text) as unknown as PDFKit.Mixins.PDFFontSource);
-	doc.registerFont('bold', parsedFont(pdfFonts.bold) as unknown as PDFKit.Mixins.PDFFontSource);
-	doc.registerFont('mono', parsedFont(pdfFonts.mono) as unknown as PDFKit.Mixins.PDFFontSource);
+	for (const [name, file] of Object.entries(pdfFonts)) {
+		const font = sharedFont(file);
+		// pdfkit takes a parsed font (anything with layout()), though its types list only files and bytes.
+		doc.registerFont(name, font.font as unknown as PDFKit.Mixins.PDFFontSource);
+		doc.font(name);
+		const embedded = (doc as unknown as Internals)._font;
+		embedded.layoutCache = font.cache;
+		embedded.encode(seeded);
+	}
 	doc.font('text');
 	return doc;
 }
@@ -102,6 +144,10 @@ export function addPageMm(doc: PDFKit.PDFDocument, size: { widthMm: number; heig
  */
 export const lineHeight = (doc: PDFKit.PDFDocument) => doc.currentLineHeight(true);
 
+/** Lines already broken, by font, size, width and text: a template breaks the same texts in every document. */
+const broken = new Map<string, string[]>();
+const brokenLimit = 5000;
+
 /**
  * `text` broken into lines no wider than `widthPt` in the current font and size: at spaces, and
  * inside a word only when the word alone is wider than the line. Written a line at a time (with
@@ -109,6 +155,17 @@ export const lineHeight = (doc: PDFKit.PDFDocument) => doc.currentLineHeight(tru
  * the next page, or split it, before it draws anything.
  */
 export function wrapLines(doc: PDFKit.PDFDocument, text: string, widthPt: number): string[] {
+	const { _font: font, _fontSize: size } = doc as unknown as { _font: { name: string }; _fontSize: number };
+	const key = `${font.name}\u0000${size}\u0000${widthPt}\u0000${text}`;
+	let lines = broken.get(key);
+	if (!lines) {
+		if (broken.size >= brokenLimit) broken.clear();
+		broken.set(key, (lines = breakLines(doc, text, widthPt)));
+	}
+	return [...lines];
+}
+
+function breakLines(doc: PDFKit.PDFDocument, text: string, widthPt: number): string[] {
 	const lines: string[] = [];
 	let line = '';
 	const fits = (s: string) => doc.widthOfString(s) <= widthPt;
@@ -143,6 +200,24 @@ export function finish(doc: PDFKit.PDFDocument): Promise<Buffer> {
 	});
 }
 
+/**
+ * The arguments of doc.text() for one line set as pdfkit's `align` sets it in a box `widthPt` wide
+ * from x, measured here in the current font instead of by pdfkit's line wrapper, which costs more
+ * than the text it sets (a tape has a label per tick). For a line that fits its box, as every
+ * caller's does: `doc.font(f).fontSize(s).text(...alignedAt(doc, ...))` measures in f at s.
+ */
+export function alignedAt(
+	doc: PDFKit.PDFDocument,
+	text: string,
+	x: number,
+	y: number,
+	widthPt: number,
+	align: 'center' | 'right' = 'center'
+) {
+	const w = doc.widthOfString(text);
+	return [text, x + (align === 'center' ? (widthPt - w) / 2 : widthPt - w), y, { lineBreak: false }] as const;
+}
+
 export const printNote = 'Print at 100% / actual size (no "fit to page"). Measure both bars before you use this print.';
 
 /** A 100 mm bar with millimetre ticks and a 4 in bar with quarter-inch ticks, starting at (x, y) mm. */
@@ -166,7 +241,7 @@ export function calibrationBars(doc: PDFKit.PDFDocument, xMm: number, yMm: numbe
 				doc
 					.font('mono')
 					.fontSize(6)
-					.text(label, x - 10, mm(y + 1), { width: 20, align: 'center' });
+					.text(...alignedAt(doc, label, x - 10, mm(y + 1), 20));
 		}
 	};
 	bar(yMm, 100, 1, 10, (i) => (i % 10 === 0 ? `${i}` : null));

@@ -16,7 +16,7 @@ import {
 	type TapeSpec
 } from '$lib/trade/tape';
 import { formatLength, type Units } from '$lib/trade/units';
-import { calibrationBars, finish, mm, newDocument, papers, printable, printNote } from './pdf-kit';
+import { alignedAt, calibrationBars, finish, mm, newDocument, papers, printable, printNote } from './pdf-kit';
 import { keyOf, Recent } from './recent';
 
 const { marginMm: margin, headerMm: header, footerMm: footer, stripHeightMm: stripHeight, rowGapMm: rowGap } = tapePage;
@@ -113,7 +113,7 @@ async function drawTape(spec: TapeSpec, units: Units, paper: keyof typeof papers
 						.font('text')
 						.fontSize(5.5)
 						.fillColor('black')
-						.text(`join ${join}`, x(at) - mm(6), mm(top + stripHeight + 2.5), { width: mm(12), align: 'center', lineBreak: false });
+						.text(...alignedAt(doc, `join ${join}`, x(at) - mm(6), mm(top + stripHeight + 2.5), mm(12)));
 				};
 				if (i > 0) {
 					// The overlap: the previous strip's end is glued over it.
@@ -154,7 +154,7 @@ async function drawTape(spec: TapeSpec, units: Units, paper: keyof typeof papers
 						doc
 							.font(t.atdcDeg === 0 ? 'bold' : 'text')
 							.fontSize(4.5)
-							.text(side(t.atdcDeg), x(t.xMm) - mm(2.5), mm(top + 14), { width: mm(5), align: 'center', lineBreak: false });
+							.text(...alignedAt(doc, side(t.atdcDeg), x(t.xMm) - mm(2.5), mm(top + 14), mm(5)));
 						doc.font('mono').fontSize(7);
 					}
 				}
@@ -273,7 +273,7 @@ function fittingDiagram(doc: PDFKit.PDFDocument, rotation: Rotation, left: numbe
 	const rightEnd = at(38, r + 2.4);
 	const leftEnd = at(142, r + 2.4);
 	const ink = (word: string) => (word === 'BTDC' ? '#8a5200' : 'black');
-	doc.fillColor(ink(ends.left)).text(ends.left, leftEnd[0] - P(8), leftEnd[1] - P(2), { width: P(8), align: 'right', lineBreak: false });
+	doc.fillColor(ink(ends.left)).text(...alignedAt(doc, ends.left, leftEnd[0] - P(8), leftEnd[1] - P(2), P(8), 'right'));
 	doc.fillColor(ink(ends.right)).text(ends.right, rightEnd[0], rightEnd[1] - P(2), { lineBreak: false });
 	doc
 		.font('text')
@@ -294,7 +294,7 @@ function fittingDiagram(doc: PDFKit.PDFDocument, rotation: Rotation, left: numbe
 		.fillColor('black')
 		.font('bold')
 		.fontSize(5.5)
-		.text('ENGINE', P(bx), P(top + 2.8), { width: P(bw), align: 'center', lineBreak: false });
+		.text(...alignedAt(doc, 'ENGINE', P(bx), P(top + 2.8), P(bw)));
 	const tx = bx + bw / 2;
 	doc.polygon([P(tx), P(top + 9.5)], [P(tx - 1.3), P(top + 6.5)], [P(tx + 1.3), P(top + 6.5)]).fill('black');
 	const tapeTop = top + 9.5;
@@ -315,17 +315,17 @@ function fittingDiagram(doc: PDFKit.PDFDocument, rotation: Rotation, left: numbe
 	doc
 		.font('bold')
 		.fontSize(4.5)
-		.text('TDC', P(tx - 3), P(tapeTop + 3.4), { width: P(6), align: 'center', lineBreak: false });
+		.text(...alignedAt(doc, 'TDC', P(tx - 3), P(tapeTop + 3.4), P(6)));
 	doc
 		.font('bold')
 		.fontSize(4.5)
 		.fillColor(ink(ends.left))
-		.text(ends.left, P(tx - 13), P(tapeTop + 3.4), { width: P(8), align: 'center', lineBreak: false });
-	doc.fillColor(ink(ends.right)).text(ends.right, P(tx + 5), P(tapeTop + 3.4), { width: P(8), align: 'center', lineBreak: false });
+		.text(...alignedAt(doc, ends.left, P(tx - 13), P(tapeTop + 3.4), P(8)));
+	doc.fillColor(ink(ends.right)).text(...alignedAt(doc, ends.right, P(tx + 5), P(tapeTop + 3.4), P(8)));
 	doc
 		.font('text')
 		.fontSize(4.5)
-		.text('top edge (header side) toward the engine', P(bx), P(tapeTop + tapeH - 2.9), { width: P(bw), align: 'center', lineBreak: false });
+		.text(...alignedAt(doc, 'top edge (header side) toward the engine', P(bx), P(tapeTop + tapeH - 2.9), P(bw)));
 	// The way the tape moves past the pointer.
 	const ay = tapeTop + tapeH + 3;
 	const half = bw / 2 - 5;
@@ -339,12 +339,12 @@ function fittingDiagram(doc: PDFKit.PDFDocument, rotation: Rotation, left: numbe
 	doc
 		.font('text')
 		.fontSize(5)
-		.text('tape moves this way', P(bx), P(ay + 1.6), { width: P(bw), align: 'center', lineBreak: false });
+		.text(...alignedAt(doc, 'tape moves this way', P(bx), P(ay + 1.6), P(bw)));
 	doc.rect(P(bx), P(ay + 5), P(bw), P(4)).fill('#eef3ff');
 	doc
 		.fillColor('black')
 		.font('bold')
 		.fontSize(5.5)
-		.text('WHEEL FACE: YOU', P(bx), P(ay + 5.8), { width: P(bw), align: 'center', lineBreak: false });
+		.text(...alignedAt(doc, 'WHEEL FACE: YOU', P(bx), P(ay + 5.8), P(bw)));
 	doc.restore();
 }

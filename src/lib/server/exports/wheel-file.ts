@@ -20,7 +20,8 @@ const types: Record<WheelFileKind, string> = { dxf: 'application/dxf', svg: 'ima
  */
 const recent = new Recent<Promise<string | Buffer>>(96);
 
-export async function wheelFile(kind: WheelFileKind, wheel: ParsedWheel, summary: WheelSummary, revision?: number) {
+/** The summary is needed for the PDF alone (its table): the drawing files are made without one. */
+export async function wheelFile(kind: WheelFileKind, wheel: ParsedWheel, summary: WheelSummary | null, revision?: number) {
 	const { spec, units, paper, running } = wheel;
 	// An STL is always in mm (its format has no units), so its name says mm whatever the design's units.
 	const fileUnits = kind === 'stl' ? 'mm' : units;
@@ -35,7 +36,9 @@ export async function wheelFile(kind: WheelFileKind, wheel: ParsedWheel, summary
 					? Promise.resolve(wheelSvg(spec, units))
 					: kind === 'stl'
 						? Promise.resolve(wheelStl(spec, exportName(spec, 'mm', 'stl')))
-						: wheelPdf(spec, summary, units, paper)
+						: summary
+							? wheelPdf(spec, summary, units, paper)
+							: Promise.reject(new Error('a wheel PDF needs the summary'))
 		);
 		made.catch(() => recent.delete(key));
 	}

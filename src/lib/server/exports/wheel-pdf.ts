@@ -2,11 +2,11 @@
 // Every line of text is measured and placed before it is drawn, so nothing prints over anything
 // else whatever the input: a table longer than the page's room goes on over further pages, each
 // with the caution and the calibration bars at its foot.
-import { contourPath, outlinesPath, segmentsPath } from '$lib/trade/svg';
 import type { WheelSummary } from '$lib/trade/summary';
 import { missingPositions } from '$lib/trade/pattern';
 import { formatLength, norm360, type Units } from '$lib/trade/units';
 import { cutContours, drawWheel, indexMark, type WheelSpec } from '$lib/trade/wheel';
+import { contourOps, outlinesOps, segmentsOps } from './pdf-path';
 import { addPageMm, calibrationBars, finish, lineHeight, mm, newDocument, papers, printNote, wrapLines } from './pdf-kit';
 
 export function specRows(spec: WheelSpec, summary: WheelSummary, units: Units): [string, string][] {
@@ -181,16 +181,16 @@ export async function wheelPdf(spec: WheelSpec, summary: WheelSummary, units: Un
 	if (!fits) flow.write(note, larger, textMm);
 	flow.y += 4;
 
-	// The wheel at 1:1: the SVG path data is already y-down, like PDF's page space under pdfkit.
+	// The wheel at 1:1, in mm, y-down like PDF's page space under pdfkit (pdf-path.ts).
 	const cx = size.widthMm / 2;
 	const cy = flow.y + spec.odMm / 2;
 	doc.save().translate(mm(cx), mm(cy)).scale(mm(1));
 	doc.lineWidth(0.25).strokeColor('black');
-	for (const c of cutContours(d)) doc.path(contourPath(c)).stroke();
+	for (const c of cutContours(d)) doc.addContent(contourOps(c)).stroke();
 	doc.strokeColor('#1d47b0');
-	if (d.etch.length) doc.path(segmentsPath(d.etch)).stroke();
+	if (d.etch.length) doc.addContent(segmentsOps(d.etch)).stroke();
 	// The etched label at 1:1, filled as it reads once etched (its outlines are the DXF's).
-	if (d.label) doc.path(outlinesPath(d.label.outlines)).fill('#1d47b0');
+	if (d.label) doc.addContent(outlinesOps(d.label.outlines)).fill('#1d47b0');
 	// Centre cross, to line the template up on the blank.
 	const arm = Math.min(8, spec.odMm * 0.08);
 	doc.lineWidth(0.15).strokeColor('#555').moveTo(-arm, 0).lineTo(arm, 0).moveTo(0, -arm).lineTo(0, arm).stroke();

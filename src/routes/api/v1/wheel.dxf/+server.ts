@@ -1,10 +1,10 @@
 import { fileResponse } from '$lib/server/api';
 import { wheelFile } from '$lib/server/exports/wheel-file';
-import { wheelFromQuery } from '$lib/server/wheel-request';
+import { wheelShapeFromQuery } from '$lib/server/wheel-request';
 
 export async function GET({ url }) {
-	const r = wheelFromQuery(url);
+	const r = wheelShapeFromQuery(url);
 	if (!r.ok) return r.response;
-	const file = await wheelFile('dxf', r.wheel, r.summary);
+	const file = await wheelFile('dxf', r.wheel, null);
 	return fileResponse(file.body, file.contentType, file.name);
 }
