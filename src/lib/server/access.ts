@@ -213,6 +213,9 @@ export async function objectAccess(event: RequestEvent, action: Action, kind: Ob
 		me.catch(() => undefined);
 		perRequest.set(event.request, me);
 		owner = together.then((t) => t.row);
+		// When the user's read throws first (the database went away), nothing awaits this one: an
+		// unhandled rejection would end the process (seen when faults.test.ts stopped PostgreSQL).
+		owner.catch(() => undefined);
 	}
 	const me = await requireUser(event);
 	if (!validId) notFound(kind);
