@@ -10,7 +10,6 @@ import { randomBytes } from 'node:crypto';
 import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { once } from 'node:events';
-import { createServer } from 'node:net';
 import { join } from 'node:path';
 import { sql } from 'drizzle-orm';
 import sharp from 'sharp';
@@ -18,6 +17,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { connect } from '../../src/lib/server/db';
 import { listKeys } from '../../src/lib/server/storage';
 import { appUrl, Client, freshEmail, mailTo, signUp } from '../support/client';
+import { freePort } from '$support/free-port';
 
 const database = connect(process.env.DATABASE_URL!);
 afterAll(() => database.$client.end());
@@ -36,16 +36,6 @@ const perClient = 20;
 interface Instance {
 	url: string;
 	child: ChildProcess;
-}
-
-async function freePort(): Promise<number> {
-	const server = createServer();
-	server.listen(0, '127.0.0.1');
-	await once(server, 'listening');
-	const port = (server.address() as { port: number }).port;
-	server.close();
-	await once(server, 'close');
-	return port;
 }
 
 async function startBehindProxy(): Promise<Instance> {

@@ -5,7 +5,6 @@
 // attributes), RFC 6797 (HSTS), W3C CSP Level 3, the Fetch standard (CORS preflight).
 import { spawn, type ChildProcess } from 'node:child_process';
 import { once } from 'node:events';
-import { createServer } from 'node:net';
 import { join } from 'node:path';
 import sharp from 'sharp';
 import { sql } from 'drizzle-orm';
@@ -15,6 +14,7 @@ import { listKeys } from '../../src/lib/server/storage';
 import { throttlePolicy } from '../../src/lib/server/throttle';
 import { contextFor, launch } from '../e2e/browser';
 import { appUrl, Client, freshEmail, signUp } from '../support/client';
+import { freePort } from '$support/free-port';
 
 const database = connect(process.env.DATABASE_URL!);
 afterAll(() => database.$client.end());
@@ -31,16 +31,6 @@ interface Instance {
 	url: string;
 	origin: string;
 	child: ChildProcess;
-}
-
-async function freePort(): Promise<number> {
-	const server = createServer();
-	server.listen(0, '127.0.0.1');
-	await once(server, 'listening');
-	const port = (server.address() as { port: number }).port;
-	server.close();
-	await once(server, 'close');
-	return port;
 }
 
 async function startBehindProxy(): Promise<Instance> {

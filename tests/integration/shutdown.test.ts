@@ -5,10 +5,10 @@
 import { spawn, type ChildProcess } from 'node:child_process';
 import { once } from 'node:events';
 import { request } from 'node:http';
-import { createServer } from 'node:net';
 import { join } from 'node:path';
 import { afterAll, expect, it } from 'vitest';
 import { freshEmail, mailTo, signUp } from '$support/client';
+import { freePort } from '$support/free-port';
 
 interface Sent {
 	what: string;
@@ -17,16 +17,6 @@ interface Sent {
 	status?: number;
 	error?: string;
 	answeredAt?: number;
-}
-
-async function freePort(): Promise<number> {
-	const server = createServer();
-	server.listen(0, '127.0.0.1');
-	await once(server, 'listening');
-	const port = (server.address() as { port: number }).port;
-	server.close();
-	await once(server, 'close');
-	return port;
 }
 
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));

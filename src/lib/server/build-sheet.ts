@@ -15,8 +15,7 @@ import type { Queryable } from './db';
 import { designsOf, getDesign, revisionOf } from './designs';
 import type { BuildSheet, SheetCard, SheetTape } from './exports/build-sheet-pdf';
 import { buildSheetName } from './exports/names';
-import { tapesOf, tdcRecordsOf } from './records';
-import { signalChecksOf } from './signal-checks';
+import { signalCheckPage, tapePage, tdcRecordPage } from './build-lists';
 
 // The build sheet, from parameters alone (the public tool) or from a saved build: both checked by
 // checkBuildSheet, both named by names.ts, both printed by build-sheet-pdf.ts.
@@ -129,9 +128,11 @@ export async function buildSheetFor(
 
 	// The wheel as saved wins over the profile's copy of its pattern; records add the TDC and the hub.
 	const params: Record<string, string> = { ...build.engineProfile, ...revision.params };
-	const [tdc] = await tdcRecordsOf(database, access.buildId);
+	// The newest of each list, by the lists' own index (a build may hold thousands of records).
+	const newest = { limit: 1 };
+	const [tdc] = (await tdcRecordPage(database, access.buildId, newest)).items;
 	if (tdc?.params.a !== undefined && tdc.params.b !== undefined) Object.assign(params, { tdcA: tdc.params.a, tdcB: tdc.params.b });
-	const [tape] = await tapesOf(database, access.buildId);
+	const [tape] = (await tapePage(database, access.buildId, newest)).items;
 	const hub = tape ? checkTape(tape.params) : null;
 	if (hub?.ok) params.tapeDiameter = lengthText(hub.value.spec.hubDiameterMm, params.units === 'in' ? 'in' : 'mm');
 
@@ -142,7 +143,7 @@ export async function buildSheetFor(
 		wheelGiven(revision.params),
 		tape && hub?.ok ? { tape: hub.value, label: tape.label, params: tape.params } : null
 	);
-	const [signal] = await signalChecksOf(database, access.buildId);
+	const [signal] = (await signalCheckPage(database, access.buildId, newest)).items;
 	sheet.signal = signal ? { label: signal.label, date: signal.createdAt.toISOString().slice(0, 10), cases: signal.cases } : null;
 	return { ok: true, value: { sheet, filename: buildSheetName(build.name, revision.number) } };
 }

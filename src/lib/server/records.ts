@@ -1,10 +1,10 @@
-import { and, desc, eq } from 'drizzle-orm';
+import { and, eq } from 'drizzle-orm';
 import { refusal, type Refusal } from '$lib/schemas/refusal';
 import { checkTape } from '$lib/schemas/tape';
 import { checkTdc, tdcRecordParams } from '$lib/schemas/tdc';
 import { sideText, spreadFromRim } from '$lib/trade/tdc';
-import type { Database, Queryable } from './db';
-import { degreeTape, tdcRecord, user, type FlatParams } from './db/schema';
+import type { Database } from './db';
+import { degreeTape, tdcRecord, type FlatParams } from './db/schema';
 import { logActivity } from './activity';
 import { touchBuild } from './builds';
 
@@ -73,31 +73,6 @@ export async function saveTape(
 		await touchBuild(tx, buildId);
 		return { ok: true as const, id: row!.id };
 	});
-}
-
-export async function tdcRecordsOf(database: Queryable, buildId: string) {
-	return database
-		.select({
-			id: tdcRecord.id,
-			label: tdcRecord.label,
-			params: tdcRecord.params,
-			tdcDeg: tdcRecord.tdcDeg,
-			author: user.email,
-			createdAt: tdcRecord.createdAt
-		})
-		.from(tdcRecord)
-		.leftJoin(user, eq(user.id, tdcRecord.authorId))
-		.where(eq(tdcRecord.buildId, buildId))
-		.orderBy(desc(tdcRecord.createdAt));
-}
-
-export async function tapesOf(database: Queryable, buildId: string) {
-	return database
-		.select({ id: degreeTape.id, label: degreeTape.label, params: degreeTape.params, author: user.email, createdAt: degreeTape.createdAt })
-		.from(degreeTape)
-		.leftJoin(user, eq(user.id, degreeTape.authorId))
-		.where(eq(degreeTape.buildId, buildId))
-		.orderBy(desc(degreeTape.createdAt));
 }
 
 export async function deleteRecord(

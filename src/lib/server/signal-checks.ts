@@ -1,7 +1,7 @@
-import { and, desc, eq } from 'drizzle-orm';
+import { and, eq } from 'drizzle-orm';
 import type { Refusal } from '$lib/schemas/refusal';
-import type { Database, Queryable } from './db';
-import { signalCheck, user, type FlatParams, type SignalCaseHeadline } from './db/schema';
+import type { Database } from './db';
+import { signalCheck, type FlatParams, type SignalCaseHeadline } from './db/schema';
 import { logActivity } from './activity';
 import { touchBuild } from './builds';
 import { signalHeadline } from './signal-headline';
@@ -48,23 +48,6 @@ export async function saveSignalCheck(
 		await touchBuild(tx, buildId);
 		return { ok: true as const, id: row!.id, cases };
 	});
-}
-
-/** Newest first: the build sheet prints the first. */
-export async function signalChecksOf(database: Queryable, buildId: string) {
-	return database
-		.select({
-			id: signalCheck.id,
-			label: signalCheck.label,
-			params: signalCheck.params,
-			cases: signalCheck.cases,
-			author: user.email,
-			createdAt: signalCheck.createdAt
-		})
-		.from(signalCheck)
-		.leftJoin(user, eq(user.id, signalCheck.authorId))
-		.where(eq(signalCheck.buildId, buildId))
-		.orderBy(desc(signalCheck.createdAt), desc(signalCheck.id));
 }
 
 export async function deleteSignalCheck(database: Database, buildId: string, id: string, actorId: string): Promise<boolean> {
