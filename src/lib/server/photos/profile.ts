@@ -12,34 +12,61 @@ export interface ProfileReading {
 	duty: number;
 	confidence: number;
 	toothCount: number;
+	/** Each tooth seen: its middle's unit-frame angle (radians, ccw) and its position (0 after the main gap). */
+	seen: { phi: number; position: number }[];
+	/** Stretches not read, unit-frame angles (radians, ccw from `from` to `to`). */
+	unseen: { from: number; to: number }[];
+	/** The parts of the confidence, for calibration. */
+	factors: Record<string, number>;
 }
 
-export type ProfileFailure = { failure: string };
+export type ProfileFailure = { failure: 'few' | 'nogap' | 'gap-unseen' | 'unseen' };
+
+/** 1 metal, 0 background, -1 not read. */
+type State = 1 | 0 | -1;
 
 interface Run {
 	start: number;
 	len: number;
-	on: boolean;
+	state: State;
 }
 
-/** Runs of the circular binary profile, starting at a change so none wraps. */
-function runsOf(on: boolean[]): Run[] {
-	const n = on.length;
-	const first = on.findIndex((v, i) => v !== on[(i - 1 + n) % n]);
+/** Runs of the circular profile, starting at a change so none wraps. */
+function runsOf(st: State[]): Run[] {
+	const n = st.length;
+	const first = st.findIndex((v, i) => v !== st[(i - 1 + n) % n]);
 	if (first < 0) return [];
 	const runs: Run[] = [];
 	for (let i = 0; i < n;) {
 		const start = (first + i) % n;
 		let len = 0;
-		while (i + len < n && on[(first + i + len) % n] === on[start]) len++;
-		runs.push({ start, len, on: on[start]! });
+		while (i + len < n && st[(first + i + len) % n] === st[start]) len++;
+		runs.push({ start, len, state: st[start]! });
 		i += len;
 	}
 	return runs;
 }
 
-/** Flips the shortest run under `min` samples into its neighbours until none is left. */
-function clean(runs: Run[], min: number, n: number): Run[] {
+/** Joins neighbouring runs of the same state (after a change of state), keeping the circular order. */
+function join(rs: Run[]): Run[] {
+	const out: Run[] = [];
+	for (const r of rs) {
+		const last = out[out.length - 1];
+		if (last && last.state === r.state) last.len += r.len;
+		else out.push({ ...r });
+	}
+	if (out.length > 1 && out[0]!.state === out[out.length - 1]!.state) {
+		const tail = out.pop()!;
+		out[0] = { start: tail.start, len: tail.len + out[0]!.len, state: tail.state };
+	}
+	return out;
+}
+
+/**
+ * Flips the shortest run under `min` samples into its neighbours until none is left: between two
+ * runs of one state it takes theirs; next to a stretch not read it joins that stretch.
+ */
+function clean(runs: Run[], min: number): Run[] {
 	let rs = runs;
 	for (;;) {
 		if (rs.length < 4) return rs;
@@ -48,14 +75,8 @@ function clean(runs: Run[], min: number, n: number): Run[] {
 		if (k < 0) return rs;
 		const prev = rs[(k - 1 + rs.length) % rs.length]!;
 		const next = rs[(k + 1) % rs.length]!;
-		const merged: Run = { start: prev.start, len: prev.len + rs[k]!.len + next.len, on: prev.on };
-		const out: Run[] = [];
-		for (let i = 0; i < rs.length; i++) {
-			if (i === k || i === (k + 1) % rs.length) continue;
-			out.push(i === (k - 1 + rs.length) % rs.length ? merged : rs[i]!);
-		}
-		// Merging across index 0 may leave the first run's start mid-list; keep order by start.
-		rs = out.map((r) => ({ ...r, start: r.start % n })).sort((a, b) => a.start - b.start);
+		const state: State = prev.state === next.state ? prev.state : -1;
+		rs = join(rs.map((r, i) => (i === k ? { ...r, state } : r)));
 	}
 }
 
@@ -68,7 +89,9 @@ const medianOf = (a: number[]) => {
 function strongestHarmonic(s: Float64Array, from: number, to: number): number {
 	const n = s.length;
 	let mean = 0;
-	for (const v of s) mean += v / n;
+	let m = 0;
+	for (const v of s) if (!Number.isNaN(v)) [mean, m] = [mean + v, m + 1];
+	mean /= m || 1;
 	const cos = new Float64Array(n).map((_, i) => Math.cos((2 * Math.PI * i) / n));
 	const sin = new Float64Array(n).map((_, i) => Math.sin((2 * Math.PI * i) / n));
 	let best = from;
@@ -77,7 +100,7 @@ function strongestHarmonic(s: Float64Array, from: number, to: number): number {
 		let re = 0;
 		let im = 0;
 		for (let i = 0, a = 0; i < n; i++, a = (a + h) % n) {
-			const v = s[i]! - mean;
+			const v = Number.isNaN(s[i]!) ? 0 : s[i]! - mean;
 			re += v * cos[a]!;
 			im += v * sin[a]!;
 		}
@@ -91,34 +114,56 @@ const clamp01 = (v: number) => Math.max(0, Math.min(1, v));
 
 export function readProfile(s: Float64Array): ProfileReading | ProfileFailure {
 	const n = s.length;
-	const on = [...s].map((v) => v >= 0.5);
-	let runs = clean(runsOf(on), 3, n);
-	runs = clean(runs, Math.max(3, 0.3 * medianOf(runs.map((r) => r.len))), n);
-	const teethRuns = runs.filter((r) => r.on);
+	const st: State[] = [...s].map((v) => (Number.isNaN(v) ? -1 : v >= 0.5 ? 1 : 0));
+	let runs = runsOf(st);
+	if (!runs.length) return { failure: 'few' };
+	runs = clean(runs, 3);
+	runs = clean(runs, Math.max(3, 0.3 * medianOf(runs.filter((r) => r.state === 1).map((r) => r.len))));
+	// A tooth cut by a stretch not read has no trustworthy middle: it joins the stretch.
+	for (;;) {
+		const i = runs.findIndex(
+			(r, x) => r.state === 1 && (runs[(x - 1 + runs.length) % runs.length]!.state === -1 || runs[(x + 1) % runs.length]!.state === -1)
+		);
+		if (i < 0 || runs.length < 3) break;
+		runs = join(runs.map((r, x) => (x === i ? { ...r, state: -1 as State } : r)));
+	}
+	const unseenLen = runs.filter((r) => r.state === -1).reduce((a, r) => a + r.len, 0);
+	if (unseenLen > 0.35 * n) return { failure: 'unseen' };
+	const teethRuns = runs.filter((r) => r.state === 1);
 	if (teethRuns.length < 5) return { failure: 'few' };
 	const centre = (r: Run) => r.start + r.len / 2;
+	const idxOf = new Map(runs.map((r, i) => [r, i]));
 	const gapsAfter = teethRuns.map((r, i) => {
 		const next = teethRuns[(i + 1) % teethRuns.length]!;
 		return (((centre(next) - centre(r)) % n) + n) % n || n;
 	});
-	const med = medianOf(gapsAfter);
+	// A spacing is known when nothing between the two teeth went unread.
+	const known = teethRuns.map((r, i) => {
+		const next = teethRuns[(i + 1) % teethRuns.length]!;
+		for (let x = idxOf.get(r)!; x !== idxOf.get(next); x = (x + 1) % runs.length) if (runs[x]!.state === -1) return false;
+		return true;
+	});
+	const knownGaps = gapsAfter.filter((_, i) => known[i]);
+	if (knownGaps.length < 4) return { failure: 'few' };
+	const med = medianOf(knownGaps);
 	const guess = Math.round(n / med);
 	let best: { teeth: number; ks: number[]; err: number; sumOk: boolean } | null = null;
 	for (let N = Math.max(6, guess - 2); N <= guess + 2; N++) {
 		const p = n / N;
 		const ks = gapsAfter.map((g) => Math.max(1, Math.round(g / p)));
 		const sumOk = ks.reduce((a, b) => a + b, 0) === N;
-		const err = Math.max(...gapsAfter.map((g, i) => Math.abs(g / p - ks[i]!)));
+		const err = Math.max(...gapsAfter.map((g, i) => (known[i] ? Math.abs(g / p - ks[i]!) : 0)));
 		if (!best || (sumOk && !best.sumOk) || (sumOk === best.sumOk && err < best.err)) best = { teeth: N, ks, err, sumOk };
 	}
 	if (!best) return { failure: 'few' };
 	const { teeth: N, ks } = best;
 	const p = n / N;
-	const widths = teethRuns.map((r) => r.len / p);
+	const full = teethRuns.filter((_, i) => known[i] || known[(i - 1 + teethRuns.length) % teethRuns.length]);
+	const widths = full.map((r) => r.len / p);
 	const duty = widths.reduce((a, b) => a + b, 0) / widths.length;
 	const sd = Math.sqrt(widths.reduce((a, w) => a + (w - duty) ** 2, 0) / widths.length);
-	const gapsAt = ks.map((k, i) => ({ i, k })).filter((g) => g.k >= 2);
-	if (!gapsAt.length) return { failure: 'nogap' };
+	const gapsAt = ks.map((k, i) => ({ i, k })).filter((g) => g.k >= 2 && known[g.i]);
+	if (!gapsAt.length) return { failure: unseenLen ? 'gap-unseen' : 'nogap' };
 	const main = gapsAt.reduce((a, b) => (b.k > a.k ? b : a));
 	// Walk ccw from the tooth after the main gap, counting positions.
 	const pos: number[] = new Array<number>(teethRuns.length);
@@ -132,23 +177,41 @@ export function readProfile(s: Float64Array): ProfileReading | ProfileFailure {
 	const missing = gaps.reduce((a, g) => a + g.count, 0);
 	const a = teethRuns[main.i]!;
 	const mid = centre(a) + gapsAfter[main.i]! / 2;
-	const gapPhi = (2 * Math.PI * (mid % n)) / n;
+	const toPhi = (x: number) => (2 * Math.PI * (((x % n) + n) % n)) / n;
+	const gapPhi = toPhi(mid);
 
 	// Confidence: spacings that sit on whole pitches, even tooth widths, a clean two-level profile,
-	// and the profile's strongest cycle count agreeing with N.
+	// the profile's strongest cycle count agreeing with N, and how much of the ring was read.
 	let hi = 0;
 	let lo = 0;
 	let nh = 0;
 	let nl = 0;
 	for (let i = 0; i < n; i++)
-		if (on[i]) [hi, nh] = [hi + s[i]!, nh + 1];
-		else [lo, nl] = [lo + s[i]!, nl + 1];
+		if (st[i] === 1) [hi, nh] = [hi + s[i]!, nh + 1];
+		else if (st[i] === 0) [lo, nl] = [lo + s[i]!, nl + 1];
 	const separation = (nh ? hi / nh : 0) - (nl ? lo / nl : 0);
-	const fSpacing = clamp01(1 - (best.err - 0.12) / 0.3);
-	const fWidth = clamp01(1 - (sd / duty - 0.08) / 0.4);
-	const fLevels = clamp01((separation - 0.25) / 0.35);
-	const harmonic = strongestHarmonic(s, 6, Math.min(200, Math.floor(n / 8)));
-	const fCycles = harmonic === N ? 1 : 0.5;
-	const confidence = fSpacing * fWidth * fLevels * fCycles * (best.sumOk ? 1 : 0.3);
-	return { teeth: N, missing, gaps, gapPhi, duty, confidence, toothCount: teethRuns.length };
+	const factors = {
+		spacing: clamp01(1 - (best.err - 0.12) / 0.3),
+		width: clamp01(1 - (sd / duty - 0.08) / 0.4),
+		levels: clamp01((separation - 0.25) / 0.35),
+		cycles: strongestHarmonic(s, 6, Math.min(200, Math.floor(n / 8))) === N ? 1 : 0.5,
+		sum: best.sumOk ? 1 : 0.3,
+		read: clamp01(1 - unseenLen / n / 0.35),
+		spacingErr: best.err
+	};
+	const confidence = factors.spacing * factors.width * factors.levels * factors.cycles * factors.sum * (0.5 + 0.5 * factors.read);
+	const seen = teethRuns.map((r, i) => ({ phi: toPhi(centre(r)), position: pos[i]! }));
+	// A stretch not read reaches from the last tooth seen before it to the first after: what lies
+	// between them, read as background or not, is not known.
+	const unseen = runs
+		.map((r, i) => ({ r, i }))
+		.filter(({ r }) => r.state === -1)
+		.map(({ r, i }) => {
+			const before = runs[(i - 1 + runs.length) % runs.length]!;
+			const after = runs[(i + 1) % runs.length]!;
+			const from = before.state === 0 ? before.start : r.start;
+			const to = after.state === 0 ? after.start + after.len : r.start + r.len;
+			return { from: toPhi(from), to: toPhi(to) };
+		});
+	return { teeth: N, missing, gaps, gapPhi, duty, confidence, toothCount: N - missing, seen, unseen, factors };
 }
