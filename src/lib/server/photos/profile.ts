@@ -70,12 +70,18 @@ function clean(runs: Run[], min: number): Run[] {
 	let rs = runs;
 	for (;;) {
 		if (rs.length < 4) return rs;
+		const flipTo = (i: number): State => {
+			const prev = rs[(i - 1 + rs.length) % rs.length]!;
+			const next = rs[(i + 1) % rs.length]!;
+			return prev.state === next.state ? prev.state : -1;
+		};
+		// A short stretch not read between a tooth and a space would flip to itself and never end
+		// the loop: only runs that change are candidates.
 		let k = -1;
-		for (let i = 0; i < rs.length; i++) if (rs[i]!.len < min && (k < 0 || rs[i]!.len < rs[k]!.len)) k = i;
+		for (let i = 0; i < rs.length; i++)
+			if (rs[i]!.len < min && flipTo(i) !== rs[i]!.state && (k < 0 || rs[i]!.len < rs[k]!.len)) k = i;
 		if (k < 0) return rs;
-		const prev = rs[(k - 1 + rs.length) % rs.length]!;
-		const next = rs[(k + 1) % rs.length]!;
-		const state: State = prev.state === next.state ? prev.state : -1;
+		const state = flipTo(k);
 		rs = join(rs.map((r, i) => (i === k ? { ...r, state } : r)));
 	}
 }
