@@ -64,25 +64,29 @@ function join(rs: Run[]): Run[] {
 
 /**
  * Flips the shortest run under `min` samples into its neighbours until none is left: between two
- * runs of one state it takes theirs; next to a stretch not read it joins that stretch.
+ * runs of one state it takes theirs; a short stretch not read between a tooth and a space (a lit
+ * or shadowed flank) is shared between them, half each, so a tooth's middle moves by a quarter of
+ * it at most. Every step joins runs, so the loop ends.
  */
 function clean(runs: Run[], min: number): Run[] {
 	let rs = runs;
 	for (;;) {
 		if (rs.length < 4) return rs;
-		const flipTo = (i: number): State => {
-			const prev = rs[(i - 1 + rs.length) % rs.length]!;
-			const next = rs[(i + 1) % rs.length]!;
-			return prev.state === next.state ? prev.state : -1;
-		};
-		// A short stretch not read between a tooth and a space would flip to itself and never end
-		// the loop: only runs that change are candidates.
 		let k = -1;
-		for (let i = 0; i < rs.length; i++)
-			if (rs[i]!.len < min && flipTo(i) !== rs[i]!.state && (k < 0 || rs[i]!.len < rs[k]!.len)) k = i;
+		for (let i = 0; i < rs.length; i++) if (rs[i]!.len < min && (k < 0 || rs[i]!.len < rs[k]!.len)) k = i;
 		if (k < 0) return rs;
-		const state = flipTo(k);
-		rs = join(rs.map((r, i) => (i === k ? { ...r, state } : r)));
+		const r = rs[k]!;
+		const prev = rs[(k - 1 + rs.length) % rs.length]!;
+		const next = rs[(k + 1) % rs.length]!;
+		if (prev.state === next.state) rs = join(rs.map((x, i) => (i === k ? { ...x, state: prev.state } : x)));
+		else if (r.state === -1) {
+			const half = Math.floor(r.len / 2);
+			const split: Run[] = [
+				{ start: r.start, len: half, state: prev.state },
+				{ start: r.start + half, len: r.len - half, state: next.state }
+			];
+			rs = join(rs.flatMap((x, i) => (i === k ? split.filter((y) => y.len > 0) : [x])));
+		} else rs = join(rs.map((x, i) => (i === k ? { ...x, state: -1 as State } : x)));
 	}
 }
 

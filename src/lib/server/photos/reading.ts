@@ -188,14 +188,16 @@ function findRoot(img: Grey, pose: Homography, radial: (from: number, to: number
 }
 
 /**
- * Angles where something lies over the rim (a finger, a bracket): the solid metal just inside the
- * root no longer reads as metal, or the background just outside the tips no longer as background.
- * Their profile becomes unknown, a little wider than found, so the teeth beside them are not cut.
+ * Angles where something lies over the rim (a finger, a bracket): most of the teeth's band is
+ * neither metal nor background, and the solid metal just inside the root no longer reads as metal
+ * or the background just outside the tips no longer as background. A mat's grid line or a plank
+ * seam crosses the bands too, but thinly: the teeth's band stays readable there. Their profile
+ * becomes unknown, a little wider than found, so the teeth beside them are not cut.
  */
-function hideCovered(profile: Float64Array, metal: Float64Array, bg: Float64Array) {
+function hideCovered(profile: Float64Array, teeth: Float64Array, metal: Float64Array, bg: Float64Array) {
 	const n = profile.length;
 	const covered = new Uint8Array(n);
-	for (let i = 0; i < n; i++) if (!(metal[i]! >= 0.8) || !(bg[i]! <= 0.15)) covered[i] = 1;
+	for (let i = 0; i < n; i++) if (Number.isNaN(teeth[i]!) && (!(metal[i]! >= 0.8) || !(bg[i]! <= 0.15))) covered[i] = 1;
 	const pad = Math.ceil(n / 720);
 	for (let i = 0; i < n; i++) {
 		if (!covered[i]) continue;
@@ -218,10 +220,15 @@ function readRing(img: Grey, pose: Homography, radiusPx: number, na: number): Ri
 	const p2 = projectColour(fine, metal, bg);
 	if (p2.contrast < 8) return { failure: 'contrast' };
 	const ring = normalise(p2.polar, metal, bg, true, 0.5);
-	const { profile } = bandMean(ring, root + 0.25 * depth, 1 - 0.25 * depth);
+	// The teeth from every sample (flanks included), the cover from the solid bands, where a colour
+	// neither metal nor background means something lies over the rim.
+	const band: [number, number] = [root + 0.25 * depth, 1 - 0.25 * depth];
+	const { profile } = bandMean({ ...ring, t: normalise(p2.whole, metal, bg, true, 0.5).t }, ...band);
 	if (!profile) return { failure: 'depth' };
-	hideCovered(profile, bandMean(ring, metal[0], metal[1]).profile!, bandMean(ring, bg[0], bg[1]).profile!);
+	const solid = (b: [number, number]) => bandMean(ring, ...b).profile!;
+	hideCovered(profile, solid(band), solid(metal), solid(bg));
 	const read = readProfile(profile);
+	if (process.env.PWDBG) console.error('DBG', na, 'root', root.toFixed(3), 'contrast', p2.contrast.toFixed(0), 'failure' in read ? read.failure : `${read.teeth}-${read.missing} ${read.confidence.toFixed(2)} ${JSON.stringify(read.factors)}`, '\n', [...profile].map((v) => (Number.isNaN(v) ? '?' : v >= 0.5 ? '#' : '.')).join('').slice(0, na >= 2048 ? 2048 : 1024));
 	if ('failure' in read) return read;
 	return { profile: read, lightOnDark: p2.lightOnDark, pose };
 }

@@ -195,6 +195,11 @@ export interface Projected {
 	contrast: number;
 	/** Per angular bin: false where the rim is hidden (a finger, a bracket) or lost in shadow or glare. */
 	seen: boolean[];
+	/**
+	 * The same samples with those off the line kept: a tooth's bevelled flank, lit or in shadow, is
+	 * off it too, and reads as metal or background by where it lies along the line.
+	 */
+	whole: Polar;
 }
 
 /**
@@ -256,12 +261,19 @@ export function projectColour(p: Polar, metal: [number, number], background: [nu
 	// well off is a quarter of the way from one to the other, or four times the noise's usual
 	// distance off it, whichever is more.
 	const noise = median(off.filter((_, x) => x % 7 === 0 && !Number.isNaN(values[x]!)));
+	const whole = values.slice();
 	for (let i = 0; i < p.na; i++) {
 		const cut = Math.max(0.25 * sizes[i]!, 4 * noise);
 		for (let j = 0; j < k; j++) if (off[i * k + j]! > cut) values[i * k + j] = NaN;
 	}
 	const luma = (c: number[]) => c.reduce((a, b) => a + b, 0) / c.length;
-	return { polar: { na: p.na, radii: p.radii, values, channels: 1 }, lightOnDark: luma(fgAll) >= luma(bgAll), contrast, seen };
+	return {
+		polar: { na: p.na, radii: p.radii, values, channels: 1 },
+		lightOnDark: luma(fgAll) >= luma(bgAll),
+		contrast,
+		seen,
+		whole: { na: p.na, radii: p.radii, values: whole, channels: 1 }
+	};
 }
 
 export interface Ring {
