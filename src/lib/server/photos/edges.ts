@@ -127,6 +127,11 @@ export interface FitGuide {
 	radius: number;
 	/** How far a tapped tip may sit off the ellipse, as a fraction of its size. */
 	tipTolerance: number;
+	/**
+	 * How far the ellipse's centre may sit from the tapped centre, px: perspective moves it only a
+	 * few per cent of the radius at the tilts a phone photo has, the rest is the tap's own error.
+	 */
+	centreTolerance?: number;
 }
 
 function support(points: EdgePoint[], el: Ellipse, tol: number): { rays: number; inliers: EdgePoint[] } {
@@ -155,10 +160,10 @@ function support(points: EdgePoint[], el: Ellipse, tol: number): { rays: number;
 
 function plausible(el: Ellipse, g: FitGuide): boolean {
 	return (
-		el.b / el.a >= 0.45 &&
+		el.b / el.a >= 0.55 &&
 		el.a <= 1.9 * g.radius &&
 		el.b >= 0.5 * g.radius &&
-		Math.hypot(el.cx - g.centre.x, el.cy - g.centre.y) <= 0.35 * el.a &&
+		Math.hypot(el.cx - g.centre.x, el.cy - g.centre.y) <= Math.min(0.35 * el.a, g.centreTolerance ?? Infinity) &&
 		g.tips.every((t) => Math.abs(ellipseError(el, t)) <= g.tipTolerance)
 	);
 }

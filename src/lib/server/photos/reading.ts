@@ -6,6 +6,7 @@
 // wins); the teeth are read round the rectified ring (ring.ts, profile.ts), stretches hidden by a
 // finger or a bracket left out and named.
 import sharp from 'sharp';
+import { confidenceWord, type ConfidenceWord } from '../../photo-confidence';
 import { conicEllipse, fitConic, type Conic, type Ellipse } from './conic';
 import type { Pt } from './fit';
 import { fitTipEllipse, rayEdges } from './edges';
@@ -22,19 +23,7 @@ export interface PhotoTaps {
 	odMm?: number;
 }
 
-export type ConfidenceWord = 'high' | 'medium' | 'low';
-
-/**
- * At and above this confidence the page says "high". Calibrated on the calibration photos
- * (tests/fixtures/photo-set c01..c16): the lowest value at which every reading there was right.
- */
-export const HIGH_CONFIDENCE = 0.6;
-/** Below this the page says "low, count them yourself". */
-export const MEDIUM_CONFIDENCE = 0.3;
-
-export function confidenceWord(c: number): ConfidenceWord {
-	return c >= HIGH_CONFIDENCE ? 'high' : c >= MEDIUM_CONFIDENCE ? 'medium' : 'low';
-}
+export { confidenceWord, HIGH_CONFIDENCE, MEDIUM_CONFIDENCE, type ConfidenceWord } from '../../photo-confidence';
 
 export type PhotoReadingResult =
 	| {
@@ -271,7 +260,7 @@ async function read(image: Buffer, taps: PhotoTaps, started: number): Promise<Ph
 	const edges = rayEdges({ ...img, data: soft }, centre, 0.4 * Math.min(...dists), 1.7 * far);
 	// A tap is a fingertip: allow it about 20 stored px off the rim (or 7 %, whichever is more).
 	const tipTolerance = Math.max(0.07, (25 * scale) / mean);
-	const edgeFit = fitTipEllipse(edges, { centre, tips, radius: mean, tipTolerance });
+	const edgeFit = fitTipEllipse(edges, { centre, tips, radius: mean, tipTolerance, centreTolerance: 0.1 * far + 25 * scale });
 	const tapConic = tips.length >= 5 ? fitConic(tips) : null;
 	const tapEllipse = tapConic && conicEllipse(tapConic);
 	const tapOk =
