@@ -122,9 +122,34 @@ function strongestHarmonic(s: Float64Array, from: number, to: number): number {
 
 const clamp01 = (v: number) => Math.max(0, Math.min(1, v));
 
+/**
+ * The level between metal and background at each angle: half-way between the lowest and the
+ * highest of the profile within 30° each side, where both a tooth and a space lie in that stretch;
+ * else the middle, 0.5. A soft shadow under the wheel darkens the spaces between the teeth more
+ * than the background outside the tips, so a space can read at 0.7 where the teeth read 1.
+ */
+export function localLevels(s: Float64Array): Float64Array {
+	const n = s.length;
+	const w = Math.round(n / 12);
+	const out = new Float64Array(n);
+	for (let i = 0; i < n; i++) {
+		let lo = Infinity;
+		let hi = -Infinity;
+		for (let d = -w; d <= w; d++) {
+			const v = s[(i + d + n) % n]!;
+			if (Number.isNaN(v)) continue;
+			if (v < lo) lo = v;
+			if (v > hi) hi = v;
+		}
+		out[i] = hi - lo >= 0.3 ? Math.max(0.25, Math.min(0.85, (lo + hi) / 2)) : 0.5;
+	}
+	return out;
+}
+
 export function readProfile(s: Float64Array): ProfileReading | ProfileFailure {
 	const n = s.length;
-	const st: State[] = [...s].map((v) => (Number.isNaN(v) ? -1 : v >= 0.5 ? 1 : 0));
+	const level = localLevels(s);
+	const st: State[] = [...s].map((v, i) => (Number.isNaN(v) ? -1 : v >= level[i]! ? 1 : 0));
 	let runs = runsOf(st);
 	if (!runs.length) return { failure: 'few' };
 	runs = clean(runs, 3);

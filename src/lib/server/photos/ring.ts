@@ -202,6 +202,20 @@ export interface Projected {
 	whole: Polar;
 }
 
+/** How far off the background's hue a shadow may be, as a fraction of its brightness. */
+const SHADOW_HUE = 0.08;
+
+/** A sample that is the background's colour at 20-93 % of its brightness (JPEG noise allowed). */
+function isShadow(values: Float32Array, at: number, ch: number, bg: Float64Array[], i: number, b2: number, bLen: number): boolean {
+	let cb = 0;
+	for (let n = 0; n < ch; n++) cb += values[at + n]! * bg[n]![i]!;
+	const kc = cb / b2;
+	if (!(kc >= 0.2 && kc <= 0.93)) return false;
+	let r = 0;
+	for (let n = 0; n < ch; n++) r += (values[at + n]! - kc * bg[n]![i]!) ** 2;
+	return Math.sqrt(r) <= SHADOW_HUE * kc * bLen + 4;
+}
+
 /**
  * The colour samples reduced to one number each: how far along the line from the background's
  * colour to the metal's (per angle) a sample lies. A bin whose bands do not show the metal and the
@@ -213,13 +227,23 @@ export function projectColour(p: Polar, metal: [number, number], background: [nu
 	const channels = Array.from({ length: ch }, (_, n) => channelOf(p, n));
 	const bgRaw = channels.map((c) => binLevels(c, background[0], background[1], [0.5], bins)[0]!);
 	const bgAll = bgRaw.map((r) => median(r.filter((v) => !Number.isNaN(v))));
+	// A bin whose background lies in the wheel's own shadow takes its neighbours' lit background.
+	if (ch === 3) {
+		const lit = bgAll.map((v) => Float64Array.of(v));
+		const l2 = bgAll.reduce((a, v) => a + v * v, 0);
+		const one = new Float32Array(ch);
+		for (let b = 0; b < bins; b++) {
+			for (let n = 0; n < ch; n++) one[n] = bgRaw[n]![b]!;
+			if (isShadow(one, 0, ch, lit, 0, l2, Math.sqrt(l2))) for (let n = 0; n < ch; n++) bgRaw[n]![b] = NaN;
+		}
+	}
 	const fgRaw = metalColours(p, metal, bins, (n, b) => (Number.isNaN(bgRaw[n]![b]!) ? bgAll[n]! : bgRaw[n]![b]!));
 	const fgAll = fgRaw.map((r) => median(r.filter((v) => !Number.isNaN(v))));
 	const dAll = fgAll.map((v, n) => v - bgAll[n]!);
 	const contrast = Math.hypot(...dAll);
 	const seen = new Array<boolean>(bins).fill(false);
 	for (let b = 0; b < bins; b++) {
-		const dl = fgRaw.map((r, n) => r[b]! - bgRaw[n]![b]!);
+		const dl = fgRaw.map((r, n) => r[b]! - (Number.isNaN(bgRaw[n]![b]!) ? bgAll[n]! : bgRaw[n]![b]!));
 		if (dl.some((v) => Number.isNaN(v))) continue;
 		const size = Math.hypot(...dl);
 		const along = dl.reduce((s, v, n) => s + v * dAll[n]!, 0) / (contrast || 1);
@@ -240,10 +264,25 @@ export function projectColour(p: Polar, metal: [number, number], background: [nu
 		for (let n = 0; n < ch; n++) [d[n], size] = [fg[n]![i]! - bg[n]![i]!, size + (fg[n]![i]! - bg[n]![i]!) ** 2];
 		size = Math.sqrt(size);
 		sizes[i] = size;
+		// A shadow on the background is the background's colour, darker: it reads as background,
+		// unless the metal itself is such a darker background (grey steel on a light grey cover).
+		let b2 = 0;
+		let mb = 0;
+		for (let n = 0; n < ch; n++) [b2, mb] = [b2 + bg[n]![i]! ** 2, mb + fg[n]![i]! * bg[n]![i]!];
+		const bLen = Math.sqrt(b2);
+		const km = mb / (b2 || 1);
+		let rm = 0;
+		for (let n = 0; n < ch; n++) rm += (fg[n]![i]! - km * bg[n]![i]!) ** 2;
+		const shadows = bLen > 0 && !(km < 1 && Math.sqrt(rm) < SHADOW_HUE * km * bLen + 6);
 		for (let j = 0; j < k; j++) {
 			const at = (i * k + j) * ch;
 			if (!binSeen || !(size > 0)) {
 				values[i * k + j] = NaN;
+				continue;
+			}
+			if (shadows && isShadow(p.values, at, ch, bg, i, b2, bLen)) {
+				values[i * k + j] = 0;
+				off[i * k + j] = 0;
 				continue;
 			}
 			let s = 0;
