@@ -217,7 +217,6 @@ function readRing(img: Grey, pose: Homography, radiusPx: number, na: number): Ri
 	const solid = (b: [number, number]) => bandMean(ring, ...b).profile!;
 	hideCovered(profile, solid(band), solid(metal), solid(bg));
 	const read = readProfile(profile);
-	if (process.env.PWDBG) console.error('DBG', na, 'root', root.toFixed(3), 'contrast', p2.contrast.toFixed(0), 'failure' in read ? read.failure : `${read.teeth}-${read.missing} ${read.confidence.toFixed(2)} ${JSON.stringify(read.factors)}`, '\n', [...profile].map((v) => (Number.isNaN(v) ? '?' : String(Math.max(0, Math.min(9, Math.round(v * 9)))))).join('').slice(0, na >= 2048 ? 2048 : 1024));
 	if ('failure' in read) return read;
 	return { profile: read, lightOnDark: p2.lightOnDark, pose };
 }
