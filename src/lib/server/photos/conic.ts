@@ -102,10 +102,13 @@ export function conicEllipse(q: Conic): Ellipse | null {
 	const l1 = mean + rad;
 	const l2 = mean - rad;
 	if (!(-g / l1 > 0) || !(-g / l2 > 0)) return null;
-	const major = Math.sqrt(-g / l2);
-	const minor = Math.sqrt(-g / l1);
-	// Eigenvector of the smaller eigenvalue (the long axis), in y-down image coordinates.
-	const t = 0.5 * Math.atan2(b, a - c) + Math.PI / 2;
+	// A conic scaled by a negative number is the same ellipse with its eigenvalues' order turned
+	// round: the long axis then belongs to the larger one.
+	const flip = g > 0;
+	const major = Math.sqrt(-g / (flip ? l1 : l2));
+	const minor = Math.sqrt(-g / (flip ? l2 : l1));
+	// Eigenvector of the long axis's eigenvalue, in y-down image coordinates.
+	const t = 0.5 * Math.atan2(b, a - c) + (flip ? 0 : Math.PI / 2);
 	let angleDeg = (-t * 180) / Math.PI;
 	angleDeg = ((angleDeg % 180) + 180) % 180;
 	return { cx, cy, a: major, b: minor, angleDeg };

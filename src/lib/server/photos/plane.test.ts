@@ -53,6 +53,16 @@ describe('conic fit', () => {
 		expect(conicEllipse(q)!.angleDeg).toBeCloseTo(30, 6);
 		for (const p of pts) expect(Math.abs(ellipseError(back, p))).toBeLessThan(1e-9);
 	});
+
+	it('reads a conic scaled by a negative number as the same ellipse, long axis first', () => {
+		// The same ellipse as above; an eigenvector's sign is arbitrary, so a fit can come out negated.
+		const q = ellipseConic({ cx: 700, cy: 420, a: 300, b: 210, angleDeg: 30 });
+		const back = conicEllipse(q.map((v) => -2 * v) as typeof q)!;
+		expect(back.a).toBeCloseTo(300, 6);
+		expect(back.b).toBeCloseTo(210, 6);
+		expect(back.angleDeg).toBeCloseTo(30, 6);
+		expect(back.cx).toBeCloseTo(700, 6);
+	});
 });
 
 describe('circle pose', () => {

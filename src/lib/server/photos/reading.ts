@@ -102,10 +102,13 @@ function checkTaps(taps: PhotoTaps, width: number, height: number): Failure | nu
 	return null;
 }
 
-export async function readPhoto(image: Buffer, taps: PhotoTaps): Promise<PhotoReadingResult> {
+/** Sees the reading's stages (the ellipses tried, each pose's ring), for calibration and debugging. */
+export type Trace = (stage: string, data: Record<string, unknown>) => void;
+
+export async function readPhoto(image: Buffer, taps: PhotoTaps, trace?: Trace): Promise<PhotoReadingResult> {
 	// A photo is the user's input: whatever in it trips the reading is answered as a refusal, not a 500.
 	try {
-		return await read(image, taps, performance.now());
+		return await read(image, taps, performance.now(), trace);
 	} catch {
 		return fail('image', UNREADABLE, [TAP_ADVICE, SQUARE_ADVICE, LIGHT_ADVICE]);
 	}
@@ -226,7 +229,7 @@ const imageAngle = (c: Pt, p: Pt) => ((((Math.atan2(-(p.y - c.y), p.x - c.x) * 1
 const r3 = (v: number) => Math.round(v * 1000) / 1000;
 const r1 = (v: number) => Math.round(v * 10) / 10;
 
-async function read(image: Buffer, taps: PhotoTaps, started: number): Promise<PhotoReadingResult> {
+async function read(image: Buffer, taps: PhotoTaps, started: number, trace?: Trace): Promise<PhotoReadingResult> {
 	let width: number;
 	let height: number;
 	try {
@@ -272,6 +275,7 @@ async function read(image: Buffer, taps: PhotoTaps, started: number): Promise<Ph
 		const c = toStored({ x: el.cx, y: el.cy });
 		return { cx: r1(c.x), cy: r1(c.y), a: r1(el.a / scale), b: r1(el.b / scale), angleDeg: r1(el.angleDeg) };
 	};
+	trace?.('ellipse', { img, scale, toWork, edges, edgeFit, tapEllipse, tapOk, ellipse });
 	const tried = ellipse ?? edgeFit?.ellipse ?? (tapOk ? tapEllipse : null);
 	if (!conic || !ellipse) {
 		return fail(
@@ -293,6 +297,7 @@ async function read(image: Buffer, taps: PhotoTaps, started: number): Promise<Ph
 	const pick = good.reduce<RingReading | null>((x, y) => (!x || y.profile.confidence > x.profile.confidence ? y : x), null);
 	const fine = pick && readRing(img, pick.pose, ellipse.a, 2048);
 	const best = fine && 'profile' in fine ? fine : null;
+	trace?.('ring', { poses, coarse, fine });
 	const readings = fine ? [fine, ...coarse] : coarse;
 	const shown = storedEllipse(ellipse);
 	if (!best) {
