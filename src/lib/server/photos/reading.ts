@@ -198,7 +198,7 @@ function hideCovered(profile: Float64Array, teeth: Float64Array, metal: Float64A
 }
 
 /** The teeth read round the ring of one pose, na angles, across the middle half of the teeth's depth. */
-function readRing(img: Grey, pose: Homography, radiusPx: number, na: number): RingReading | RingFailure {
+function readRing(img: Grey, pose: Homography, radiusPx: number, na: number, trace?: Trace): RingReading | RingFailure {
 	const radial = (from: number, to: number, px: number) => Math.max(16, Math.ceil(((to - from) * radiusPx) / px));
 	const root = findRoot(img, pose, radial);
 	if (typeof root !== 'number') return root;
@@ -218,7 +218,9 @@ function readRing(img: Grey, pose: Homography, radiusPx: number, na: number): Ri
 	const { profile } = bandMean({ ...ring, t: normalise(p2.whole, metal, bg, true, 0.5).t }, ...band);
 	if (!profile) return { failure: 'depth' };
 	const solid = (b: [number, number]) => bandMean(ring, ...b).profile!;
+	const raw = profile.slice();
 	hideCovered(profile, solid(band), solid(metal), solid(bg));
+	trace?.('profile', { na, root, raw, profile, seen: p2.seen });
 	const read = readProfile(profile);
 	if ('failure' in read) return read;
 	return { profile: read, lightOnDark: p2.lightOnDark, pose };
@@ -292,10 +294,10 @@ async function read(image: Buffer, taps: PhotoTaps, started: number, trace?: Tra
 	const affine = affinePose(ellipse.cx, ellipse.cy, ellipse.a, ellipse.b, ellipse.angleDeg);
 	// Nearly round: the tilts hardly differ from the plain stretch, one reading does.
 	const poses = ellipse.b / ellipse.a > 0.985 ? [affine] : [...circlePoses(conic, cam), affine];
-	const coarse = poses.map((pose) => readRing(img, pose, ellipse.a, 1024));
+	const coarse = poses.map((pose) => readRing(img, pose, ellipse.a, 1024, trace));
 	const good = coarse.filter((r): r is RingReading => 'profile' in r);
 	const pick = good.reduce<RingReading | null>((x, y) => (!x || y.profile.confidence > x.profile.confidence ? y : x), null);
-	const fine = pick && readRing(img, pick.pose, ellipse.a, 2048);
+	const fine = pick && readRing(img, pick.pose, ellipse.a, 2048, trace);
 	const best = fine && 'profile' in fine ? fine : null;
 	trace?.('ring', { poses, coarse, fine });
 	const readings = fine ? [fine, ...coarse] : coarse;
