@@ -190,6 +190,15 @@ function hideCovered(profile: Float64Array, teeth: Float64Array, metal: Float64A
 	const n = profile.length;
 	const covered = new Uint8Array(n);
 	for (let i = 0; i < n; i++) if (Number.isNaN(teeth[i]!) && (!(metal[i]! >= 0.8) || !(bg[i]! <= 0.15))) covered[i] = 1;
+	// A finger or a bracket is wider than a few degrees at the rim; a mat's line or a plank seam
+	// crossing a space and the background beyond it is under one.
+	const thin = Math.ceil(n / 240);
+	for (let i = 0; i < n; i++) {
+		if (!covered[i] || covered[(i - 1 + n) % n]) continue;
+		let len = 0;
+		while (len < n && covered[(i + len) % n]) len++;
+		if (len < thin) for (let d = 0; d < len; d++) covered[(i + d) % n] = 0;
+	}
 	const pad = Math.ceil(n / 720);
 	for (let i = 0; i < n; i++) {
 		if (!covered[i]) continue;

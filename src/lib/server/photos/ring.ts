@@ -242,12 +242,34 @@ export function projectColour(p: Polar, metal: [number, number], background: [nu
 	const dAll = fgAll.map((v, n) => v - bgAll[n]!);
 	const contrast = Math.hypot(...dAll);
 	const seen = new Array<boolean>(bins).fill(false);
+	const bgOf = (n: number, b: number) => (Number.isNaN(bgRaw[n]![b]!) ? bgAll[n]! : bgRaw[n]![b]!);
+	const sizeOk = new Array<boolean>(bins).fill(false);
 	for (let b = 0; b < bins; b++) {
-		const dl = fgRaw.map((r, n) => r[b]! - (Number.isNaN(bgRaw[n]![b]!) ? bgAll[n]! : bgRaw[n]![b]!));
+		const dl = fgRaw.map((r, n) => r[b]! - bgOf(n, b));
 		if (dl.some((v) => Number.isNaN(v))) continue;
 		const size = Math.hypot(...dl);
 		const along = dl.reduce((s, v, n) => s + v * dAll[n]!, 0) / (contrast || 1);
-		seen[b] = size >= 6 && size >= 0.35 * contrast && along >= 0.7 * size;
+		sizeOk[b] = size >= 6 && size >= 0.35 * contrast;
+		seen[b] = sizeOk[b] && along >= 0.7 * size;
+	}
+	// Light changes the metal's colour slowly round the ring (a flash's reflection turns dark steel
+	// light grey over a quarter of it); a finger or a bracket changes it at once. A bin whose metal
+	// and background are each close to a seen neighbour's is seen too, so the ring is followed
+	// through a slow change and stops at a sudden one.
+	const near = (b: number, c: number) => {
+		let df = 0;
+		let db = 0;
+		for (let n = 0; n < ch; n++) [df, db] = [df + (fgRaw[n]![b]! - fgRaw[n]![c]!) ** 2, db + (bgOf(n, b) - bgOf(n, c)) ** 2];
+		const tol = Math.max(20, 0.4 * contrast) ** 2;
+		return df <= tol && db <= tol;
+	};
+	for (let grew = true; grew; ) {
+		grew = false;
+		for (let b = 0; b < bins; b++) {
+			if (seen[b] || !sizeOk[b]) continue;
+			const [l, r] = [(b - 1 + bins) % bins, (b + 1) % bins];
+			if ((seen[l] && near(b, l)) || (seen[r] && near(b, r))) [seen[b], grew] = [true, true];
+		}
 	}
 	const keep = (r: number[]) => r.map((v, b) => (seen[b] ? v : NaN));
 	const fg = fgRaw.map((r) => spread(keep(r), p.na));
