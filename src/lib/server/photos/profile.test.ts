@@ -32,6 +32,22 @@ describe('readProfile', () => {
 		expect([r.teeth, r.missing]).toEqual([36, 1]);
 	});
 
+	it('reads 30-2 when a finger covers the teeth from the middle of the first tooth after the gap, from that tooth\'s flank beside the gap', () => {
+		// Positions 28 and 29 missing: the gap ends where tooth 0 begins (sample 0); the cover runs
+		// from half-way across tooth 0 to past tooth 2, so the gap's far side is only that tooth's flank.
+		const n = 2048;
+		const p = n / 30;
+		const s = wheel(30, 2, n);
+		for (let i = Math.round(p / 4); i < Math.round(2.7 * p); i++) s[i] = NaN;
+		const r = readProfile(s);
+		if ('failure' in r) throw new Error(r.failure);
+		expect([r.teeth, r.missing]).toEqual([30, 2]);
+		expect(r.unseen).toHaveLength(1);
+		// The cut tooth's middle from its flank and a whole tooth's width: a quarter pitch in.
+		const first = r.seen.find((t) => t.position === 0)!;
+		expect((first.phi * n) / (2 * Math.PI)).toBeCloseTo(p / 4, -1);
+	});
+
 	it('reads 60-2 when a soft shadow lifts the spaces to 0.7 and the teeth read 1', () => {
 		const s = wheel(60, 2, 2048, 0.5, 0.7, 1);
 		const r = readProfile(s);

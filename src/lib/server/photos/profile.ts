@@ -154,19 +154,32 @@ export function readProfile(s: Float64Array): ProfileReading | ProfileFailure {
 	if (!runs.length) return { failure: 'few' };
 	runs = clean(runs, 3);
 	runs = clean(runs, Math.max(3, 0.3 * medianOf(runs.filter((r) => r.state === 1).map((r) => r.len))));
-	// A tooth cut by a stretch not read has no trustworthy middle: it joins the stretch.
+	// A tooth cut by a stretch not read (a finger's edge, its shadow) still shows the flank on its
+	// read side: its middle lies half a tooth's width from that flank, the width the whole teeth
+	// have. Cut on both sides, or showing more or much less than a tooth, it joins the stretch.
+	const prevOf = (x: number) => runs[(x - 1 + runs.length) % runs.length]!;
+	const nextOf = (x: number) => runs[(x + 1) % runs.length]!;
+	const wholeWidth = medianOf(runs.filter((r, x) => r.state === 1 && prevOf(x).state === 0 && nextOf(x).state === 0).map((r) => r.len));
+	const cut = new Map<Run, number>();
 	for (;;) {
-		const i = runs.findIndex(
-			(r, x) => r.state === 1 && (runs[(x - 1 + runs.length) % runs.length]!.state === -1 || runs[(x + 1) % runs.length]!.state === -1)
-		);
+		const i = runs.findIndex((r, x) => {
+			if (r.state !== 1 || (prevOf(x).state !== -1 && nextOf(x).state !== -1)) return false;
+			const oneSide = prevOf(x).state === 0 || nextOf(x).state === 0;
+			return !(oneSide && r.len >= 0.4 * wholeWidth && r.len <= 1.25 * wholeWidth);
+		});
 		if (i < 0 || runs.length < 3) break;
 		runs = join(runs.map((r, x) => (x === i ? { ...r, state: -1 as State } : r)));
 	}
+	runs.forEach((r, x) => {
+		if (r.state !== 1) return;
+		if (prevOf(x).state === -1) cut.set(r, r.start + r.len - wholeWidth / 2);
+		else if (nextOf(x).state === -1) cut.set(r, r.start + wholeWidth / 2);
+	});
 	const unseenLen = runs.filter((r) => r.state === -1).reduce((a, r) => a + r.len, 0);
 	if (unseenLen > 0.35 * n) return { failure: 'unseen' };
 	const teethRuns = runs.filter((r) => r.state === 1);
 	if (teethRuns.length < 5) return { failure: 'few' };
-	const centre = (r: Run) => r.start + r.len / 2;
+	const centre = (r: Run) => cut.get(r) ?? r.start + r.len / 2;
 	const idxOf = new Map(runs.map((r, i) => [r, i]));
 	const gapsAfter = teethRuns.map((r, i) => {
 		const next = teethRuns[(i + 1) % teethRuns.length]!;
@@ -193,7 +206,7 @@ export function readProfile(s: Float64Array): ProfileReading | ProfileFailure {
 	if (!best) return { failure: 'few' };
 	const { teeth: N, ks } = best;
 	const p = n / N;
-	const full = teethRuns.filter((_, i) => known[i] || known[(i - 1 + teethRuns.length) % teethRuns.length]);
+	const full = teethRuns.filter((r, i) => !cut.has(r) && (known[i] || known[(i - 1 + teethRuns.length) % teethRuns.length]));
 	const widths = full.map((r) => r.len / p);
 	const duty = widths.reduce((a, b) => a + b, 0) / widths.length;
 	const sd = Math.sqrt(widths.reduce((a, w) => a + (w - duty) ** 2, 0) / widths.length);

@@ -307,7 +307,8 @@ async function read(image: Buffer, taps: PhotoTaps, started: number, trace?: Tra
 	const good = coarse.filter((r): r is RingReading => 'profile' in r);
 	const pick = good.reduce<RingReading | null>((x, y) => (!x || y.profile.confidence > x.profile.confidence ? y : x), null);
 	const fine = pick && readRing(img, pick.pose, ellipse.a, 2048, trace);
-	const best = fine && 'profile' in fine ? fine : null;
+	// The fine reading can lose a tooth beside a cover that the coarse one kept: the coarse one then stands.
+	const best = fine && 'profile' in fine ? fine : pick;
 	trace?.('ring', { poses, coarse, fine });
 	const readings = fine ? [fine, ...coarse] : coarse;
 	const shown = storedEllipse(ellipse);
