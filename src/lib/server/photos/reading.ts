@@ -298,20 +298,35 @@ async function read(image: Buffer, taps: PhotoTaps, started: number, trace?: Tra
 	}
 	if (ellipse.b / ellipse.a < 0.8) advice.push(SQUARE_ADVICE);
 
-	// Read both tilts the ellipse allows, and the affine stretch (a long lens, or a crop of a far
+	// Read both tilts each ellipse allows, and the affine stretch (a long lens, or a crop of a far
 	// shot, sees the wheel without perspective), coarsely; the most regular is read again finely.
-	const affine = affinePose(ellipse.cx, ellipse.cy, ellipse.a, ellipse.b, ellipse.angleDeg);
-	// Nearly round: the tilts hardly differ from the plain stretch, one reading does.
-	const poses = ellipse.b / ellipse.a > 0.985 ? [affine] : [...circlePoses(conic, cam), affine];
-	const coarse = poses.map((pose) => readRing(img, pose, ellipse.a, 1024, trace));
-	const good = coarse.filter((r): r is RingReading => 'profile' in r);
-	const pick = good.reduce<RingReading | null>((x, y) => (!x || y.profile.confidence > x.profile.confidence ? y : x), null);
-	const fine = pick && readRing(img, pick.pose, ellipse.a, 2048, trace);
-	// The fine reading can lose a tooth beside a cover that the coarse one kept: the coarse one then stands.
-	const best = fine && 'profile' in fine ? fine : pick;
-	trace?.('ring', { poses, coarse, fine });
-	const readings = fine ? [fine, ...coarse] : coarse;
-	const shown = storedEllipse(ellipse);
+	// Five or more tapped tips give an ellipse of their own: where the edges found round the rim
+	// belong to a bevel or a shadow, the taps' ellipse reads the teeth better, and it is read too.
+	const outlines: [Conic, Ellipse][] = [[conic, ellipse]];
+	if (tapOk && tapConic && tapEllipse && ellipse !== tapEllipse) outlines.push([tapConic, tapEllipse]);
+	const poses: { pose: Homography; el: Ellipse }[] = outlines.flatMap(([q, el]) => {
+		const affine = affinePose(el.cx, el.cy, el.a, el.b, el.angleDeg);
+		// Nearly round: the tilts hardly differ from the plain stretch, one reading does.
+		return (el.b / el.a > 0.985 ? [affine] : [...circlePoses(q, cam), affine]).map((pose) => ({ pose, el }));
+	});
+	const coarse = poses.map(({ pose, el }) => ({ el, ring: readRing(img, pose, el.a, 1024, trace) }));
+	const pick = coarse.reduce<{ el: Ellipse; ring: RingReading } | null>(
+		(x, y) => ('profile' in y.ring && (!x || y.ring.profile.confidence > x.ring.profile.confidence) ? { el: y.el, ring: y.ring } : x),
+		null
+	);
+	const fine = pick && readRing(img, pick.ring.pose, pick.el.a, 2048, trace);
+	// The fine reading can lose a tooth beside a cover, or split one at a glint, that the coarse one
+	// read whole: the more regular of the two stands. Where they disagree on N or M, a tooth lost in
+	// glare or shadow may be making a gap in one of them: the other's confidence counts against it.
+	const coarseBest = pick?.ring;
+	const fineOk = fine && 'profile' in fine ? fine : null;
+	const best = fineOk && coarseBest && fineOk.profile.confidence < coarseBest.profile.confidence ? coarseBest : (fineOk ?? coarseBest);
+	const other = best === fineOk ? coarseBest : fineOk;
+	if (best && other && (other.profile.teeth !== best.profile.teeth || other.profile.missing !== best.profile.missing))
+		best.profile.confidence *= 1 - other.profile.confidence;
+	trace?.('ring', { poses: poses.map((p) => p.pose), coarse: coarse.map((c) => c.ring), fine });
+	const readings = fine ? [fine, ...coarse.map((c) => c.ring)] : coarse.map((c) => c.ring);
+	const shown = storedEllipse(pick?.el ?? ellipse);
 	if (!best) {
 		const kinds = new Set(readings.map((r) => ('failure' in r ? r.failure : '')));
 		if (kinds.has('contrast'))
@@ -346,7 +361,7 @@ async function read(image: Buffer, taps: PhotoTaps, started: number, trace?: Tra
 		})
 		.sort((a, b) => a.n - b.n);
 	const unseen = read.unseen.map((u) => ({ fromDeg: r1(imageAngle(c, at(1, u.from))), toDeg: r1(imageAngle(c, at(1, u.to))) }));
-	const radiusPx = ellipse.a / scale;
+	const radiusPx = (pick?.el ?? ellipse).a / scale;
 	return {
 		ok: true,
 		teeth: read.teeth,

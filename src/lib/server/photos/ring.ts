@@ -250,7 +250,7 @@ export function projectColour(p: Polar, metal: [number, number], background: [nu
 		const size = Math.hypot(...dl);
 		const along = dl.reduce((s, v, n) => s + v * dAll[n]!, 0) / (contrast || 1);
 		sizeOk[b] = size >= 6 && size >= 0.35 * contrast;
-		seen[b] = sizeOk[b] && along >= 0.7 * size;
+		seen[b] = sizeOk[b]! && along >= 0.7 * size;
 	}
 	// Light changes the metal's colour slowly round the ring (a flash's reflection turns dark steel
 	// light grey over a quarter of it); a finger or a bracket changes it at once. A bin whose metal
