@@ -132,6 +132,8 @@ export interface FitGuide {
 	 * few per cent of the radius at the tilts a phone photo has, the rest is the tap's own error.
 	 */
 	centreTolerance?: number;
+	/** Outlines to try before the random ones: the taps' own ellipse, a circle through the tapped tip. */
+	seeds?: Ellipse[];
 }
 
 function support(points: EdgePoint[], el: Ellipse, tol: number): { rays: number; inliers: EdgePoint[] } {
@@ -223,6 +225,13 @@ export function fitTipEllipse(points: EdgePoint[], g: FitGuide, seed = 17): Edge
 	// but leaves the tips outside it on that side.
 	const score = (el: Ellipse) =>
 		support(points, el, tol(el)).rays - support(outer, { ...el, a: el.a * 1.1, b: el.b * 1.1 }, 0.1 - 2 * tol(el)).rays;
+	// The taps' own outline first: where tip edges are few among root, bevel and shadow edges, random
+	// samples of five can all miss it.
+	for (const el of g.seeds ?? []) {
+		if (!plausible(el, g)) continue;
+		const rays = score(el);
+		if (!best || rays > best.rays) best = { el, rays };
+	}
 	// Two pools of five-point samples: the rays' outer envelope (mostly tips, found all at once even
 	// on narrow deep teeth), and every edge (for when the envelope is cluttered).
 	for (const pool of [envelope(outer, g), points]) {
@@ -253,7 +262,16 @@ export function fitTipEllipse(points: EdgePoint[], g: FitGuide, seed = 17): Edge
 		if (!conic) return null;
 		return { conic, ellipse: cur, support: support(points, cur, tol(cur)).rays / RAYS };
 	};
-	let fit = refine(best.el);
+	// The seeds refined too: a circle through a single tapped tip, or the ellipse of taps a little
+	// off, lies near the rim's edges without being on them, and beats the random outlines only once
+	// drawn onto them.
+	let fit: EdgeFit | null = null;
+	let fitScore = -Infinity;
+	for (const el of [best.el, ...(g.seeds ?? [])]) {
+		const f = refine(el);
+		const sc = f ? score(f.ellipse) : -Infinity;
+		if (f && sc > fitScore) [fit, fitScore] = [f, sc];
+	}
 	// The root and bevel edges make ellipses of the same shape inside the tips': step outwards.
 	for (let round = 0; fit && round < 3; round++) {
 		const base = fit;

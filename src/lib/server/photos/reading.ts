@@ -273,11 +273,13 @@ async function read(image: Buffer, taps: PhotoTaps, started: number, trace?: Tra
 	const edges = rayEdges({ ...img, data: soft }, centre, 0.4 * Math.min(...dists), 1.7 * far);
 	// A tap is a fingertip: allow it about 20 stored px off the rim (or 7 %, whichever is more).
 	const tipTolerance = Math.max(0.07, (25 * scale) / mean);
-	const edgeFit = fitTipEllipse(edges, { centre, tips, radius: mean, tipTolerance, centreTolerance: 0.1 * far + 25 * scale });
 	const tapConic = tips.length >= 5 ? fitConic(tips) : null;
 	const tapEllipse = tapConic && conicEllipse(tapConic);
 	const tapOk =
 		tapEllipse && tapEllipse.b / tapEllipse.a > 0.4 && Math.hypot(tapEllipse.cx - centre.x, tapEllipse.cy - centre.y) < 0.4 * tapEllipse.a;
+	const seeds: Ellipse[] = [{ cx: centre.x, cy: centre.y, a: mean, b: mean, angleDeg: 0 }];
+	if (tapOk && tapEllipse) seeds.unshift(tapEllipse);
+	const edgeFit = fitTipEllipse(edges, { centre, tips, radius: mean, tipTolerance, centreTolerance: 0.1 * far + 25 * scale, seeds });
 	let conic: Conic | null = null;
 	let ellipse: Ellipse | null = null;
 	if (edgeFit && edgeFit.support >= 0.12) [conic, ellipse] = [edgeFit.conic, edgeFit.ellipse];
