@@ -1,6 +1,7 @@
 // The ring profile to a pattern, on profiles drawn by hand here: an N-M wheel sampled round the ring
 // (tooth = 1, space = 0), so N, M and the gap are the drawing's own, not the reader's.
 import { describe, expect, it } from 'vitest';
+import { HIGH_CONFIDENCE } from '$lib/photo-confidence';
 import { localLevels, readProfile } from './profile';
 
 /** n samples round an N-M wheel: teeth at positions 0..N-M-1, each `duty` of a pitch wide; the gap after them. */
@@ -46,6 +47,21 @@ describe('readProfile', () => {
 		// The cut tooth's middle from its flank and a whole tooth's width: a quarter pitch in.
 		const first = r.seen.find((t) => t.position === 0)!;
 		expect((first.phi * n) / (2 * Math.PI)).toBeCloseTo(p / 4, -1);
+	});
+
+	it('reads two single gaps, but not as high: a tooth lost in glare makes a second gap as regular as a real one', () => {
+		const n = 2048;
+		const p = n / 36;
+		// A 36-1 drawing with tooth 17 taken out too: gaps after positions 16 and 34.
+		const s = wheel(36, 1, n).map((v, i) => (Math.floor(i / p) === 17 ? 0 : v));
+		const r = readProfile(s);
+		if ('failure' in r) throw new Error(r.failure);
+		expect([r.teeth, r.missing, r.gaps.length]).toEqual([36, 2, 2]);
+		expect(r.confidence).toBeLessThan(HIGH_CONFIDENCE);
+		// The same drawing with one gap is read as high: the second gap is what lowers it.
+		const one = readProfile(wheel(36, 1, n));
+		if ('failure' in one) throw new Error(one.failure);
+		expect(one.confidence).toBeGreaterThanOrEqual(HIGH_CONFIDENCE);
 	});
 
 	it('reads 60-2 when a soft shadow lifts the spaces to 0.7 and the teeth read 1', () => {

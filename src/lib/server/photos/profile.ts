@@ -245,9 +245,13 @@ export function readProfile(s: Float64Array): ProfileReading | ProfileFailure {
 		cycles: strongestHarmonic(s, 6, Math.min(200, Math.floor(n / 8))) === N ? 1 : 0.5,
 		sum: best.sumOk ? 1 : 0.3,
 		read: clamp01(1 - unseenLen / n / 0.35),
+		// Most wheels have one gap; a tooth lost in glare or shadow reads as a second one, as regular
+		// as a real one: a reading with more gaps is not high, whatever else it shows.
+		gaps: gaps.length > 1 ? 0.7 : 1,
 		spacingErr: best.err
 	};
-	const confidence = factors.spacing * factors.width * factors.levels * factors.cycles * factors.sum * (0.5 + 0.5 * factors.read);
+	const confidence =
+		factors.spacing * factors.width * factors.levels * factors.cycles * factors.sum * factors.gaps * (0.5 + 0.5 * factors.read);
 	const seen = teethRuns.map((r, i) => ({ phi: toPhi(centre(r)), position: pos[i]! }));
 	// A stretch not read reaches from the last tooth seen before it to the first after: what lies
 	// between them, read as background or not, is not known.

@@ -191,18 +191,16 @@ function hideCovered(profile: Float64Array, teeth: Float64Array, metal: Float64A
 	const covered = new Uint8Array(n);
 	for (let i = 0; i < n; i++) if (Number.isNaN(teeth[i]!) && (!(metal[i]! >= 0.8) || !(bg[i]! <= 0.15))) covered[i] = 1;
 	// A finger or a bracket is wider than a few degrees at the rim; a mat's line or a plank seam
-	// crossing a space and the background beyond it is under one.
+	// crossing a space and the background beyond it is under one: it stays unknown, but is not
+	// widened, so the profile's clean-up shares it between the tooth and the space beside it.
 	const thin = Math.ceil(n / 240);
+	const pad = Math.ceil(n / 720);
 	for (let i = 0; i < n; i++) {
 		if (!covered[i] || covered[(i - 1 + n) % n]) continue;
 		let len = 0;
 		while (len < n && covered[(i + len) % n]) len++;
-		if (len < thin) for (let d = 0; d < len; d++) covered[(i + d) % n] = 0;
-	}
-	const pad = Math.ceil(n / 720);
-	for (let i = 0; i < n; i++) {
-		if (!covered[i]) continue;
-		for (let d = -pad; d <= pad; d++) profile[(i + d + n) % n] = NaN;
+		const wide = len >= thin ? pad : 0;
+		for (let d = -wide; d < len + wide; d++) profile[(i + d + n) % n] = NaN;
 	}
 }
 
