@@ -220,11 +220,12 @@ export function fitTipEllipse(points: EdgePoint[], g: FitGuide, seed = 17): Edge
 	const tol = (el: Ellipse) => Math.max(0.005, 2.5 / el.b);
 	let best: { el: Ellipse; rays: number } | null = null;
 	const outer = outermost(points, g);
-	// Rays on the ellipse, less the rays whose outermost strong edge lies just outside it: an ellipse
-	// through the tips on one side and the roots on the other is as well supported as the tips' own,
-	// but leaves the tips outside it on that side.
+	// Rays on the ellipse, less half the rays whose outermost strong edge lies just outside it: an
+	// ellipse through the tips on one side and the roots on the other is as well supported as the
+	// tips' own, but leaves the tips outside it on that side. Half, since a mat's lines or wood grain
+	// put strong edges just outside the true tips too.
 	const score = (el: Ellipse) =>
-		support(points, el, tol(el)).rays - support(outer, { ...el, a: el.a * 1.1, b: el.b * 1.1 }, 0.1 - 2 * tol(el)).rays;
+		support(points, el, tol(el)).rays - 0.5 * support(outer, { ...el, a: el.a * 1.1, b: el.b * 1.1 }, 0.1 - 2 * tol(el)).rays;
 	// The taps' own outline first: where tip edges are few among root, bevel and shadow edges, random
 	// samples of five can all miss it.
 	for (const el of g.seeds ?? []) {
