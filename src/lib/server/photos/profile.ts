@@ -154,6 +154,20 @@ export function readProfile(s: Float64Array): ProfileReading | ProfileFailure {
 	if (!runs.length) return { failure: 'few' };
 	runs = clean(runs, 3);
 	runs = clean(runs, Math.max(3, 0.3 * medianOf(runs.filter((r) => r.state === 1).map((r) => r.len))));
+	// A knot in the wood or a glint in a space reads above the level, but faint beside the teeth:
+	// under 60 % of a tooth's height over the spaces. It is read as space; where one lies in a gap,
+	// it may be a tooth in shadow, and the reading cannot be high.
+	const meanOf = (r: Run) => {
+		let sum = 0;
+		for (let d = 0; d < r.len; d++) sum += s[(r.start + d) % n]!;
+		return sum / r.len;
+	};
+	const toothLen = medianOf(runs.filter((r) => r.state === 1).map((r) => r.len));
+	const toothLevel = medianOf(runs.filter((r) => r.state === 1).map(meanOf));
+	const spaceLevel = medianOf(runs.filter((r) => r.state === 0).map(meanOf));
+	const faint = (r: Run) => r.state === 1 && r.len < 1.2 * toothLen && meanOf(r) < spaceLevel + 0.6 * (toothLevel - spaceLevel);
+	const faintAt = runs.filter(faint).map((r) => r.start + r.len / 2);
+	if (faintAt.length) runs = join(runs.map((r) => (faint(r) ? { ...r, state: 0 as State } : r)));
 	// A tooth cut by a stretch not read (a finger's edge, its shadow) still shows the flank on its
 	// read side: its middle lies half a tooth's width from that flank, the width the whole teeth
 	// have. Cut on both sides, or showing more or much less than a tooth, it joins the stretch.
@@ -248,10 +262,16 @@ export function readProfile(s: Float64Array): ProfileReading | ProfileFailure {
 		// Most wheels have one gap; a tooth lost in glare or shadow reads as a second one, as regular
 		// as a real one: a reading with more gaps is not high, whatever else it shows.
 		gaps: gaps.length > 1 ? 0.7 : 1,
+		faint: gapsAt.some((g) => {
+			const from = centre(teethRuns[g.i]!);
+			return faintAt.some((x) => (((x - from) % n) + n) % n < gapsAfter[g.i]!);
+		})
+			? 0.7
+			: 1,
 		spacingErr: best.err
 	};
 	const confidence =
-		factors.spacing * factors.width * factors.levels * factors.cycles * factors.sum * factors.gaps * (0.5 + 0.5 * factors.read);
+		factors.spacing * factors.width * factors.levels * factors.cycles * factors.sum * factors.gaps * factors.faint * (0.5 + 0.5 * factors.read);
 	const seen = teethRuns.map((r, i) => ({ phi: toPhi(centre(r)), position: pos[i]! }));
 	// A stretch not read reaches from the last tooth seen before it to the first after: what lies
 	// between them, read as background or not, is not known.
