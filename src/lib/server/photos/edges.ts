@@ -240,7 +240,7 @@ export function fitTipEllipse(points: EdgePoint[], g: FitGuide, seed = 17): Edge
 		const sectors: EdgePoint[][] = Array.from({ length: 5 }, () => []);
 		for (const p of pool) sectors[Math.floor((p.ray * 5) / RAYS)]!.push(p);
 		if (sectors.some((s) => !s.length)) continue;
-		for (let it = 0; it < 250; it++) {
+		for (let it = 0; it < 500; it++) {
 			const sample = sectors.map((s) => s[Math.floor(rnd() * s.length)]!);
 			const q = fitConic(sample);
 			const el = q && conicEllipse(q);
@@ -249,28 +249,28 @@ export function fitTipEllipse(points: EdgePoint[], g: FitGuide, seed = 17): Edge
 			if (!best || rays > best.rays) best = { el, rays };
 		}
 	}
-	// With few taps, samples of four edges and a tapped tip: a tap is a point on the rim, so only
-	// four of the five need to fall on it (a mat's or a bench's edges crowd the tip edges out).
-	if (g.tips.length < 5)
-		for (const tip of g.tips) {
-			const at = Math.atan2(-(tip.y - g.centre.y), tip.x - g.centre.x);
-			const tipRay = Math.round((((at / (2 * Math.PI)) * RAYS) % RAYS) + RAYS) % RAYS;
-			for (const pool of [envelope(outer, g), points]) {
-				const sectors: EdgePoint[][] = Array.from({ length: 4 }, () => []);
-				for (const p of pool) {
-					const k = Math.floor((((p.ray - tipRay + RAYS) % RAYS) * 5) / RAYS);
-					if (k > 0) sectors[k - 1]!.push(p);
-				}
-				if (sectors.some((x) => !x.length)) continue;
-				for (let it = 0; it < 250; it++) {
-					const q = fitConic([tip, ...sectors.map((x) => x[Math.floor(rnd() * x.length)]!)]);
-					const el = q && conicEllipse(q);
-					if (!el || !plausible(el, g)) continue;
-					const rays = score(el);
-					if (!best || rays > best.rays) best = { el, rays };
-				}
+	// Samples of four edges and a tapped tip: a tap is a point on the rim, so only four of the five
+	// need to fall on it (a mat's or a bench's edges crowd the tip edges out of random fives).
+	const perTip = Math.max(100, Math.round(500 / g.tips.length));
+	for (const tip of g.tips) {
+		const at = Math.atan2(-(tip.y - g.centre.y), tip.x - g.centre.x);
+		const tipRay = Math.round((((at / (2 * Math.PI)) * RAYS) % RAYS) + RAYS) % RAYS;
+		for (const pool of [envelope(outer, g), points]) {
+			const sectors: EdgePoint[][] = Array.from({ length: 4 }, () => []);
+			for (const p of pool) {
+				const k = Math.floor((((p.ray - tipRay + RAYS) % RAYS) * 5) / RAYS);
+				if (k > 0) sectors[k - 1]!.push(p);
+			}
+			if (sectors.some((x) => !x.length)) continue;
+			for (let it = 0; it < perTip; it++) {
+				const q = fitConic([tip, ...sectors.map((x) => x[Math.floor(rnd() * x.length)]!)]);
+				const el = q && conicEllipse(q);
+				if (!el || !plausible(el, g)) continue;
+				const rays = score(el);
+				if (!best || rays > best.rays) best = { el, rays };
 			}
 		}
+	}
 	if (!best) return null;
 	const refine = (el: Ellipse): EdgeFit | null => {
 		let cur = el;
