@@ -118,6 +118,8 @@ export interface EdgeFit {
 	ellipse: Ellipse;
 	/** Fraction of the rays with an edge on the ellipse. */
 	support: number;
+	/** Other outlines the edges support nearly as well, best first. */
+	alternatives?: EdgeFit[];
 }
 
 export interface FitGuide {
@@ -219,6 +221,19 @@ export function fitTipEllipse(points: EdgePoint[], g: FitGuide, seed = 17): Edge
 	const rnd = random(seed);
 	const tol = (el: Ellipse) => Math.max(0.005, 2.5 / el.b);
 	let best: { el: Ellipse; rays: number } | null = null;
+	// The best few outlines that differ from each other (by more than the fit's tolerance).
+	const runnersUp: { el: Ellipse; rays: number }[] = [];
+	const similar = (p: Ellipse, q: Ellipse, by: number) =>
+		Math.hypot(p.cx - q.cx, p.cy - q.cy) < by * q.a && Math.abs(p.a / q.a - 1) < by && Math.abs(p.b / q.b - 1) < by;
+	const consider = (el: Ellipse, rays: number) => {
+		if (!best || rays > best.rays) best = { el, rays };
+		const like = runnersUp.findIndex((r) => similar(r.el, el, 0.03));
+		if (like >= 0) {
+			if (rays > runnersUp[like]!.rays) runnersUp[like] = { el, rays };
+		} else runnersUp.push({ el, rays });
+		runnersUp.sort((x, y) => y.rays - x.rays);
+		if (runnersUp.length > 3) runnersUp.length = 3;
+	};
 	const outer = outermost(points, g);
 	// Rays on the ellipse, less half the rays whose outermost strong edge lies just outside it: an
 	// ellipse through the tips on one side and the roots on the other is as well supported as the
@@ -230,8 +245,7 @@ export function fitTipEllipse(points: EdgePoint[], g: FitGuide, seed = 17): Edge
 	// samples of five can all miss it.
 	for (const el of g.seeds ?? []) {
 		if (!plausible(el, g)) continue;
-		const rays = score(el);
-		if (!best || rays > best.rays) best = { el, rays };
+		consider(el, score(el));
 	}
 	// Two pools of five-point samples: the rays' outer envelope (mostly tips, found all at once even
 	// on narrow deep teeth), and every edge (for when the envelope is cluttered).
@@ -245,8 +259,7 @@ export function fitTipEllipse(points: EdgePoint[], g: FitGuide, seed = 17): Edge
 			const q = fitConic(sample);
 			const el = q && conicEllipse(q);
 			if (!el || !plausible(el, g)) continue;
-			const rays = score(el);
-			if (!best || rays > best.rays) best = { el, rays };
+			consider(el, score(el));
 		}
 	}
 	// Samples of four edges and a tapped tip: a tap is a point on the rim, so only four of the five
@@ -266,8 +279,7 @@ export function fitTipEllipse(points: EdgePoint[], g: FitGuide, seed = 17): Edge
 				const q = fitConic([tip, ...sectors.map((x) => x[Math.floor(rnd() * x.length)]!)]);
 				const el = q && conicEllipse(q);
 				if (!el || !plausible(el, g)) continue;
-				const rays = score(el);
-				if (!best || rays > best.rays) best = { el, rays };
+				consider(el, score(el));
 			}
 		}
 	}
@@ -288,27 +300,38 @@ export function fitTipEllipse(points: EdgePoint[], g: FitGuide, seed = 17): Edge
 	// The seeds refined too: a circle through a single tapped tip, or the ellipse of taps a little
 	// off, lies near the rim's edges without being on them, and beats the random outlines only once
 	// drawn onto them.
-	let fit: EdgeFit | null = null;
-	let fitScore = -Infinity;
-	for (const el of [best.el, ...(g.seeds ?? [])]) {
-		const f = refine(el);
-		const sc = f ? score(f.ellipse) : -Infinity;
-		if (f && sc > fitScore) [fit, fitScore] = [f, sc];
-	}
 	// The root and bevel edges make ellipses of the same shape inside the tips': step outwards.
-	for (let round = 0; fit && round < 3; round++) {
-		const base = fit;
-		let outer: { el: Ellipse; rays: number } | null = null;
-		for (let s = 1.012; s <= 1.4; s += 0.004) {
-			const el = { ...base.ellipse, a: base.ellipse.a * s, b: base.ellipse.b * s };
-			if (!plausible(el, g)) continue;
-			const { rays } = support(points, el, tol(el));
-			if (rays >= 0.45 * base.support * RAYS && (!outer || el.a > outer.el.a)) outer = { el, rays };
+	const stepOut = (first: EdgeFit): EdgeFit => {
+		let fit = first;
+		for (let round = 0; round < 3; round++) {
+			const base = fit;
+			let outer: { el: Ellipse; rays: number } | null = null;
+			for (let s = 1.012; s <= 1.4; s += 0.004) {
+				const el = { ...base.ellipse, a: base.ellipse.a * s, b: base.ellipse.b * s };
+				if (!plausible(el, g)) continue;
+				const { rays } = support(points, el, tol(el));
+				if (rays >= 0.45 * base.support * RAYS && (!outer || el.a > outer.el.a)) outer = { el, rays };
+			}
+			if (!outer) break;
+			const next = refine(outer.el);
+			if (!next || next.ellipse.a <= base.ellipse.a * 1.005) break;
+			fit = next;
 		}
-		if (!outer) break;
-		const next = refine(outer.el);
-		if (!next || next.ellipse.a <= base.ellipse.a * 1.005) break;
-		fit = next;
+		return fit;
+	};
+	// The seeds refined too: a circle through a single tapped tip, or the ellipse of taps a little
+	// off, lies near the rim's edges without being on them, and beats the random outlines only once
+	// drawn onto them. Which one is the rim the edges alone cannot always tell (a mat's line, a
+	// shadow's edge): the runners-up go with the best, for the ring reading to judge.
+	const fits: { fit: EdgeFit; score: number }[] = [];
+	for (const el of [...runnersUp.map((r) => r.el), ...(g.seeds ?? [])]) {
+		const f = refine(el);
+		if (!f) continue;
+		const fit = stepOut(f);
+		const same = fits.some((o) => similar(o.fit.ellipse, fit.ellipse, 0.01));
+		if (!same) fits.push({ fit, score: score(fit.ellipse) });
 	}
-	return fit;
+	fits.sort((x, y) => y.score - x.score);
+	const [top, ...rest] = fits;
+	return top ? { ...top.fit, alternatives: rest.slice(0, 2).map((f) => f.fit) } : null;
 }

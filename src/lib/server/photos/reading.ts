@@ -304,6 +304,9 @@ async function read(image: Buffer, taps: PhotoTaps, started: number, trace?: Tra
 	// belong to a bevel or a shadow, the taps' ellipse reads the teeth better, and it is read too.
 	const outlines: [Conic, Ellipse][] = [[conic, ellipse]];
 	if (tapOk && tapConic && tapEllipse && ellipse !== tapEllipse) outlines.push([tapConic, tapEllipse]);
+	// Outlines the edges support nearly as well as the best: the ring's regularity tells them apart.
+	if (ellipse === edgeFit?.ellipse)
+		for (const alt of edgeFit.alternatives ?? []) if (alt.support >= 0.12) outlines.push([alt.conic, alt.ellipse]);
 	const poses: { pose: Homography; el: Ellipse }[] = outlines.flatMap(([q, el]) => {
 		const affine = affinePose(el.cx, el.cy, el.a, el.b, el.angleDeg);
 		// Nearly round: the tilts hardly differ from the plain stretch, one reading does.
