@@ -146,6 +146,41 @@ export function localLevels(s: Float64Array): Float64Array {
 	return out;
 }
 
+/**
+ * How far the teeth drift off whole pitches along each stretch of known spacings: the spacings'
+ * running sum against the positions counted, less its mean. One spacing cannot tell a 36 from a 37
+ * (2.7 % apart); twenty-five in a row drift by two thirds of a pitch. Where a cover hides part of
+ * the ring, the sum of the positions no longer checks N, and this does.
+ */
+function driftOf(gaps: number[], ks: number[], known: boolean[], p: number): number {
+	const m = gaps.length;
+	// Start the walk after a spacing not known, so no stretch is cut in two by the wrap.
+	const start =
+		Math.max(
+			0,
+			known.findIndex((k) => !k)
+		) + 1;
+	let worst = 0;
+	let stretch: number[] = [0];
+	const close = () => {
+		if (stretch.length > 2) {
+			const mean = stretch.reduce((a, b) => a + b, 0) / stretch.length;
+			for (const r of stretch) worst = Math.max(worst, Math.abs(r - mean));
+		}
+		stretch = [0];
+	};
+	for (let j = 0; j < m; j++) {
+		const i = (start + j) % m;
+		if (!known[i]) {
+			close();
+			continue;
+		}
+		stretch.push(stretch[stretch.length - 1]! + gaps[i]! / p - ks[i]!);
+	}
+	close();
+	return worst;
+}
+
 export function readProfile(s: Float64Array): ProfileReading | ProfileFailure {
 	const n = s.length;
 	const level = localLevels(s);
@@ -209,13 +244,16 @@ export function readProfile(s: Float64Array): ProfileReading | ProfileFailure {
 	if (knownGaps.length < 4) return { failure: 'few' };
 	const med = medianOf(knownGaps);
 	const guess = Math.round(n / med);
-	let best: { teeth: number; ks: number[]; err: number; sumOk: boolean } | null = null;
+	let best: { teeth: number; ks: number[]; err: number; drift: number; sumOk: boolean } | null = null;
 	for (let N = Math.max(6, guess - 2); N <= guess + 2; N++) {
 		const p = n / N;
 		const ks = gapsAfter.map((g) => Math.max(1, Math.round(g / p)));
 		const sumOk = ks.reduce((a, b) => a + b, 0) === N;
 		const err = Math.max(...gapsAfter.map((g, i) => (known[i] ? Math.abs(g / p - ks[i]!) : 0)));
-		if (!best || (sumOk && !best.sumOk) || (sumOk === best.sumOk && err < best.err)) best = { teeth: N, ks, err, sumOk };
+		const drift = driftOf(gapsAfter, ks, known, p);
+		const worse = (x: { err: number; drift: number }) => Math.max(x.err, x.drift);
+		if (!best || (sumOk && !best.sumOk) || (sumOk === best.sumOk && worse({ err, drift }) < worse(best)))
+			best = { teeth: N, ks, err, drift, sumOk };
 	}
 	if (!best) return { failure: 'few' };
 	const { teeth: N, ks } = best;
@@ -254,6 +292,7 @@ export function readProfile(s: Float64Array): ProfileReading | ProfileFailure {
 	const separation = (nh ? hi / nh : 0) - (nl ? lo / nl : 0);
 	const factors = {
 		spacing: clamp01(1 - (best.err - 0.12) / 0.3),
+		drift: clamp01(1 - (best.drift - 0.25) / 0.35),
 		width: clamp01(1 - (sd / duty - 0.08) / 0.4),
 		levels: clamp01((separation - 0.25) / 0.35),
 		cycles: strongestHarmonic(s, 6, Math.min(200, Math.floor(n / 8))) === N ? 1 : 0.5,
@@ -271,7 +310,15 @@ export function readProfile(s: Float64Array): ProfileReading | ProfileFailure {
 		spacingErr: best.err
 	};
 	const confidence =
-		factors.spacing * factors.width * factors.levels * factors.cycles * factors.sum * factors.gaps * factors.faint * (0.5 + 0.5 * factors.read);
+		factors.spacing *
+		factors.drift *
+		factors.width *
+		factors.levels *
+		factors.cycles *
+		factors.sum *
+		factors.gaps *
+		factors.faint *
+		(0.5 + 0.5 * factors.read);
 	const seen = teethRuns.map((r, i) => ({ phi: toPhi(centre(r)), position: pos[i]! }));
 	// A stretch not read reaches from the last tooth seen before it to the first after: what lies
 	// between them, read as background or not, is not known.
