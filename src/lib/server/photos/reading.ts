@@ -330,7 +330,9 @@ async function read(image: Buffer, taps: PhotoTaps, started: number, trace?: Tra
 	trace?.('ring', { poses: poses.map((p) => p.pose), coarse: coarse.map((c) => c.ring), fine });
 	const readings = fine ? [fine, ...coarse.map((c) => c.ring)] : coarse.map((c) => c.ring);
 	const shown = storedEllipse(pick?.el ?? ellipse);
-	if (!best) {
+	// A reading too irregular to answer says why the others failed, when one did (several outlines
+	// are read, and one of them can find some odd pattern on a wheel with no gap at all).
+	if (!best || best.profile.confidence < 0.15 || best.profile.missing * 2 > best.profile.teeth) {
 		const kinds = new Set(readings.map((r) => ('failure' in r ? r.failure : '')));
 		if (kinds.has('contrast'))
 			return fail(
@@ -348,10 +350,9 @@ async function read(image: Buffer, taps: PhotoTaps, started: number, trace?: Tra
 				[CLEAR_ADVICE, FRAME_ADVICE, ...advice],
 				shown
 			);
-		return fail('image', UNREADABLE, [...advice, TAP_ADVICE, LIGHT_ADVICE], shown);
+		return fail('image', UNREADABLE, best ? [...advice, LIGHT_ADVICE] : [...advice, TAP_ADVICE, LIGHT_ADVICE], shown);
 	}
 	const read = best.profile;
-	if (read.confidence < 0.15 || read.missing * 2 > read.teeth) return fail('image', UNREADABLE, [...advice, LIGHT_ADVICE], shown);
 
 	// Back to the stored image's pixels for everything answered.
 	const at = (rho: number, phi: number) => toStored(mapPoint(best.pose, rho * Math.cos(phi), rho * Math.sin(phi)));
