@@ -33,7 +33,7 @@ describe('readProfile', () => {
 		expect([r.teeth, r.missing]).toEqual([36, 1]);
 	});
 
-	it('reads 30-2 when a finger covers the teeth from the middle of the first tooth after the gap, from that tooth\'s flank beside the gap', () => {
+	it("reads 30-2 when a finger covers the teeth from the middle of the first tooth after the gap, from that tooth's flank beside the gap", () => {
 		// Positions 28 and 29 missing: the gap ends where tooth 0 begins (sample 0); the cover runs
 		// from half-way across tooth 0 to past tooth 2, so the gap's far side is only that tooth's flank.
 		const n = 2048;

@@ -263,7 +263,7 @@ export function projectColour(p: Polar, metal: [number, number], background: [nu
 		const tol = Math.max(20, 0.4 * contrast) ** 2;
 		return df <= tol && db <= tol;
 	};
-	for (let grew = true; grew; ) {
+	for (let grew = true; grew;) {
 		grew = false;
 		for (let b = 0; b < bins; b++) {
 			if (seen[b] || !sizeOk[b]) continue;
