@@ -6,7 +6,7 @@
 // wins); the teeth are read round the rectified ring (ring.ts, profile.ts), stretches hidden by a
 // finger or a bracket left out and named.
 import sharp from 'sharp';
-import { confidenceWord, type ConfidenceWord } from '../../photo-confidence';
+import { confidenceWord, HIGH_CONFIDENCE, type ConfidenceWord } from '../../photo-confidence';
 import { conicEllipse, fitConic, type Conic, type Ellipse } from './conic';
 import type { Pt } from './fit';
 import { fitTipEllipse, rayEdges } from './edges';
@@ -195,6 +195,8 @@ function hideCovered(profile: Float64Array, teeth: Float64Array, metal: Float64A
 	// widened, so the profile's clean-up shares it between the tooth and the space beside it.
 	const thin = Math.ceil(n / 240);
 	const pad = Math.ceil(n / 720);
+	// Covered all round, no run has a start: nothing of the ring is known.
+	if (covered.every((c) => c)) profile.fill(NaN);
 	for (let i = 0; i < n; i++) {
 		if (!covered[i] || covered[(i - 1 + n) % n]) continue;
 		let len = 0;
@@ -305,14 +307,22 @@ async function read(image: Buffer, taps: PhotoTaps, started: number, trace?: Tra
 	const outlines: [Conic, Ellipse][] = [[conic, ellipse]];
 	if (tapOk && tapConic && tapEllipse && ellipse !== tapEllipse) outlines.push([tapConic, tapEllipse]);
 	// Outlines the edges support nearly as well as the best: the ring's regularity tells them apart.
+	// Read only when the first outlines read nothing high (most photos: a third of the time).
+	const alternatives: [Conic, Ellipse][] = [];
 	if (ellipse === edgeFit?.ellipse)
-		for (const alt of edgeFit.alternatives ?? []) if (alt.support >= 0.12) outlines.push([alt.conic, alt.ellipse]);
-	const poses: { pose: Homography; el: Ellipse }[] = outlines.flatMap(([q, el]) => {
+		for (const alt of edgeFit.alternatives ?? []) if (alt.support >= 0.12) alternatives.push([alt.conic, alt.ellipse]);
+	const posesOf = ([q, el]: [Conic, Ellipse]) => {
 		const affine = affinePose(el.cx, el.cy, el.a, el.b, el.angleDeg);
 		// Nearly round: the tilts hardly differ from the plain stretch, one reading does.
 		return (el.b / el.a > 0.985 ? [affine] : [...circlePoses(q, cam), affine]).map((pose) => ({ pose, el }));
-	});
+	};
+	const poses: { pose: Homography; el: Ellipse }[] = outlines.flatMap(posesOf);
 	const coarse = poses.map(({ pose, el }) => ({ el, ring: readRing(img, pose, el.a, 1024, trace) }));
+	if (!coarse.some((c) => 'profile' in c.ring && c.ring.profile.confidence >= HIGH_CONFIDENCE))
+		for (const p of alternatives.flatMap(posesOf)) {
+			poses.push(p);
+			coarse.push({ el: p.el, ring: readRing(img, p.pose, p.el.a, 1024, trace) });
+		}
 	const pick = coarse.reduce<{ el: Ellipse; ring: RingReading } | null>(
 		(x, y) => ('profile' in y.ring && (!x || y.ring.profile.confidence > x.ring.profile.confidence) ? { el: y.el, ring: y.ring } : x),
 		null
