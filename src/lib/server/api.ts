@@ -11,12 +11,17 @@ import { namedErrors, refusalsFromMap, type Refusal } from '$lib/schemas/refusal
  * field to a message that starts with the field's name (what the API has always answered).
  * A field → message map (messages written the older way, `field: …`) is taken too.
  */
-export function refuse(refusals: readonly Refusal[] | Record<string, string>, status = 400): Response {
+export function refuse(
+	refusals: readonly Refusal[] | Record<string, string>,
+	status = 400,
+	extras: Record<string, unknown> = {}
+): Response {
 	const list = Array.isArray(refusals) ? (refusals as readonly Refusal[]) : refusalsFromMap(refusals as Record<string, string>);
 	// A map is answered as given: a nested field's message (`params.teeth` → `teeth: …`) keeps the wording it always had.
 	const errors = Array.isArray(refusals) ? namedErrors(list) : (refusals as Record<string, string>);
 	return json(
-		{ message: 'Some parameters are out of range; see errors for each field.', code: 'invalid', errors, refusals: list },
+		// Extras (a photo reading's advice, say) go beside the fixed fields, never over them.
+		{ ...extras, message: 'Some parameters are out of range; see errors for each field.', code: 'invalid', errors, refusals: list },
 		{ status }
 	);
 }

@@ -4,7 +4,7 @@
 import sharp from 'sharp';
 import { describe, expect, it } from 'vitest';
 import { gapsOf } from '$lib/trade/pattern';
-import { readPhoto } from './reading';
+import { confidenceWord, HIGH_CONFIDENCE, readPhoto } from './reading';
 import { syntheticWheelPhoto, type SyntheticWheelOptions } from '$support/synthetic-photos';
 
 type Case = SyntheticWheelOptions & { name: string; centreOffPx?: number };
@@ -188,5 +188,94 @@ describe('readPhoto refuses what it cannot read, naming the field', () => {
 			ok: false,
 			field: 'image'
 		});
+	});
+});
+
+describe('readPhoto answers where it read, and what would help', () => {
+	it('the tip ellipse, and each tooth numbered from the first after the gap, where the export drew them', async () => {
+		const photo = await syntheticWheelPhoto({ teeth: 36, missing: 1, rotationDeg: 100, tips: 1 });
+		const r = await readPhoto(photo.image, photo.taps);
+		if (!r.ok) throw new Error(`refused: ${r.message}`);
+		// The ellipse: the export's OD times the drawing scale, about the centre the photo was drawn at.
+		expect(Math.abs(r.ellipse.cx - photo.truth.centre.x)).toBeLessThan(2);
+		expect(Math.abs(r.ellipse.cy - photo.truth.centre.y)).toBeLessThan(2);
+		expect(Math.abs(r.ellipse.a / photo.truth.radiusPx - 1)).toBeLessThan(0.01);
+		expect(r.ellipse.b / r.ellipse.a).toBeGreaterThan(0.99);
+		expect(r.teethAt.map((t) => t.n)).toEqual(Array.from({ length: 35 }, (_, i) => i + 1));
+		// Tooth n sits (M + 1) / 2 + (n - 1) pitches ccw of the gap's middle (an N-M wheel's geometry;
+		// counting ccw is the cw-turning wheel's order past a fixed sensor), on the tip circle.
+		const pitch = 360 / 36;
+		for (const t of r.teethAt) {
+			const dx = t.x - photo.truth.centre.x;
+			const dy = -(t.y - photo.truth.centre.y);
+			expect(Math.abs(Math.hypot(dx, dy) / photo.truth.radiusPx - 1)).toBeLessThan(0.02);
+			const at = (Math.atan2(dy, dx) * 180) / Math.PI;
+			expect(Math.abs(angleDiff(at, photo.truth.gapAngleDeg + pitch + (t.n - 1) * pitch))).toBeLessThan(pitch / 4);
+		}
+		expect(r.unseen).toEqual([]);
+		expect(r.confidenceWord).toBe(confidenceWord(r.confidence));
+	}, 30_000);
+
+	it('a bracket over part of the rim: still reads N and M, and names the stretch it did not see', async () => {
+		const photo = await syntheticWheelPhoto({ teeth: 36, missing: 1, rotationDeg: 90, tips: 3 });
+		// A dull green bar across the rim opposite the gap, from the tip circle's inside to well outside it.
+		const away = ((photo.truth.gapAngleDeg + 180) * Math.PI) / 180;
+		const c = photo.truth.centre;
+		const R = photo.truth.radiusPx;
+		const bx = c.x + R * Math.cos(away);
+		const by = c.y - R * Math.sin(away);
+		const bar = Buffer.from(
+			`<svg xmlns="http://www.w3.org/2000/svg" width="1200" height="900"><rect x="${bx - 50}" y="${by - 50}" width="100" height="100" fill="#4a6b3a"/></svg>`
+		);
+		const image = await sharp(photo.image)
+			.composite([{ input: bar }])
+			.jpeg()
+			.toBuffer();
+		const r = await readPhoto(image, photo.taps);
+		if (!r.ok) throw new Error(`refused: ${r.message}`);
+		expect([r.teeth, r.missing]).toEqual([36, 1]);
+		expect(r.unseen.length).toBeGreaterThan(0);
+		// The bar's middle lies on the rim at `away`.
+		const mid = (away * 180) / Math.PI;
+		const covers = r.unseen.some((u) => angleDiff(mid, u.fromDeg) >= 0 && angleDiff(u.toDeg, mid) >= 0);
+		expect(covers, `${mid} in ${JSON.stringify(r.unseen)}`).toBe(true);
+		expect(r.teethAt.length).toBeLessThan(35);
+	}, 30_000);
+
+	it('tips at 1.38 : 1 from a tapped centre (a tilted photo) are taken, nonsense ones are not', async () => {
+		const photo = await syntheticWheelPhoto({ teeth: 36, missing: 1, squash: 0.72, squashAxisDeg: 0, tips: 1 });
+		const c = photo.truth.centre;
+		const R = photo.truth.radiusPx;
+		// Tips on the long and the short axis of the squashed wheel: 1 / 0.72 = 1.39 apart.
+		const tips = [
+			{ x: c.x + R, y: c.y },
+			{ x: c.x, y: c.y - 0.72 * R }
+		];
+		const r = await readPhoto(photo.image, { centre: c, tips });
+		expect(r.ok || r.field).not.toBe('tips');
+		const far = await readPhoto(photo.image, {
+			centre: c,
+			tips: [
+				{ x: c.x + 30, y: c.y },
+				{ x: c.x + 300, y: c.y }
+			]
+		});
+		expect(far).toMatchObject({ ok: false, field: 'tips' });
+	}, 30_000);
+
+	it('a refusal says what would help in this photo', async () => {
+		const blank = await sharp({ create: { width: 1000, height: 800, channels: 3, background: '#808080' } })
+			.jpeg()
+			.toBuffer();
+		const r = await readPhoto(blank, { centre: { x: 500, y: 400 }, tips: [{ x: 800, y: 400 }] });
+		if (r.ok) throw new Error('read a blank photo');
+		expect(r.advice.length).toBeGreaterThan(0);
+		expect(r.advice.join(' ')).toMatch(/tap five or more/);
+	});
+
+	it('says high only at and above HIGH_CONFIDENCE', () => {
+		expect(confidenceWord(HIGH_CONFIDENCE)).toBe('high');
+		expect(confidenceWord(HIGH_CONFIDENCE - 0.001)).not.toBe('high');
+		expect(confidenceWord(0)).toBe('low');
 	});
 });

@@ -1,22 +1,29 @@
 // Photo reading: from a photo of a real trigger wheel and the user's taps (centre, tooth tips) to
-// its N-M pattern. The photo is cropped round the wheel and shrunk so the wheel is about 900 px
-// across (plenty for 72 positions, and decode-bound at 12 MP), then read in three rings: two to
-// find the wheel's true outline from its own edge (a finger's centre and a tilted camera both
-// correct themselves there), one to read the teeth on the rectified ring.
+// its N-M pattern. The photo is shrunk on decode so the wheel is about 900 px across (plenty for 72
+// positions) and cropped round it, in colour. The tip ellipse comes from the wheel's own edges
+// near the taps (edges.ts), or from five or more tapped tips; the wheel's plane is rectified from
+// it with perspective (plane.ts: two possible tilts, the one that reads the more regular teeth
+// wins); the teeth are read round the rectified ring (ring.ts, profile.ts), stretches hidden by a
+// finger or a bracket left out and named.
 import sharp from 'sharp';
-import { circleOutline, fitCircle, fitEllipse, outlinePoint, radialError, semiAxes, type Outline, type Pt } from './fit';
-import { refineOutline } from './refine';
-import { bandMean, boundary, normalise, samplePolar, type Grey } from './ring';
-import { readProfile } from './profile';
+import { confidenceWord, HIGH_CONFIDENCE, type ConfidenceWord } from '../../photo-confidence';
+import { conicEllipse, fitConic, type Conic, type Ellipse } from './conic';
+import type { Pt } from './fit';
+import { fitTipEllipse, rayEdges } from './edges';
+import { affinePose, circlePoses, mapPoint, type Camera, type Homography } from './plane';
+import { readProfile, type ProfileReading } from './profile';
+import { bandMean, normalise, projectColour, radialMean, samplePolar, type Grey } from './ring';
 
 export interface PhotoTaps {
 	/** Pixel coordinates in the image as stored (upright; x right, y down). */
 	centre: Pt;
-	/** At least one; more (3+: circle, 5+: ellipse) helps a far-off centre or a tilted camera. */
+	/** At least one; five or more give the tip ellipse directly. */
 	tips: Pt[];
 	/** Known outer diameter, to answer the scale. */
 	odMm?: number;
 }
+
+export { confidenceWord, HIGH_CONFIDENCE, MEDIUM_CONFIDENCE, type ConfidenceWord } from '../../photo-confidence';
 
 export type PhotoReadingResult =
 	| {
@@ -36,43 +43,47 @@ export type PhotoReadingResult =
 			pitchDeg: number;
 			/** Tooth width / pitch at mid-depth. */
 			duty: number;
-			/** 0..1: spacings on whole pitches, even teeth, clean contrast. */
+			/** 0..1, after rectification: spacings on whole pitches, even teeth, clean contrast, ring read. */
 			confidence: number;
-			/** Teeth actually seen (N - M). */
+			confidenceWord: ConfidenceWord;
+			/** Teeth on the wheel (N - M). */
 			toothCount: number;
 			/** Tip radius in image px (the long semi-axis when the wheel looks elliptical). */
 			radiusPx: number;
 			mmPerPx?: number;
 			polarity: 'light-on-dark' | 'dark-on-light';
+			/** The tip ellipse in stored-image px (y down); angleDeg of the a-axis, ccw from +x with y up. */
+			ellipse: Ellipse;
+			/** Each tooth seen, its tip's middle in stored-image px; n from 1 at the first tooth after the gap (wheel turning cw). */
+			teethAt: { n: number; x: number; y: number }[];
+			/** Stretches of the ring not read (a finger, a bracket, glare), image angles ccw from +x with y up. */
+			unseen: { fromDeg: number; toDeg: number }[];
 			ms: number;
 	  }
-	| { ok: false; field: string; message: string };
+	| { ok: false; field: string; message: string; advice: string[]; ellipse?: Ellipse };
 
 type Failure = Extract<PhotoReadingResult, { ok: false }>;
-const fail = (field: string, message: string): Failure => ({ ok: false, field, message });
+const fail = (field: string, message: string, advice: string[] = [], ellipse?: Ellipse): Failure => ({
+	ok: false,
+	field,
+	message,
+	advice,
+	...(ellipse ? { ellipse } : {})
+});
 
 // Wheel radius in the working image: ~20 samples per pitch at 72 positions, far from the limit.
 const WORK_RADIUS = 450;
 const ADVICE =
 	'tap the exact centre and the very tip of a tooth, photograph the wheel square-on with the whole wheel in the frame, and use even light with the wheel against a plain background of a different shade';
 const UNREADABLE = `image: no evenly spaced teeth found round the ring; ${ADVICE}`;
+const NOT_A_PICTURE = 'image: not a picture we can read; upload a JPEG, PNG or WebP photo';
 
-/** The tip outline from the taps alone: a circle about the centre, fitted through 3+ tips, or an ellipse through 5+. */
-function tapOutline(taps: PhotoTaps): Outline {
-	const dists = taps.tips.map((t) => Math.hypot(t.x - taps.centre.x, t.y - taps.centre.y));
-	const mean = dists.reduce((a, b) => a + b, 0) / dists.length;
-	const around = circleOutline(taps.centre, mean);
-	// A fit is kept only when it agrees with the tapped centre (tips bunched on one side fit badly).
-	const sane = (o: Outline | null) => {
-		if (!o) return false;
-		const [a, b] = semiAxes(o);
-		return b / a > 0.8 && Math.hypot(o.cx - taps.centre.x, o.cy - taps.centre.y) < 0.2 * mean && a < 1.3 * mean && b > 0.75 * mean;
-	};
-	const ellipse = taps.tips.length >= 5 ? fitEllipse(taps.tips, taps.centre, mean) : null;
-	if (ellipse && sane(ellipse) && taps.tips.every((t) => Math.abs(radialError(ellipse, t)) < 0.02)) return ellipse;
-	const circle = fitCircle(taps.tips);
-	return circle && sane(circle) ? circle : around;
-}
+const TIPS_ADVICE = 'tap five or more tooth tips spread round the wheel: they give its outline directly';
+const SQUARE_ADVICE = 'shoot square-on, the phone held level over the middle of the wheel';
+const LIGHT_ADVICE = 'put more light on the rim, or a background of a different colour or shade behind the teeth';
+const CLEAR_ADVICE = 'clear the rim: no finger, bracket or cable over the teeth';
+const FRAME_ADVICE = 'get the whole wheel in the frame, with some background all round it';
+const TAP_ADVICE = 'tap the very tip of a tooth (its outer edge), not its root, and the middle of the wheel';
 
 function checkTaps(taps: PhotoTaps, width: number, height: number): Failure | null {
 	const inside = (p: Pt) => Number.isFinite(p.x) && Number.isFinite(p.y) && p.x >= 0 && p.y >= 0 && p.x <= width && p.y <= height;
@@ -82,137 +93,306 @@ function checkTaps(taps: PhotoTaps, width: number, height: number): Failure | nu
 	const dists = taps.tips.map((t) => Math.hypot(t.x - taps.centre.x, t.y - taps.centre.y));
 	const small = Math.min(...dists);
 	if (small < 20) return fail('tips', 'tips: tap the tips of the teeth, away from the centre (the wheel must be at least 40 px across)');
-	if (Math.max(...dists) > 1.35 * small)
-		return fail('tips', 'tips: the tips tapped are at different distances from the centre; tap the tips of teeth on the same wheel');
+	// A wheel tilted 60° with the centre tapped a little off still stays under 2.5; beyond it the
+	// taps cannot be tips of one wheel round that centre.
+	if (Math.max(...dists) > 2.5 * small)
+		return fail('tips', 'tips: the tips tapped are at very different distances from the centre; tap the tips of teeth on the same wheel', [
+			TAP_ADVICE
+		]);
 	return null;
 }
 
-export async function readPhoto(image: Buffer, taps: PhotoTaps): Promise<PhotoReadingResult> {
+/** Sees the reading's stages (the ellipses tried, each pose's ring), for calibration and debugging. */
+export type Trace = (stage: string, data: Record<string, unknown>) => void;
+
+export async function readPhoto(image: Buffer, taps: PhotoTaps, trace?: Trace): Promise<PhotoReadingResult> {
 	// A photo is the user's input: whatever in it trips the reading is answered as a refusal, not a 500.
 	try {
-		return await read(image, taps, performance.now());
+		return await read(image, taps, performance.now(), trace);
 	} catch {
-		return fail('image', UNREADABLE);
+		return fail('image', UNREADABLE, [TAP_ADVICE, SQUARE_ADVICE, LIGHT_ADVICE]);
 	}
 }
 
-async function read(image: Buffer, taps: PhotoTaps, started: number): Promise<PhotoReadingResult> {
+interface Work {
+	img: Grey;
+	/** Stored px to working px and back. */
+	toWork: (p: Pt) => Pt;
+	toStored: (p: Pt) => Pt;
+	scale: number;
+	cam: Camera;
+}
+
+async function decode(image: Buffer, taps: PhotoTaps, width: number, height: number): Promise<Work | Failure> {
+	const far = Math.max(...taps.tips.map((t) => Math.hypot(t.x - taps.centre.x, t.y - taps.centre.y)));
+	const scale = Math.min(1, WORK_RADIUS / far);
+	// Resize first: a JPEG then shrinks while it decodes, which is most of the time on a 12 MP photo.
+	const sw = Math.max(2, Math.round(width * scale));
+	const sh = Math.max(2, Math.round(height * scale));
+	const [kx, ky] = [sw / width, sh / height];
+	// The crop holds the ring, the background outside it, and room for a tilt and a centre off by a bit.
+	const half = 1.9 * far * scale;
+	const left = Math.max(0, Math.floor(taps.centre.x * kx - half));
+	const top = Math.max(0, Math.floor(taps.centre.y * ky - half));
+	const cw = Math.min(sw, Math.ceil(taps.centre.x * kx + half)) - left;
+	const ch = Math.min(sh, Math.ceil(taps.centre.y * ky + half)) - top;
+	if (cw < 8 || ch < 8) return fail('image', UNREADABLE, [FRAME_ADVICE]);
+	try {
+		let pipe = sharp(image).removeAlpha().toColourspace('srgb');
+		if (scale < 1) pipe = pipe.resize(sw, sh, { fit: 'fill' });
+		const { data, info } = await pipe.extract({ left, top, width: cw, height: ch }).raw().toBuffer({ resolveWithObject: true });
+		const img: Grey = { data, width: info.width, height: info.height, channels: info.channels };
+		return {
+			img,
+			scale,
+			toWork: (p) => ({ x: p.x * kx - left, y: p.y * ky - top }),
+			toStored: (p) => ({ x: (p.x + left) / kx, y: (p.y + top) / ky }),
+			cam: { f: 0.8 * Math.max(width, height) * scale, px: (width / 2) * kx - left, py: (height / 2) * ky - top }
+		};
+	} catch {
+		return fail('image', 'image: the photo could not be decoded; upload it again as a JPEG or PNG');
+	}
+}
+
+type RingFailure = { failure: 'contrast' | 'depth' | 'outside' | ProfileFailureKind };
+type ProfileFailureKind = 'few' | 'nogap' | 'gap-unseen' | 'unseen';
+interface RingReading {
+	profile: ProfileReading;
+	lightOnDark: boolean;
+	pose: Homography;
+}
+
+/** The root radius (unit frame) from a coarse ring: where the mean metal round the ring drops from the face to the teeth. */
+function findRoot(img: Grey, pose: Homography, radial: (from: number, to: number, px: number) => number): number | RingFailure {
+	const wide = samplePolar(img, pose, 512, 0.5, 1.25, radial(0.5, 1.25, 2.5));
+	const p1 = projectColour(wide, [0.55, 0.98], [1.08, 1.25], 64);
+	if (p1.contrast < 8) return { failure: 'contrast' };
+	const ring1 = normalise(p1.polar, [0.55, 0.98], [1.08, 1.25], true, 0.85);
+	const m = radialMean(ring1);
+	const radii = ring1.polar.radii;
+	const jt = radii.findIndex((r) => r >= 0.975);
+	let plateau = -Infinity;
+	for (let j = 0; j < jt; j++) if (m[j]! > plateau) plateau = m[j]!;
+	const tipLevel = m[jt]!;
+	if (!(plateau - tipLevel > 0.15)) return { failure: 'depth' };
+	for (let j = jt - 1; j >= 0; j--) if (m[j]! >= tipLevel + 0.6 * (plateau - tipLevel)) return radii[j]!;
+	return { failure: 'depth' };
+}
+
+/**
+ * Angles where something lies over the rim (a finger, a bracket): most of the teeth's band is
+ * neither metal nor background, and the solid metal just inside the root no longer reads as metal
+ * or the background just outside the tips no longer as background. A mat's grid line or a plank
+ * seam crosses the bands too, but thinly: the teeth's band stays readable there. Their profile
+ * becomes unknown, a little wider than found, so the teeth beside them are not cut.
+ */
+function hideCovered(profile: Float64Array, teeth: Float64Array, metal: Float64Array, bg: Float64Array) {
+	const n = profile.length;
+	const covered = new Uint8Array(n);
+	for (let i = 0; i < n; i++) if (Number.isNaN(teeth[i]!) && (!(metal[i]! >= 0.8) || !(bg[i]! <= 0.15))) covered[i] = 1;
+	// A finger or a bracket is wider than a few degrees at the rim; a mat's line or a plank seam
+	// crossing a space and the background beyond it is under one: it stays unknown, but is not
+	// widened, so the profile's clean-up shares it between the tooth and the space beside it.
+	const thin = Math.ceil(n / 240);
+	const pad = Math.ceil(n / 720);
+	// Covered all round, no run has a start: nothing of the ring is known.
+	if (covered.every((c) => c)) profile.fill(NaN);
+	for (let i = 0; i < n; i++) {
+		if (!covered[i] || covered[(i - 1 + n) % n]) continue;
+		let len = 0;
+		while (len < n && covered[(i + len) % n]) len++;
+		const wide = len >= thin ? pad : 0;
+		for (let d = -wide; d < len + wide; d++) profile[(i + d + n) % n] = NaN;
+	}
+}
+
+/** The teeth read round the ring of one pose, na angles, across the middle half of the teeth's depth. */
+function readRing(img: Grey, pose: Homography, radiusPx: number, na: number, trace?: Trace): RingReading | RingFailure {
+	const radial = (from: number, to: number, px: number) => Math.max(16, Math.ceil(((to - from) * radiusPx) / px));
+	const root = findRoot(img, pose, radial);
+	if (typeof root !== 'number') return root;
+	const depth = 1 - root;
+	if (!(depth > 0.015 && depth < 0.6)) return { failure: 'depth' };
+	// The metal's colour from solid metal just inside the root, the background's just outside the tips.
+	const metal: [number, number] = [Math.max(0.3, root - 0.045), Math.max(0.33, root - 0.015)];
+	const bg: [number, number] = [1.06, 1.2];
+	const px = na >= 2048 ? 1.5 : 2.5;
+	const fine = samplePolar(img, pose, na, metal[0], 1.2, radial(metal[0], 1.2, px));
+	const p2 = projectColour(fine, metal, bg);
+	if (p2.contrast < 8) return { failure: 'contrast' };
+	const ring = normalise(p2.polar, metal, bg, true, 0.5);
+	// The teeth from every sample (flanks included), the cover from the solid bands, where a colour
+	// neither metal nor background means something lies over the rim.
+	const band: [number, number] = [root + 0.25 * depth, 1 - 0.25 * depth];
+	const { profile } = bandMean({ ...ring, t: normalise(p2.whole, metal, bg, true, 0.5).t }, ...band);
+	if (!profile) return { failure: 'depth' };
+	const solid = (b: [number, number]) => bandMean(ring, ...b).profile!;
+	const raw = profile.slice();
+	hideCovered(profile, solid(band), solid(metal), solid(bg));
+	trace?.('profile', { na, root, raw, profile, seen: p2.seen });
+	const read = readProfile(profile);
+	if ('failure' in read) return read;
+	return { profile: read, lightOnDark: p2.lightOnDark, pose };
+}
+
+/** Image angle (degrees ccw from +x, y up, 0..360) of a point seen from a centre. */
+const imageAngle = (c: Pt, p: Pt) => ((((Math.atan2(-(p.y - c.y), p.x - c.x) * 180) / Math.PI) % 360) + 360) % 360;
+const r3 = (v: number) => Math.round(v * 1000) / 1000;
+const r1 = (v: number) => Math.round(v * 10) / 10;
+
+async function read(image: Buffer, taps: PhotoTaps, started: number, trace?: Trace): Promise<PhotoReadingResult> {
 	let width: number;
 	let height: number;
 	try {
 		const meta = await sharp(image).metadata();
-		if (!meta.width || !meta.height) return fail('image', 'image: not a picture we can read; upload a JPEG, PNG or WebP photo');
+		if (!meta.width || !meta.height) return fail('image', NOT_A_PICTURE);
 		[width, height] = [meta.width, meta.height];
 	} catch {
-		return fail('image', 'image: not a picture we can read; upload a JPEG, PNG or WebP photo');
+		return fail('image', NOT_A_PICTURE);
 	}
 	const bad = checkTaps(taps, width, height);
 	if (bad) return bad;
+	const work = await decode(image, taps, width, height);
+	if ('ok' in work) return work;
+	const { img, toWork, toStored, scale, cam } = work;
 
-	const initial = tapOutline(taps);
-	const [major] = semiAxes(initial);
-	// The crop holds the ring, the background band outside it, and room for a centre off by a bit.
-	const half = 1.45 * major;
-	const left = Math.max(0, Math.floor(initial.cx - half));
-	const top = Math.max(0, Math.floor(initial.cy - half));
-	const cw = Math.min(width, Math.ceil(initial.cx + half)) - left;
-	const ch = Math.min(height, Math.ceil(initial.cy + half)) - top;
-	const scale = Math.min(1, WORK_RADIUS / major);
-	const ow = Math.max(2, Math.round(cw * scale));
-	const oh = Math.max(2, Math.round(ch * scale));
-	let grey: Grey;
-	try {
-		const { data, info } = await sharp(image)
-			.extract({ left, top, width: cw, height: ch })
-			.resize(ow, oh, { fit: 'fill' })
-			.greyscale()
-			.raw()
-			.toBuffer({ resolveWithObject: true });
-		grey = { data, width: info.width, height: info.height, channels: info.channels };
-	} catch {
-		return fail('image', 'image: the photo could not be decoded; upload it again as a JPEG or PNG');
-	}
-	const [sx, sy] = [ow / cw, oh / ch];
-	const toWork = (o: Outline): Outline => ({
-		cx: (o.cx - left) * sx,
-		cy: (o.cy - top) * sy,
-		A: [o.A[0] * sx, o.A[1] * sx, o.A[2] * sy, o.A[3] * sy]
-	});
+	const centre = toWork(taps.centre);
+	const tips = taps.tips.map(toWork);
+	const dists = tips.map((t) => Math.hypot(t.x - centre.x, t.y - centre.y));
+	const mean = dists.reduce((a, b) => a + b, 0) / dists.length;
+	const far = Math.max(...dists);
+	const advice: string[] = [];
+	if (taps.tips.length < 5) advice.push(TIPS_ADVICE);
 
-	let outline = toWork(initial);
-	// Radial steps in working px: coarse while finding the outline, about one pixel for the teeth.
-	const radial = (o: Outline, from: number, to: number, px = 1) => Math.max(16, Math.ceil(((to - from) * semiAxes(o)[0]) / px));
-	// Pass 1: wide bands, for the taps' guess may be far off; pass 2: bands hugging the teeth found.
-	let ring = normalise(
-		samplePolar(grey, outline, 2048, 0.55, 1.34, radial(outline, 0.55, 1.34, 2)),
-		[0.6, 1],
-		[1.16, 1.34],
-		undefined,
-		0.85
-	);
-	const light = ring.lightOnDark;
-	if (ring.contrast < 8) return fail('image', `image: the wheel hardly stands out from the background where the taps put it; ${ADVICE}`);
-	let rootRatio = 0.85;
-	const first = refineOutline(outline, boundary(ring));
-	if (first) [outline, rootRatio] = [first.outline, first.rootRatio];
-	// Once the root is known, the metal level comes from a narrow band just inside it: solid metal
-	// even on a thin ring wheel, so its median is unbiased.
-	const inner = (r: number): [number, number] => [Math.max(0.3, r - 0.07), Math.max(0.35, r - 0.02)];
-	if (first) {
-		const [from] = inner(rootRatio);
-		ring = normalise(
-			samplePolar(grey, outline, 2048, from, 1.28, radial(outline, from, 1.28, 1.5)),
-			inner(rootRatio),
-			[1.1, 1.28],
-			light,
-			0.5
-		);
-		const second = refineOutline(outline, boundary(ring));
-		if (second) [outline, rootRatio] = [second.outline, second.rootRatio];
-	}
-	const depth = 1 - rootRatio;
-	if (!(depth > 0.015 && depth < 0.6)) return fail('image', UNREADABLE);
-
-	// Pass 3: read the teeth as the mean metal fraction across the middle half of their depth.
-	const na = 4096;
-	const [from] = inner(rootRatio);
-	ring = normalise(samplePolar(grey, outline, na, from, 1.22, radial(outline, from, 1.22)), inner(rootRatio), [1.08, 1.22], light, 0.5);
-	const { profile: s, unknown } = bandMean(ring, rootRatio + 0.25 * depth, 1 - 0.25 * depth);
-	if (!s) return fail('image', UNREADABLE);
-	if (unknown > na * 0.02)
+	// The tip ellipse: from the edges near the taps, or through five or more tapped tips.
+	// Edges on a softened copy: sensor noise and JPEG blocks make peaks of their own.
+	const { data: soft } = await sharp(img.data, { raw: { width: img.width, height: img.height, channels: img.channels as 1 | 3 } })
+		.blur(1.5)
+		.raw()
+		.toBuffer({ resolveWithObject: true });
+	const edges = rayEdges({ ...img, data: soft }, centre, 0.4 * Math.min(...dists), 1.7 * far);
+	// A tap is a fingertip: allow it about 20 stored px off the rim (or 7 %, whichever is more).
+	const tipTolerance = Math.max(0.07, (25 * scale) / mean);
+	const tapConic = tips.length >= 5 ? fitConic(tips) : null;
+	const tapEllipse = tapConic && conicEllipse(tapConic);
+	const tapOk =
+		tapEllipse && tapEllipse.b / tapEllipse.a > 0.4 && Math.hypot(tapEllipse.cx - centre.x, tapEllipse.cy - centre.y) < 0.4 * tapEllipse.a;
+	const seeds: Ellipse[] = [{ cx: centre.x, cy: centre.y, a: mean, b: mean, angleDeg: 0 }];
+	if (tapOk && tapEllipse) seeds.unshift(tapEllipse);
+	const edgeFit = fitTipEllipse(edges, { centre, tips, radius: mean, tipTolerance, centreTolerance: 0.1 * far + 25 * scale, seeds });
+	let conic: Conic | null = null;
+	let ellipse: Ellipse | null = null;
+	if (edgeFit && edgeFit.support >= 0.12) [conic, ellipse] = [edgeFit.conic, edgeFit.ellipse];
+	else if (tapOk) [conic, ellipse] = [tapConic, tapEllipse];
+	const storedEllipse = (el: Ellipse): Ellipse => {
+		const c = toStored({ x: el.cx, y: el.cy });
+		return { cx: r1(c.x), cy: r1(c.y), a: r1(el.a / scale), b: r1(el.b / scale), angleDeg: r1(el.angleDeg) };
+	};
+	trace?.('ellipse', { img, scale, toWork, edges, edgeFit, tapEllipse, tapOk, ellipse });
+	const tried = ellipse ?? edgeFit?.ellipse ?? (tapOk ? tapEllipse : null);
+	if (!conic || !ellipse) {
 		return fail(
 			'image',
-			'image: part of the ring of teeth is outside the photo or lost in shadow or glare; photograph the whole wheel, with some background all round, in even light'
+			`image: the wheel's rim could not be found round the taps; ${ADVICE}`,
+			[...advice, TAP_ADVICE, LIGHT_ADVICE],
+			tried ? storedEllipse(tried) : undefined
 		);
-	const read = readProfile(s);
-	if ('failure' in read) {
-		if (read.failure === 'nogap')
-			return fail('image', 'image: the teeth are evenly spaced all round with no gap; this reading is for missing-tooth wheels');
-		return fail('image', UNREADABLE);
 	}
-	if (read.confidence < 0.2 || read.missing * 2 > read.teeth) return fail('image', UNREADABLE);
+	if (ellipse.b / ellipse.a < 0.8) advice.push(SQUARE_ADVICE);
 
-	// Back to the stored image's pixels for the angle and radius answered.
-	const g = outlinePoint(outline, 1, read.gapPhi);
-	const c = { x: outline.cx / sx + left, y: outline.cy / sy + top };
-	const gx = g.x / sx + left - c.x;
-	const gy = g.y / sy + top - c.y;
-	const gapAngleDeg = ((((Math.atan2(-gy, gx) * 180) / Math.PI) % 360) + 360) % 360;
-	const radiusPx = semiAxes(outline)[0] / ((sx + sy) / 2);
-	const r3 = (v: number) => Math.round(v * 1000) / 1000;
+	// Read both tilts each ellipse allows, and the affine stretch (a long lens, or a crop of a far
+	// shot, sees the wheel without perspective), coarsely; the most regular is read again finely.
+	// Five or more tapped tips give an ellipse of their own: where the edges found round the rim
+	// belong to a bevel or a shadow, the taps' ellipse reads the teeth better, and it is read too.
+	const outlines: [Conic, Ellipse][] = [[conic, ellipse]];
+	if (tapOk && tapConic && tapEllipse && ellipse !== tapEllipse) outlines.push([tapConic, tapEllipse]);
+	// Outlines the edges support nearly as well as the best: the ring's regularity tells them apart.
+	// Read only when the first outlines read nothing high (most photos: a third of the time).
+	const alternatives: [Conic, Ellipse][] = [];
+	if (ellipse === edgeFit?.ellipse)
+		for (const alt of edgeFit.alternatives ?? []) if (alt.support >= 0.12) alternatives.push([alt.conic, alt.ellipse]);
+	const posesOf = ([q, el]: [Conic, Ellipse]) => {
+		const affine = affinePose(el.cx, el.cy, el.a, el.b, el.angleDeg);
+		// Nearly round: the tilts hardly differ from the plain stretch, one reading does.
+		return (el.b / el.a > 0.985 ? [affine] : [...circlePoses(q, cam), affine]).map((pose) => ({ pose, el }));
+	};
+	const poses: { pose: Homography; el: Ellipse }[] = outlines.flatMap(posesOf);
+	const coarse = poses.map(({ pose, el }) => ({ el, ring: readRing(img, pose, el.a, 1024, trace) }));
+	if (!coarse.some((c) => 'profile' in c.ring && c.ring.profile.confidence >= HIGH_CONFIDENCE))
+		for (const p of alternatives.flatMap(posesOf)) {
+			poses.push(p);
+			coarse.push({ el: p.el, ring: readRing(img, p.pose, p.el.a, 1024, trace) });
+		}
+	const pick = coarse.reduce<{ el: Ellipse; ring: RingReading } | null>(
+		(x, y) => ('profile' in y.ring && (!x || y.ring.profile.confidence > x.ring.profile.confidence) ? { el: y.el, ring: y.ring } : x),
+		null
+	);
+	const fine = pick && readRing(img, pick.ring.pose, pick.el.a, 2048, trace);
+	// The fine reading can lose a tooth beside a cover, or split one at a glint, that the coarse one
+	// read whole: the more regular of the two stands. Where they disagree on N or M, a tooth lost in
+	// glare or shadow may be making a gap in one of them: the other's confidence counts against it.
+	const coarseBest = pick?.ring;
+	const fineOk = fine && 'profile' in fine ? fine : null;
+	const best = fineOk && coarseBest && fineOk.profile.confidence < coarseBest.profile.confidence ? coarseBest : (fineOk ?? coarseBest);
+	const other = best === fineOk ? coarseBest : fineOk;
+	if (best && other && (other.profile.teeth !== best.profile.teeth || other.profile.missing !== best.profile.missing))
+		best.profile.confidence *= 1 - other.profile.confidence;
+	trace?.('ring', { poses: poses.map((p) => p.pose), coarse: coarse.map((c) => c.ring), fine });
+	const readings = fine ? [fine, ...coarse.map((c) => c.ring)] : coarse.map((c) => c.ring);
+	const shown = storedEllipse(pick?.el ?? ellipse);
+	// A reading too irregular to answer says why the others failed, when one did (several outlines
+	// are read, and one of them can find some odd pattern on a wheel with no gap at all).
+	if (!best || best.profile.confidence < 0.15 || best.profile.missing * 2 > best.profile.teeth) {
+		const kinds = new Set(readings.map((r) => ('failure' in r ? r.failure : '')));
+		if (kinds.has('contrast'))
+			return fail(
+				'image',
+				`image: the wheel hardly stands out from the background where the taps put it; ${ADVICE}`,
+				[LIGHT_ADVICE, ...advice],
+				shown
+			);
+		if (kinds.has('nogap'))
+			return fail('image', 'image: the teeth are evenly spaced all round with no gap; this reading is for missing-tooth wheels', [], shown);
+		if (kinds.has('gap-unseen') || kinds.has('unseen'))
+			return fail(
+				'image',
+				'image: part of the ring of teeth is hidden, outside the photo or lost in shadow or glare, and the gap was not seen; photograph the whole wheel, the rim clear, in even light',
+				[CLEAR_ADVICE, FRAME_ADVICE, ...advice],
+				shown
+			);
+		return fail('image', UNREADABLE, best ? [...advice, LIGHT_ADVICE] : [...advice, TAP_ADVICE, LIGHT_ADVICE], shown);
+	}
+	const read = best.profile;
+
+	// Back to the stored image's pixels for everything answered.
+	const at = (rho: number, phi: number) => toStored(mapPoint(best.pose, rho * Math.cos(phi), rho * Math.sin(phi)));
+	const c = toStored(mapPoint(best.pose, 0, 0));
+	const missingBefore = (position: number) => read.gaps.reduce((a, g) => a + Math.max(0, Math.min(g.count, position - g.first)), 0);
+	const teethAt = read.seen
+		.map((t) => {
+			const p = at(1, t.phi);
+			return { n: t.position - missingBefore(t.position) + 1, x: r1(p.x), y: r1(p.y) };
+		})
+		.sort((a, b) => a.n - b.n);
+	const unseen = read.unseen.map((u) => ({ fromDeg: r1(imageAngle(c, at(1, u.from))), toDeg: r1(imageAngle(c, at(1, u.to))) }));
+	const radiusPx = (pick?.el ?? ellipse).a / scale;
 	return {
 		ok: true,
 		teeth: read.teeth,
 		missing: read.missing,
 		gaps: read.gaps,
-		gapAngleDeg: r3(gapAngleDeg),
+		gapAngleDeg: r3(imageAngle(c, at(1, read.gapPhi))),
 		pitchDeg: r3(360 / read.teeth),
 		duty: r3(read.duty),
 		confidence: r3(read.confidence),
+		confidenceWord: confidenceWord(r3(read.confidence)),
 		toothCount: read.toothCount,
 		radiusPx: r3(radiusPx),
 		...(taps.odMm ? { mmPerPx: taps.odMm / (2 * radiusPx) } : {}),
-		polarity: ring.lightOnDark ? 'light-on-dark' : 'dark-on-light',
+		polarity: best.lightOnDark ? 'light-on-dark' : 'dark-on-light',
+		ellipse: shown,
+		teethAt,
+		unseen,
 		ms: Math.round(performance.now() - started)
 	};
 }

@@ -2,6 +2,7 @@
 // arcs on it at image angles, and which tooth numbers have room for a label. Pure (no DOM), so it is
 // tested against the parametric ellipse. Image px, x right, y down; angles in degrees counter-
 // clockwise from +x with y up, as the reading API gives them.
+import { confidenceWord as fromValue } from '$lib/photo-confidence';
 import type { Pt } from '$lib/schemas/photo';
 
 /** The tip ellipse: centre, semi-axes a >= b, and the a-axis' direction. */
@@ -182,5 +183,5 @@ export function overlayFacts(answer: unknown): OverlayFacts {
 export function confidenceWord(word: ConfidenceWord | null | undefined, value: number | undefined): ConfidenceWord | null {
 	if (word) return word;
 	if (typeof value !== 'number') return null;
-	return value < 0.6 ? 'low' : value >= 0.8 ? 'high' : 'medium';
+	return fromValue(value);
 }

@@ -17,6 +17,7 @@ const anyObject = z.record(z.string(), z.unknown());
  * Reads the teeth of the wheel in a photo from the user's taps: the centre and one or more tooth
  * tips, in the stored image's pixels (optionally the known outside diameter, `od` in `units`, or
  * the older `odMm`). Editors store the reading on the photo; anyone who may read the build may try one.
+ * A refusal adds `advice` (what would help in this photo) and `ellipse` (the tip outline tried).
  */
 export async function POST(event) {
 	const access = await objectAccess(event, 'read', 'photo', event.params.photoId);
@@ -27,7 +28,12 @@ export async function POST(event) {
 	if (!taps.ok) return refuse(taps.refusals);
 	const bytes = Buffer.from(await photoBytes(row.storageKey));
 	const reading = await decodeSlot(() => readPhoto(bytes, taps.value));
-	if (!reading.ok) return refuse([refusal(reading.field, reading.message)]);
+	// What would help in this photo, and the outline that was tried, so the page can show a bad fit.
+	if (!reading.ok)
+		return refuse([refusal(reading.field, reading.message)], 400, {
+			advice: reading.advice,
+			...(reading.ellipse ? { ellipse: reading.ellipse } : {})
+		});
 	const design = readingToDesign(reading, taps.value.odMm, taps.value.units);
 	if (access.can.edit) {
 		await saveReading(

@@ -1,0 +1,82 @@
+// The ring profile to a pattern, on profiles drawn by hand here: an N-M wheel sampled round the ring
+// (tooth = 1, space = 0), so N, M and the gap are the drawing's own, not the reader's.
+import { describe, expect, it } from 'vitest';
+import { HIGH_CONFIDENCE } from '$lib/photo-confidence';
+import { localLevels, readProfile } from './profile';
+
+/** n samples round an N-M wheel: teeth at positions 0..N-M-1, each `duty` of a pitch wide; the gap after them. */
+function wheel(N: number, M: number, n = 2048, duty = 0.5, space = 0, tooth = 1): Float64Array {
+	const p = n / N;
+	return new Float64Array(n).map((_, i) => {
+		const pos = Math.floor(i / p);
+		return pos < N - M && i - pos * p < duty * p ? tooth : space;
+	});
+}
+
+describe('readProfile', () => {
+	it('reads a clean 36-1', () => {
+		const r = readProfile(wheel(36, 1));
+		if ('failure' in r) throw new Error(r.failure);
+		expect([r.teeth, r.missing]).toEqual([36, 1]);
+	});
+
+	it('ends, and still reads 36-1, when short unread stretches sit between teeth and spaces (a bevelled flank on every tooth)', () => {
+		// The clean-up once flipped such a stretch to its own state and never ended.
+		const s = wheel(36, 1);
+		const p = 2048 / 36;
+		for (let pos = 0; pos < 35; pos++) {
+			const edge = Math.round(pos * p + 0.5 * p);
+			for (let d = 0; d < 3; d++) s[edge + d] = NaN;
+		}
+		const r = readProfile(s);
+		if ('failure' in r) throw new Error(r.failure);
+		expect([r.teeth, r.missing]).toEqual([36, 1]);
+	});
+
+	it("reads 30-2 when a finger covers the teeth from the middle of the first tooth after the gap, from that tooth's flank beside the gap", () => {
+		// Positions 28 and 29 missing: the gap ends where tooth 0 begins (sample 0); the cover runs
+		// from half-way across tooth 0 to past tooth 2, so the gap's far side is only that tooth's flank.
+		const n = 2048;
+		const p = n / 30;
+		const s = wheel(30, 2, n);
+		for (let i = Math.round(p / 4); i < Math.round(2.7 * p); i++) s[i] = NaN;
+		const r = readProfile(s);
+		if ('failure' in r) throw new Error(r.failure);
+		expect([r.teeth, r.missing]).toEqual([30, 2]);
+		expect(r.unseen).toHaveLength(1);
+		// The cut tooth's middle from its flank and a whole tooth's width: a quarter pitch in.
+		const first = r.seen.find((t) => t.position === 0)!;
+		expect((first.phi * n) / (2 * Math.PI)).toBeCloseTo(p / 4, -1);
+	});
+
+	it('reads two single gaps, but not as high: a tooth lost in glare makes a second gap as regular as a real one', () => {
+		const n = 2048;
+		const p = n / 36;
+		// A 36-1 drawing with tooth 17 taken out too: gaps after positions 16 and 34.
+		const s = wheel(36, 1, n).map((v, i) => (Math.floor(i / p) === 17 ? 0 : v));
+		const r = readProfile(s);
+		if ('failure' in r) throw new Error(r.failure);
+		expect([r.teeth, r.missing, r.gaps.length]).toEqual([36, 2, 2]);
+		expect(r.confidence).toBeLessThan(HIGH_CONFIDENCE);
+		// The same drawing with one gap is read as high: the second gap is what lowers it.
+		const one = readProfile(wheel(36, 1, n));
+		if ('failure' in one) throw new Error(one.failure);
+		expect(one.confidence).toBeGreaterThanOrEqual(HIGH_CONFIDENCE);
+	});
+
+	it('reads 60-2 when a soft shadow lifts the spaces to 0.7 and the teeth read 1', () => {
+		const s = wheel(60, 2, 2048, 0.5, 0.7, 1);
+		const r = readProfile(s);
+		if ('failure' in r) throw new Error(r.failure);
+		expect([r.teeth, r.missing]).toEqual([60, 2]);
+	});
+});
+
+describe('localLevels', () => {
+	it('sits half-way between the nearby teeth and spaces, and at 0.5 inside a long flat stretch', () => {
+		const lifted = localLevels(wheel(60, 2, 2048, 0.5, 0.7, 1));
+		expect(lifted[100]).toBeCloseTo(0.85, 5);
+		const flat = localLevels(new Float64Array(2048).fill(1));
+		expect(flat[0]).toBe(0.5);
+	});
+});
