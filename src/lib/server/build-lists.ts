@@ -1,4 +1,5 @@
 import { and, desc, eq, inArray, sql } from 'drizzle-orm';
+import type { AnyPgColumn } from 'drizzle-orm/pg-core';
 import type { Queryable } from './db';
 import { activity, cuttingPackage, degreeTape, signalCheck, tdcRecord, user, wheelPhoto, wheelRevision } from './db/schema';
 import { cursorAt, olderThan, pageOf, type Page, type PageAsk } from './keyset';
@@ -8,6 +9,17 @@ import { photoColumns } from './photos/store';
 // show, and what the list routes (`…/photos?cursor=`, `…/activity?cursor=`, …) page through.
 // Every query filters on build_id and orders by (created_at desc, id desc), the order of the
 // indexes on each table, and asks one row more than it answers to know whether there is a next page.
+
+/** The columns every build list pages by. */
+interface Listed {
+	buildId: AnyPgColumn;
+	createdAt: AnyPgColumn;
+	id: AnyPgColumn;
+}
+
+/** The build's rows after the cursor; with newestFirst, the order of each list's index. */
+const onPage = (t: Listed, buildId: string, ask: PageAsk) => and(eq(t.buildId, buildId), olderThan(t.createdAt, t.id, ask.cursor));
+const newestFirst = (t: Listed) => [desc(t.createdAt), desc(t.id)] as const;
 
 /** Rows per page: the page shows fewer than the API answers, since each row there is a card. */
 export const pageSize = { page: 20, api: 50 } as const;
@@ -20,8 +32,8 @@ export async function photoPage(database: Queryable, buildId: string, ask: PageA
 		.select({ ...photoColumns, cursorAt: cursorAt(wheelPhoto.createdAt) })
 		.from(wheelPhoto)
 		.leftJoin(user, eq(user.id, wheelPhoto.uploadedBy))
-		.where(and(eq(wheelPhoto.buildId, buildId), olderThan(wheelPhoto.createdAt, wheelPhoto.id, ask.cursor)))
-		.orderBy(desc(wheelPhoto.createdAt), desc(wheelPhoto.id))
+		.where(onPage(wheelPhoto, buildId, ask))
+		.orderBy(...newestFirst(wheelPhoto))
 		.limit(ask.limit + 1);
 	return pageOf(rows, ask.limit);
 }
@@ -39,8 +51,8 @@ export async function tdcRecordPage(database: Queryable, buildId: string, ask: P
 		})
 		.from(tdcRecord)
 		.leftJoin(user, eq(user.id, tdcRecord.authorId))
-		.where(and(eq(tdcRecord.buildId, buildId), olderThan(tdcRecord.createdAt, tdcRecord.id, ask.cursor)))
-		.orderBy(desc(tdcRecord.createdAt), desc(tdcRecord.id))
+		.where(onPage(tdcRecord, buildId, ask))
+		.orderBy(...newestFirst(tdcRecord))
 		.limit(ask.limit + 1);
 	return pageOf(rows, ask.limit);
 }
@@ -57,8 +69,8 @@ export async function tapePage(database: Queryable, buildId: string, ask: PageAs
 		})
 		.from(degreeTape)
 		.leftJoin(user, eq(user.id, degreeTape.authorId))
-		.where(and(eq(degreeTape.buildId, buildId), olderThan(degreeTape.createdAt, degreeTape.id, ask.cursor)))
-		.orderBy(desc(degreeTape.createdAt), desc(degreeTape.id))
+		.where(onPage(degreeTape, buildId, ask))
+		.orderBy(...newestFirst(degreeTape))
 		.limit(ask.limit + 1);
 	return pageOf(rows, ask.limit);
 }
@@ -76,8 +88,8 @@ export async function signalCheckPage(database: Queryable, buildId: string, ask:
 		})
 		.from(signalCheck)
 		.leftJoin(user, eq(user.id, signalCheck.authorId))
-		.where(and(eq(signalCheck.buildId, buildId), olderThan(signalCheck.createdAt, signalCheck.id, ask.cursor)))
-		.orderBy(desc(signalCheck.createdAt), desc(signalCheck.id))
+		.where(onPage(signalCheck, buildId, ask))
+		.orderBy(...newestFirst(signalCheck))
 		.limit(ask.limit + 1);
 	return pageOf(rows, ask.limit);
 }
@@ -96,8 +108,8 @@ export async function cuttingPackagePage(database: Queryable, buildId: string, a
 		})
 		.from(cuttingPackage)
 		.leftJoin(user, eq(user.id, cuttingPackage.sentBy))
-		.where(and(eq(cuttingPackage.buildId, buildId), olderThan(cuttingPackage.createdAt, cuttingPackage.id, ask.cursor)))
-		.orderBy(desc(cuttingPackage.createdAt), desc(cuttingPackage.id))
+		.where(onPage(cuttingPackage, buildId, ask))
+		.orderBy(...newestFirst(cuttingPackage))
 		.limit(ask.limit + 1);
 	return pageOf(rows, ask.limit);
 }
@@ -114,8 +126,8 @@ export async function activityPage(database: Queryable, buildId: string, ask: Pa
 		})
 		.from(activity)
 		.leftJoin(user, eq(user.id, activity.actorId))
-		.where(and(eq(activity.buildId, buildId), olderThan(activity.createdAt, activity.id, ask.cursor)))
-		.orderBy(desc(activity.createdAt), desc(activity.id))
+		.where(onPage(activity, buildId, ask))
+		.orderBy(...newestFirst(activity))
 		.limit(ask.limit + 1);
 	return pageOf(rows, ask.limit);
 }
