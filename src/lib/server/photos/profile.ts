@@ -275,6 +275,9 @@ export function readProfile(s: Float64Array): ProfileReading | ProfileFailure {
 	}
 	const gaps = gapsAt.map((g) => ({ first: pos[g.i]! + 1, count: g.k - 1 })).sort((a, b) => a.first - b.first);
 	const missing = gaps.reduce((a, g) => a + g.count, 0);
+	// Fewer than half the wheel's teeth seen: the spacings of a part of the ring agree with more
+	// than one N (17 teeth of a 36-1 read as 37-1 through a finger and a flash's glare).
+	if (teethRuns.length < 0.5 * (N - missing)) return { failure: 'unseen' };
 	const a = teethRuns[main.i]!;
 	const mid = centre(a) + gapsAfter[main.i]! / 2;
 	const toPhi = (x: number) => (2 * Math.PI * (((x % n) + n) % n)) / n;
@@ -297,7 +300,10 @@ export function readProfile(s: Float64Array): ProfileReading | ProfileFailure {
 		levels: clamp01((separation - 0.25) / 0.35),
 		cycles: strongestHarmonic(s, 6, Math.min(200, Math.floor(n / 8))) === N ? 1 : 0.5,
 		sum: best.sumOk ? 1 : 0.3,
-		read: clamp01(1 - unseenLen / n / 0.35),
+		// How much of the ring was read, in teeth: a tooth beside a stretch not read takes its
+		// spaces into that stretch, so the teeth not seen can far outnumber the angles not read (a
+		// 36-1 read as 37-1 from 17 teeth with a quarter of the ring not read).
+		read: clamp01(1 - Math.max(unseenLen / n, 1 - teethRuns.length / (N - missing)) / 0.35),
 		// Most wheels have one gap; a tooth lost in glare or shadow reads as a second one, as regular
 		// as a real one: a reading with more gaps is not high, whatever else it shows.
 		gaps: gaps.length > 1 ? 0.7 : 1,
