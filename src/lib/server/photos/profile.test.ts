@@ -94,4 +94,18 @@ describe('localLevels', () => {
 		const flat = localLevels(new Float64Array(2048).fill(1));
 		expect(flat[0]).toBe(0.5);
 	});
+
+	it('stays half-way between teeth and spaces when a thin dark line runs along one flank of every tooth (a flash on a chamfer)', () => {
+		// Drawn: spaces 0.3, teeth 0.9, two samples at -0.5 just before each tooth's flank; half-way
+		// between 0.3 and 0.9 is 0.6, by the drawing. Half-way to the lines' -0.5 (0.2) splits the spaces.
+		const n = 2048;
+		const p = n / 36;
+		const s = wheel(36, 1, n, 0.5, 0.3, 0.9);
+		for (let pos = 0; pos < 35; pos++) for (const d of [1, 2]) s[(Math.round(pos * p) - d + n) % n] = -0.5;
+		const level = localLevels(s);
+		for (const i of [100, 700, 1500]) expect(Math.abs(level[i]! - 0.6)).toBeLessThan(0.1);
+		const r = readProfile(s);
+		if ('failure' in r) throw new Error(r.failure);
+		expect([r.teeth, r.missing]).toEqual([36, 1]);
+	});
 });
