@@ -98,6 +98,7 @@ describe('localLevels', () => {
 	it('stays half-way between teeth and spaces when a thin dark line runs along one flank of every tooth (a flash on a chamfer)', () => {
 		// Drawn: spaces 0.3, teeth 0.9, two samples at -0.5 just before each tooth's flank; half-way
 		// between 0.3 and 0.9 is 0.6, by the drawing. Half-way to the lines' -0.5 (0.2) splits the spaces.
+		// The level may lean to the teeth a little, not by a tenth of a tooth's height over the spaces.
 		const n = 2048;
 		const p = n / 36;
 		const s = wheel(36, 1, n, 0.5, 0.3, 0.9);
