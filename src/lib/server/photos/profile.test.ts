@@ -33,6 +33,21 @@ describe('readProfile', () => {
 		expect([r.teeth, r.missing]).toEqual([36, 1]);
 	});
 
+	it('refuses a 36-1 seen by fewer than half its teeth, though a third of the ring was read as spaces and not as unknown', () => {
+		// Drawn: teeth at positions 0..11 but 6 (the gap), not read from 11.75 to 24.25 pitches (a
+		// finger, just under the 35 % of the ring that refuses on its own), spaces from there to
+		// position 30 (shadow), teeth 30..35: 17 of 35 teeth seen, under half. Before this rule it read.
+		const n = 3600;
+		const p = n / 36;
+		const s = wheel(36, 1, n).map((v, i) => {
+			const pos = Math.floor(i / p);
+			if (pos === 6) return 0;
+			if (i >= 11.75 * p && i < 24.25 * p) return NaN;
+			return pos >= 24 && pos < 30 ? 0 : pos === 35 ? (i - pos * p < 0.5 * p ? 1 : 0) : v;
+		});
+		expect(readProfile(s)).toEqual({ failure: 'unseen' });
+	});
+
 	it("reads 30-2 when a finger covers the teeth from the middle of the first tooth after the gap, from that tooth's flank beside the gap", () => {
 		// Positions 28 and 29 missing: the gap ends where tooth 0 begins (sample 0); the cover runs
 		// from half-way across tooth 0 to past tooth 2, so the gap's far side is only that tooth's flank.
@@ -78,5 +93,20 @@ describe('localLevels', () => {
 		expect(lifted[100]).toBeCloseTo(0.85, 5);
 		const flat = localLevels(new Float64Array(2048).fill(1));
 		expect(flat[0]).toBe(0.5);
+	});
+
+	it('stays half-way between teeth and spaces when a thin dark line runs along one flank of every tooth (a flash on a chamfer)', () => {
+		// Drawn: spaces 0.3, teeth 0.9, two samples at -0.5 just before each tooth's flank; half-way
+		// between 0.3 and 0.9 is 0.6, by the drawing. Half-way to the lines' -0.5 (0.2) splits the spaces.
+		// The level may lean to the teeth a little, not by a tenth of a tooth's height over the spaces.
+		const n = 2048;
+		const p = n / 36;
+		const s = wheel(36, 1, n, 0.5, 0.3, 0.9);
+		for (let pos = 0; pos < 35; pos++) for (const d of [1, 2]) s[(Math.round(pos * p) - d + n) % n] = -0.5;
+		const level = localLevels(s);
+		for (const i of [100, 700, 1500]) expect(Math.abs(level[i]! - 0.6)).toBeLessThan(0.1);
+		const r = readProfile(s);
+		if ('failure' in r) throw new Error(r.failure);
+		expect([r.teeth, r.missing]).toEqual([36, 1]);
 	});
 });
