@@ -268,6 +268,24 @@ export function readEdgeLog(log: EdgeLog, design?: EdgeLogDesign): EdgeLogReadin
 		notes.push('No space stands out as a gap: a wheel without one, or a log shorter than a turn.');
 		return finish(base);
 	}
+	// A long space half-way between the gap and the gap with a dropped edge beside it is settled by
+	// the other gaps of the log rather than by rounding: on a wheel of few teeth a swing moves every
+	// gap off a whole count (8-3 at 18 %: the gaps read 4.26 spaces, one beside a dropped edge 4.51;
+	// 8-4 at 16 %: 4.55, and one with a dropped edge 5.49). An N-1 gap is as long as a dropped edge
+	// and is left to the turn to tell apart, below.
+	const gapRatios: number[] = [];
+	for (let j = 0; j < m; j++) if (pitches[j] === gapPitches) gapRatios.push(sp[j]! / ref[j]!);
+	gapRatios.sort((x, y) => x - y);
+	const typicalGap = gapRatios[gapRatios.length >> 1]!;
+	for (let j = 0; gapPitches >= 3 && j < m; j++) {
+		const ratio = sp[j]! / ref[j]!;
+		const below = Math.floor(ratio);
+		if (below < gapPitches || below > gapPitches + 1 || Math.abs(ratio - below - 0.5) > clearly) continue;
+		// Of the two counts, the one whose length at the gaps' pace is nearer.
+		const atGapPace = (count: number) => Math.abs(ratio - (typicalGap * count) / gapPitches);
+		pitches[j] = atGapPace(below) <= atGapPace(below + 1) ? below : below + 1;
+	}
+	for (let j = 0; j < m; j++) at[j + 1] = at[j]! + pitches[j]!;
 	const starts: number[] = [];
 	for (let j = 0; j < m; j++) if (pitches[j] === gapPitches) starts.push(at[j]!);
 	// ... and N: of the distances between them, the one whose turns explain the long spaces best.
