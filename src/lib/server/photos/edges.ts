@@ -6,6 +6,7 @@
 import { conicEllipse, ellipseError, fitConic, type Conic, type Ellipse } from './conic';
 import { solve, type Pt } from './fit';
 import { median, type Grey } from './ring';
+import { sampleInto } from './sample';
 
 export interface EdgePoint extends Pt {
 	ray: number;
@@ -16,7 +17,7 @@ const RAYS = 480;
 
 /** Colour gradient maxima along rays from the centre, radii from..to px: at most three a ray. */
 export function rayEdges(img: Grey, centre: Pt, from: number, to: number): EdgePoint[] {
-	const { data, width: w, height: h, channels: ch } = img;
+	const ch = img.channels;
 	const steps = Math.max(8, Math.ceil(to - from));
 	const col = new Float32Array((steps + 1) * ch);
 	const grad = new Float32Array(steps + 1);
@@ -26,22 +27,7 @@ export function rayEdges(img: Grey, centre: Pt, from: number, to: number): EdgeP
 		const [dx, dy] = [Math.cos(a), -Math.sin(a)];
 		for (let s = 0; s <= steps; s++) {
 			const r = from + ((to - from) * s) / steps;
-			const x = centre.x + r * dx;
-			const y = centre.y + r * dy;
-			if (!(x >= 0 && y >= 0 && x <= w - 1 && y <= h - 1)) {
-				for (let n = 0; n < ch; n++) col[s * ch + n] = NaN;
-				continue;
-			}
-			const x0 = Math.min(Math.floor(x), w - 2);
-			const y0 = Math.min(Math.floor(y), h - 2);
-			const fx = x - x0;
-			const fy = y - y0;
-			for (let n = 0; n < ch; n++) {
-				const p = (y0 * w + x0) * ch + n;
-				const top = data[p]! + fx * (data[p + ch]! - data[p]!);
-				const q = p + w * ch;
-				col[s * ch + n] = top + fy * (data[q]! + fx * (data[q + ch]! - data[q]!) - top);
-			}
+			sampleInto(img, centre.x + r * dx, centre.y + r * dy, col, s * ch);
 		}
 		// Gradient over all channels across two samples each side (light smoothing against noise).
 		let max = 0;

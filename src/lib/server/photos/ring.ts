@@ -5,6 +5,7 @@
 // wheel's own face just inside the teeth and the background just outside, so uneven light reads
 // the same: t = 0 background, t = 1 metal.
 import type { Homography } from './plane';
+import { sampleInto } from './sample';
 
 /** A decoded image: 1 (grey) or 3 (RGB) channels, interleaved. */
 export interface Grey {
@@ -25,7 +26,7 @@ export interface Polar {
 /** Samples the image on na angles x k radii of the unit frame, bilinear, every channel. */
 export function samplePolar(img: Grey, h: Homography, na: number, rhoFrom: number, rhoTo: number, k: number): Polar {
 	const radii = new Float64Array(k).map((_, j) => rhoFrom + ((rhoTo - rhoFrom) * j) / (k - 1));
-	const { data, width: w, height: hh, channels: ch } = img;
+	const ch = img.channels;
 	const values = new Float32Array(na * k * ch);
 	for (let i = 0; i < na; i++) {
 		const phi = (2 * Math.PI * i) / na;
@@ -35,24 +36,7 @@ export function samplePolar(img: Grey, h: Homography, na: number, rhoFrom: numbe
 			const u = radii[j]! * c;
 			const v = radii[j]! * s;
 			const den = h[6] * u + h[7] * v + h[8];
-			const x = (h[0] * u + h[1] * v + h[2]) / den;
-			const y = (h[3] * u + h[4] * v + h[5]) / den;
-			const at = (i * k + j) * ch;
-			if (!(x >= 0 && y >= 0 && x <= w - 1 && y <= hh - 1)) {
-				for (let n = 0; n < ch; n++) values[at + n] = NaN;
-				continue;
-			}
-			const x0 = Math.min(Math.floor(x), w - 2);
-			const y0 = Math.min(Math.floor(y), hh - 2);
-			const fx = x - x0;
-			const fy = y - y0;
-			for (let n = 0; n < ch; n++) {
-				const p = (y0 * w + x0) * ch + n;
-				const top = data[p]! + fx * (data[p + ch]! - data[p]!);
-				const q = p + w * ch;
-				const bottom = data[q]! + fx * (data[q + ch]! - data[q]!);
-				values[at + n] = top + fy * (bottom - top);
-			}
+			sampleInto(img, (h[0] * u + h[1] * v + h[2]) / den, (h[3] * u + h[4] * v + h[5]) / den, values, (i * k + j) * ch);
 		}
 	}
 	return { na, radii, values, channels: ch };
