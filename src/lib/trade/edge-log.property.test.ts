@@ -88,8 +88,44 @@ describe('readEdgeLog over random valid wheels (fast-check)', () => {
 				// Found by this property: a gap beside a dropped edge (8-3) or with one (8-4) half-way
 				// between two counts of spaces, settled by the log's other gaps.
 				examples: [
-					[{ run: { rpm: 100, turns: 7, swingPct: 17.68, swingOrder: 1, swingPhaseDeg: 0, jitter: 0, seed: 1, teeth: 8, missing: 3, startPosition: 0, drop: [8], double: [] }, unit: 'us' }],
-					[{ run: { rpm: 1778, turns: 7, swingPct: 16, swingOrder: 1, swingPhaseDeg: 146, jitter: 0, seed: 2, teeth: 8, missing: 4, startPosition: 0, drop: [8], double: [] }, unit: 'us' }]
+					[
+						{
+							run: {
+								rpm: 100,
+								turns: 7,
+								swingPct: 17.68,
+								swingOrder: 1,
+								swingPhaseDeg: 0,
+								jitter: 0,
+								seed: 1,
+								teeth: 8,
+								missing: 3,
+								startPosition: 0,
+								drop: [8],
+								double: []
+							},
+							unit: 'us'
+						}
+					],
+					[
+						{
+							run: {
+								rpm: 1778,
+								turns: 7,
+								swingPct: 16,
+								swingOrder: 1,
+								swingPhaseDeg: 146,
+								jitter: 0,
+								seed: 2,
+								teeth: 8,
+								missing: 4,
+								startPosition: 0,
+								drop: [8],
+								double: []
+							},
+							unit: 'us'
+						}
+					]
 				]
 			}
 		);
