@@ -124,28 +124,22 @@ export async function seedScale(database: Database, userId: string, log: (line: 
 					'bench-scale/t-' || gen_random_uuid(), '${userId}'`;
 				const into =
 					'insert into wheel_photo (build_id, name, mime, width, height, size_bytes, sha256, storage_key, thumbnail_key, uploaded_by)';
-				await run(
-					c,
-					'photos (big build)',
-					`${into} select b.id, ${photo} from bench_scale_n b, generate_series(1, ${s.onBigBuild}) i where b.n = 1`
-				);
-				await run(
-					c,
-					'photos (others)',
-					`${into} select b.id, ${photo} from generate_series(1, ${s.photos - s.onBigBuild}) i join bench_scale_n b on b.n = 4 + i % ${rest}`
-				);
+				// Each list: its share on the big build (n = 1), the rest spread over the others.
+				const spread = async (what: string, insert: string, values: string, total: number) => {
+					await run(
+						c,
+						`${what} (big build)`,
+						`${insert} select b.id, ${values} from bench_scale_n b, generate_series(1, ${s.onBigBuild}) i where b.n = 1`
+					);
+					await run(
+						c,
+						`${what} (others)`,
+						`${insert} select b.id, ${values} from generate_series(1, ${total - s.onBigBuild}) i join bench_scale_n b on b.n = 4 + i % ${rest}`
+					);
+				};
+				await spread('photos', into, photo, s.photos);
 				const tdc = `'Piston stop ' || i, jsonb_build_object('a', '16 BTDC', 'b', '13 ATDC', 'scale', 'signed'), '-1.5', '${userId}'`;
-				const tdcInto = 'insert into tdc_record (build_id, label, params, tdc_deg, author_id)';
-				await run(
-					c,
-					'TDC records (big build)',
-					`${tdcInto} select b.id, ${tdc} from bench_scale_n b, generate_series(1, ${s.onBigBuild}) i where b.n = 1`
-				);
-				await run(
-					c,
-					'TDC records (others)',
-					`${tdcInto} select b.id, ${tdc} from generate_series(1, ${s.tdcRecords - s.onBigBuild}) i join bench_scale_n b on b.n = 4 + i % ${rest}`
-				);
+				await spread('TDC records', 'insert into tdc_record (build_id, label, params, tdc_deg, author_id)', tdc, s.tdcRecords);
 			})()
 		]);
 		// Fresh statistics, as autovacuum would have them in a shop that grew over years.
