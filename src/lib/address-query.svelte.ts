@@ -1,3 +1,4 @@
+import { untrack } from 'svelte';
 import { replaceState } from '$app/navigation';
 import { page } from '$app/state';
 
@@ -25,5 +26,20 @@ export function keepQueryInAddress(query: () => string, leaveBare: (q: string) =
 			replaceState(url, page.state);
 		}, delayMs);
 		return () => clearTimeout(timer);
+	});
+}
+
+/**
+ * Calls `apply` with the page's loaded parameters whenever they change after it opened: a link to
+ * a tool from the tool itself (the navigation's) loads afresh rather than leaving the old numbers.
+ * Call during component initialisation.
+ */
+export function onParamsLoaded<T>(params: () => T, apply: (next: T) => void) {
+	let loaded = untrack(params);
+	$effect.pre(() => {
+		const next = params();
+		if (next === loaded) return;
+		loaded = next;
+		untrack(() => apply(next));
 	});
 }
