@@ -216,6 +216,34 @@ export function readProfile(s: Float64Array): ProfileReading | ProfileFailure {
 	const faint = (r: Run) => r.state === 1 && r.len < 1.2 * toothLen && meanOf(r) < spaceLevel + 0.6 * (toothLevel - spaceLevel);
 	const faintAt = runs.filter(faint).map((r) => r.start + r.len / 2);
 	if (faintAt.length) runs = join(runs.map((r) => (faint(r) ? { ...r, state: 0 as State } : r)));
+	// A cutting mat's grid line or a glint crossing a gap reads as a thin run of metal; a tooth, however
+	// the light falls on it, sits on the wheel's pitch. A run under 60 % of a tooth's width between two
+	// spaces, whose spacings to the teeth either side both fall well off whole pitches while the two
+	// together fall on one, is not a tooth: it reads as space and, like a faint run, keeps the reading
+	// from high (it might still be a broken tooth).
+	const centreOf = (r: Run) => r.start + r.len / 2;
+	const spanOf = (a: Run, b: Run) => (((centreOf(b) - centreOf(a)) % n) + n) % n;
+	const around = (x: number, d: number) => runs[(x + d + runs.length) % runs.length]!;
+	const pitch0 = medianOf(
+		runs.flatMap((r, x) => (r.state === 1 && around(x, 1).state === 0 && around(x, 2).state === 1 ? [spanOf(r, around(x, 2))] : []))
+	);
+	const offPitch = (v: number) => Math.abs(v - Math.round(v));
+	const offGrid = (r: Run, x: number) => {
+		if (r.state !== 1 || !(r.len < 0.6 * toothLen) || runs.length < 8) return false;
+		if (around(x, -1).state !== 0 || around(x, 1).state !== 0 || around(x, -2).state !== 1 || around(x, 2).state !== 1) return false;
+		const [da, db] = [spanOf(around(x, -2), r) / pitch0, spanOf(r, around(x, 2)) / pitch0];
+		return offPitch(da) + offPitch(db) > 0.5 && offPitch(da + db) < 0.2;
+	};
+	const offGridAt = new Set(runs.filter(offGrid));
+	if (offGridAt.size) {
+		for (const r of offGridAt) faintAt.push(centreOf(r));
+		runs = join(runs.map((r) => (offGridAt.has(r) ? { ...r, state: 0 as State } : r)));
+	}
+	// A run of metal wider than a pitch and far wider than the teeth is no single tooth: a bracket
+	// or a finger of the metal's shade over the ring, or teeth run together in glare. What lies
+	// there is not known.
+	const wideAt = new Set(runs.filter((r) => r.state === 1 && r.len > Math.max(1.6 * toothLen, 0.9 * pitch0)));
+	if (wideAt.size) runs = join(runs.map((r) => (wideAt.has(r) ? { ...r, state: -1 as State } : r)));
 	// A tooth cut by a stretch not read (a finger's edge, its shadow) still shows the flank on its
 	// read side: its middle lies half a tooth's width from that flank, the width the whole teeth
 	// have. Cut on both sides, or showing more or much less than a tooth, it joins the stretch.
