@@ -1,7 +1,8 @@
 // Photo reading: from a photo of a real trigger wheel and the user's taps (centre, tooth tips) to
 // its N-M pattern. The photo is shrunk on decode so the wheel is about 900 px across (plenty for 72
 // positions) and cropped round it, in colour. The tip ellipse comes from the wheel's own edges
-// near the taps (edges.ts), or from five or more tapped tips; the wheel's plane is rectified from
+// near the taps (edges.ts), or from five or more tapped tips, and where no reading is high it is
+// sharpened from the ring of teeth it lays over (outline.ts); the wheel's plane is rectified from
 // it with perspective (plane.ts: two possible tilts, the one that reads the more regular teeth
 // wins); the teeth are read round the rectified ring (ring.ts, profile.ts), stretches hidden by a
 // finger or a bracket left out and named.
@@ -11,6 +12,7 @@ import { conicEllipse, fitConic, type Conic, type Ellipse } from './conic';
 import type { Pt } from './fit';
 import { fitTipEllipse, rayEdges } from './edges';
 import { affinePose, circlePoses, mapPoint, type Camera, type Homography } from './plane';
+import { outlineFromRing } from './outline';
 import { readProfile, type ProfileReading } from './profile';
 import { bandMean, normalise, projectColour, radialMean, samplePolar, type Grey } from './ring';
 
@@ -313,6 +315,18 @@ async function read(image: Buffer, taps: PhotoTaps, started: number, trace?: Tra
 	const alternatives: [Conic, Ellipse][] = [];
 	if (ellipse === edgeFit?.ellipse)
 		for (const alt of edgeFit.alternatives ?? []) if (alt.support >= 0.12) alternatives.push([alt.conic, alt.ellipse]);
+	// The outline sharpened from the ring it lays over (twice: the first pass straightens most of
+	// it), read first among them: taps 15 px off or a single tapped tip leave the fit a few per cent
+	// off, enough to lose the teeth, and the ring itself shows where the tips are.
+	const sharpen = (el: Ellipse): [Conic, Ellipse] | null => {
+		let sharpened: [Conic, Ellipse] | null = null;
+		for (let pass = 0, from = el; pass < 2; pass++) {
+			const next = outlineFromRing(img, affinePose(from.cx, from.cy, from.a, from.b, from.angleDeg), from.a);
+			if (!next) break;
+			[sharpened, from] = [[next.conic, next.ellipse], next.ellipse];
+		}
+		return sharpened;
+	};
 	const posesOf = ([q, el]: [Conic, Ellipse]) => {
 		const affine = affinePose(el.cx, el.cy, el.a, el.b, el.angleDeg);
 		// Both tilts even on a nearly round outline: a tilt flattens the ellipse only by its cosine
@@ -322,11 +336,14 @@ async function read(image: Buffer, taps: PhotoTaps, started: number, trace?: Tra
 	};
 	const poses: { pose: Homography; el: Ellipse }[] = outlines.flatMap(posesOf);
 	const coarse = poses.map(({ pose, el }) => ({ el, ring: readRing(img, pose, el.a, 1024, trace) }));
-	if (!coarse.some((c) => 'profile' in c.ring && c.ring.profile.confidence >= HIGH_CONFIDENCE))
+	if (!coarse.some((c) => 'profile' in c.ring && c.ring.profile.confidence >= HIGH_CONFIDENCE)) {
+		const sharpened = sharpen(ellipse);
+		if (sharpened) alternatives.unshift(sharpened);
 		for (const p of alternatives.flatMap(posesOf)) {
 			poses.push(p);
 			coarse.push({ el: p.el, ring: readRing(img, p.pose, p.el.a, 1024, trace) });
 		}
+	}
 	const pick = coarse.reduce<{ el: Ellipse; ring: RingReading } | null>(
 		(x, y) => ('profile' in y.ring && (!x || y.ring.profile.confidence > x.ring.profile.confidence) ? { el: y.el, ring: y.ring } : x),
 		null
@@ -346,8 +363,9 @@ async function read(image: Buffer, taps: PhotoTaps, started: number, trace?: Tra
 	const shown = storedEllipse(pick?.el ?? ellipse);
 	// A reading too irregular to answer says why the others failed, when one did (several outlines
 	// are read, and one of them can find some odd pattern on a wheel with no gap at all). Too
-	// irregular: under 0.3. On the calibration images (c01..c16, three tap sets) every reading
-	// under 0.5 was wrong (0.16, 0.37) and the lowest right one 0.51; 0.3 keeps room for right ones.
+	// irregular: under 0.3. On the calibration images (c01..c16, three tap sets), before the outline
+	// was sharpened from the ring, every reading under 0.5 was wrong (0.16, 0.37) and the lowest
+	// right one 0.51; 0.3 keeps room for right ones.
 	if (!best || best.profile.confidence < ANSWER_FLOOR || best.profile.missing * 2 > best.profile.teeth) {
 		const kinds = new Set(readings.map((r) => ('failure' in r ? r.failure : '')));
 		if (kinds.has('contrast'))
