@@ -105,6 +105,13 @@ describe('readProfile', () => {
 		expect(u.to).toBeGreaterThanOrEqual((2 * Math.PI * 14.5 * p) / n);
 	});
 
+	it('reads a 4-1 from its three teeth, but never as high', () => {
+		const r = readProfile(wheel(4, 1, 2048, 0.3));
+		if ('failure' in r) throw new Error(r.failure);
+		expect([r.teeth, r.missing, r.gaps]).toEqual([4, 1, [{ first: 3, count: 1 }]]);
+		expect(r.confidence).toBeLessThan(HIGH_CONFIDENCE);
+	});
+
 	it('reads 60-2 when a soft shadow lifts the spaces to 0.7 and the teeth read 1', () => {
 		const s = wheel(60, 2, 2048, 0.5, 0.7, 1);
 		const r = readProfile(s);

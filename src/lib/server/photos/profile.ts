@@ -268,7 +268,8 @@ export function readProfile(s: Float64Array): ProfileReading | ProfileFailure {
 	const unseenLen = runs.filter((r) => r.state === -1).reduce((a, r) => a + r.len, 0);
 	if (unseenLen > 0.35 * n) return { failure: 'unseen' };
 	const teethRuns = runs.filter((r) => r.state === 1);
-	if (teethRuns.length < 5) return { failure: 'few' };
+	// Three teeth at least: a 4-1 has no more (its reading is never high, see \`few\` below).
+	if (teethRuns.length < 3) return { failure: 'few' };
 	const centre = (r: Run) => cut.get(r) ?? r.start + r.len / 2;
 	const idxOf = new Map(runs.map((r, i) => [r, i]));
 	const gapsAfter = teethRuns.map((r, i) => {
@@ -282,11 +283,11 @@ export function readProfile(s: Float64Array): ProfileReading | ProfileFailure {
 		return true;
 	});
 	const knownGaps = gapsAfter.filter((_, i) => known[i]);
-	if (knownGaps.length < 4) return { failure: 'few' };
+	if (knownGaps.length < Math.min(4, teethRuns.length)) return { failure: 'few' };
 	const med = medianOf(knownGaps);
 	const guess = Math.round(n / med);
 	let best: { teeth: number; ks: number[]; err: number; drift: number; sumOk: boolean } | null = null;
-	for (let N = Math.max(6, guess - 2); N <= guess + 2; N++) {
+	for (let N = Math.max(3, guess - 2); N <= guess + 2; N++) {
 		const p = n / N;
 		const ks = gapsAfter.map((g) => Math.max(1, Math.round(g / p)));
 		const sumOk = ks.reduce((a, b) => a + b, 0) === N;
@@ -339,7 +340,7 @@ export function readProfile(s: Float64Array): ProfileReading | ProfileFailure {
 		drift: clamp01(1 - (best.drift - 0.25) / 0.35),
 		width: clamp01(1 - (sd / duty - 0.08) / 0.4),
 		levels: clamp01((separation - 0.25) / 0.35),
-		cycles: strongestHarmonic(s, 6, Math.min(200, Math.floor(n / 8))) === N ? 1 : 0.5,
+		cycles: strongestHarmonic(s, Math.min(6, N), Math.min(200, Math.floor(n / 8))) === N ? 1 : 0.5,
 		sum: best.sumOk ? 1 : 0.3,
 		// How much of the ring was read, in teeth: a tooth beside a stretch not read takes its
 		// spaces into that stretch, so the teeth not seen can far outnumber the angles not read (a
@@ -348,6 +349,9 @@ export function readProfile(s: Float64Array): ProfileReading | ProfileFailure {
 		// Most wheels have one gap; a tooth lost in glare or shadow reads as a second one, as regular
 		// as a real one: a reading with more gaps is not high, whatever else it shows.
 		gaps: gaps.length > 1 ? 0.7 : 1,
+		// Under five teeth (a 4-1 shows three), the spacings are too few to check one another the
+		// way a longer run of teeth does: any three runs a quarter turn apart read as a 4-1.
+		few: teethRuns.length < 5 ? 0.6 : 1,
 		faint: gapsAt.some((g) => {
 			const from = centre(teethRuns[g.i]!);
 			return faintAt.some((x) => (((x - from) % n) + n) % n < gapsAfter[g.i]!);
@@ -364,6 +368,7 @@ export function readProfile(s: Float64Array): ProfileReading | ProfileFailure {
 		factors.cycles *
 		factors.sum *
 		factors.gaps *
+		factors.few *
 		factors.faint *
 		(0.5 + 0.5 * factors.read);
 	const seen = teethRuns.map((r, i) => ({ phi: toPhi(centre(r)), position: pos[i]! }));
