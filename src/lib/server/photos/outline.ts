@@ -43,6 +43,7 @@ function firstDrop(ring: Ring): Float64Array {
 	return out;
 }
 
+/** The tip ellipse in image px from the ring laid by `pose`; null where the ring does not show tips and roots round most of it. */
 export function outlineFromRing(img: Grey, pose: Homography, radiusPx: number): { conic: Conic; ellipse: Ellipse } | null {
 	const na = 720;
 	const k = Math.max(32, Math.ceil(((TO - FROM) * radiusPx) / 1.5));
