@@ -11,7 +11,8 @@ export type ConfidenceWord = 'high' | 'medium' | 'low';
  * teeth (never high): c01..c16, the three tap sets, 48 readings, 41 answered, 38 right; the 3 wrong
  * (c06, 48-1 read as 50-1) all at 0.56; between 0.56 and 0.88 only the three 4-1 readings (0.60,
  * right); 34 at or above 0.85, all right. 0.85 stands. t01..t24 afterwards: 72 readings, 60
- * answered, all 60 right, 38 at or above 0.85.
+ * answered, all 60 right, 38 at or above 0.85. With the outline found from the ring where the
+ * edges and taps gave none (06:37 UTC): c01..c16 the same; t01..t24 62 answered, all right, 39 high.
  *
  * Before that (2026-12-03, 06:15 UTC), after
  * the reading read both tilts of a nearly round outline, took thin runs off the pitch for space and

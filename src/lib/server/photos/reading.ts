@@ -8,7 +8,7 @@
 // finger or a bracket left out and named.
 import sharp from 'sharp';
 import { confidenceWord, HIGH_CONFIDENCE, type ConfidenceWord } from '../../photo-confidence';
-import { conicEllipse, fitConic, type Conic, type Ellipse } from './conic';
+import { conicEllipse, ellipseError, fitConic, type Conic, type Ellipse } from './conic';
 import type { Pt } from './fit';
 import { fitTipEllipse, rayEdges } from './edges';
 import { affinePose, circlePoses, mapPoint, type Camera, type Homography } from './plane';
@@ -288,6 +288,26 @@ async function read(image: Buffer, taps: PhotoTaps, started: number, trace?: Tra
 	let ellipse: Ellipse | null = null;
 	if (edgeFit && edgeFit.support >= 0.12) [conic, ellipse] = [edgeFit.conic, edgeFit.ellipse];
 	else if (tapOk) [conic, ellipse] = [tapConic, tapEllipse];
+	else {
+		// No outline from the edges or the taps (a single tapped tip on a tilted wheel, a mat's lines
+		// crowding the edges): the ring laid round the edges' weak best, or round the circle through
+		// the taps, may still show where the tips are; an outline found there must pass by every tap.
+		for (const start of [edgeFit?.ellipse, { cx: centre.x, cy: centre.y, a: mean, b: mean, angleDeg: 0 }]) {
+			if (!start) continue;
+			let from = start;
+			let found: { conic: Conic; ellipse: Ellipse } | null = null;
+			for (let pass = 0; pass < 3; pass++) {
+				const next = outlineFromRing(img, affinePose(from.cx, from.cy, from.a, from.b, from.angleDeg), from.a);
+				if (!next) break;
+				[found, from] = [next, next.ellipse];
+			}
+			const el = found?.ellipse;
+			if (found && el && tips.every((t) => Math.abs(ellipseError(el, t)) <= tipTolerance)) {
+				[conic, ellipse] = [found.conic, el];
+				break;
+			}
+		}
+	}
 	const storedEllipse = (el: Ellipse): Ellipse => {
 		const c = toStored({ x: el.cx, y: el.cy });
 		return { cx: r1(c.x), cy: r1(c.y), a: r1(el.a / scale), b: r1(el.b / scale), angleDeg: r1(el.angleDeg) };
