@@ -4,7 +4,7 @@
 // the projection written here, not from plane.ts.
 import { describe, expect, it } from 'vitest';
 import { conicEllipse, ellipseConic, ellipseError, fitConic } from './conic';
-import { circlePoses, mapPoint, unmapPoint, type Camera } from './plane';
+import { affinePose, circlePoses, mapPoint, unmapPoint, type Camera } from './plane';
 
 const cam: Camera = { f: 3200, px: 2000, py: 1500 };
 
@@ -97,5 +97,30 @@ describe('circle pose', () => {
 			const d = (((ang[i]! - ang[i - 1]!) % (2 * Math.PI)) + 2 * Math.PI) % (2 * Math.PI);
 			expect(d).toBeCloseTo((2 * Math.PI) / 7, 6);
 		}
+	});
+
+	it('a 7° tilt leaves the ellipse over 0.985 round, yet only a circle pose keeps equal angles equal', () => {
+		// A phone shot: the wheel half the focal length across, a little off the image's middle.
+		const shot = project(7, 60, 4, [0.3, -0.2], 1);
+		const tips = Array.from({ length: 12 }, (_, i) => shot.at((2 * Math.PI * i) / 12));
+		const q = fitConic(tips)!;
+		const el = conicEllipse(q)!;
+		expect(el.b / el.a).toBeGreaterThan(0.985);
+		// Angles between neighbouring tips 30° apart in the plane, as each pose reads them.
+		const worst = (h: ReturnType<typeof affinePose>) => {
+			const ang = tips.map((p) => {
+				const u = unmapPoint(h, p);
+				return Math.atan2(u.y, u.x);
+			});
+			return Math.max(
+				...ang.map((a, i) => {
+					const d = (((ang[(i + 1) % ang.length]! - a) % (2 * Math.PI)) + 2 * Math.PI) % (2 * Math.PI);
+					return Math.abs((d * 180) / Math.PI - 30);
+				})
+			);
+		};
+		// The plain stretch: a 60-2's pitch is 6°, so half a degree off per 30° adds up round the ring.
+		expect(worst(affinePose(el.cx, el.cy, el.a, el.b, el.angleDeg))).toBeGreaterThan(0.5);
+		expect(Math.min(...circlePoses(q, cam).map(worst))).toBeLessThan(0.01);
 	});
 });

@@ -79,6 +79,39 @@ describe('readProfile', () => {
 		expect(one.confidence).toBeGreaterThanOrEqual(HIGH_CONFIDENCE);
 	});
 
+	it("reads 60-2, not as high, when a thin bright line crosses its gap off the pitch (a cutting mat's grid line)", () => {
+		// Drawn: the line is a fifth of a pitch wide, its middle 1.45 pitches after the last tooth's
+		// middle and 1.55 before the first's (teeth are half a pitch wide, middles a quarter pitch in).
+		const n = 2048;
+		const p = n / 60;
+		const s = wheel(60, 2, n).map((v, i) => (i >= 58.6 * p && i < 58.8 * p ? 1 : v));
+		const r = readProfile(s);
+		if ('failure' in r) throw new Error(r.failure);
+		expect([r.teeth, r.missing]).toEqual([60, 2]);
+		expect(r.confidence).toBeLessThan(HIGH_CONFIDENCE);
+	});
+
+	it("reads a run of metal four pitches wide (a bracket of the metal's shade over the teeth) as a stretch not seen", () => {
+		const n = 2048;
+		const p = n / 36;
+		const s = wheel(36, 1, n).map((v, i) => (i >= 10 * p && i < 14.6 * p ? 1 : v));
+		const r = readProfile(s);
+		if ('failure' in r) throw new Error(r.failure);
+		expect([r.teeth, r.missing]).toEqual([36, 1]);
+		expect(r.unseen).toHaveLength(1);
+		// The stretch not seen covers at least the drawn run, from position 10 to half-way across 14.
+		const u = r.unseen[0]!;
+		expect(u.from).toBeLessThanOrEqual((2 * Math.PI * 10 * p) / n + 1e-9);
+		expect(u.to).toBeGreaterThanOrEqual((2 * Math.PI * 14.5 * p) / n);
+	});
+
+	it('reads a 4-1 from its three teeth, but never as high', () => {
+		const r = readProfile(wheel(4, 1, 2048, 0.3));
+		if ('failure' in r) throw new Error(r.failure);
+		expect([r.teeth, r.missing, r.gaps]).toEqual([4, 1, [{ first: 3, count: 1 }]]);
+		expect(r.confidence).toBeLessThan(HIGH_CONFIDENCE);
+	});
+
 	it('reads 60-2 when a soft shadow lifts the spaces to 0.7 and the teeth read 1', () => {
 		const s = wheel(60, 2, 2048, 0.5, 0.7, 1);
 		const r = readProfile(s);

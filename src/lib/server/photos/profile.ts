@@ -216,6 +216,34 @@ export function readProfile(s: Float64Array): ProfileReading | ProfileFailure {
 	const faint = (r: Run) => r.state === 1 && r.len < 1.2 * toothLen && meanOf(r) < spaceLevel + 0.6 * (toothLevel - spaceLevel);
 	const faintAt = runs.filter(faint).map((r) => r.start + r.len / 2);
 	if (faintAt.length) runs = join(runs.map((r) => (faint(r) ? { ...r, state: 0 as State } : r)));
+	// A cutting mat's grid line or a glint crossing a gap reads as a thin run of metal; a tooth, however
+	// the light falls on it, sits on the wheel's pitch. A run under 60 % of a tooth's width between two
+	// spaces, whose spacings to the teeth either side both fall well off whole pitches while the two
+	// together fall on one, is not a tooth: it reads as space and, like a faint run, keeps the reading
+	// from high (it might still be a broken tooth).
+	const centreOf = (r: Run) => r.start + r.len / 2;
+	const spanOf = (a: Run, b: Run) => (((centreOf(b) - centreOf(a)) % n) + n) % n;
+	const around = (x: number, d: number) => runs[(x + d + runs.length) % runs.length]!;
+	const pitch0 = medianOf(
+		runs.flatMap((r, x) => (r.state === 1 && around(x, 1).state === 0 && around(x, 2).state === 1 ? [spanOf(r, around(x, 2))] : []))
+	);
+	const offPitch = (v: number) => Math.abs(v - Math.round(v));
+	const offGrid = (r: Run, x: number) => {
+		if (r.state !== 1 || !(r.len < 0.6 * toothLen) || runs.length < 8) return false;
+		if (around(x, -1).state !== 0 || around(x, 1).state !== 0 || around(x, -2).state !== 1 || around(x, 2).state !== 1) return false;
+		const [da, db] = [spanOf(around(x, -2), r) / pitch0, spanOf(r, around(x, 2)) / pitch0];
+		return offPitch(da) + offPitch(db) > 0.5 && offPitch(da + db) < 0.2;
+	};
+	const offGridAt = new Set(runs.filter(offGrid));
+	if (offGridAt.size) {
+		for (const r of offGridAt) faintAt.push(centreOf(r));
+		runs = join(runs.map((r) => (offGridAt.has(r) ? { ...r, state: 0 as State } : r)));
+	}
+	// A run of metal wider than a pitch and far wider than the teeth is no single tooth: a bracket
+	// or a finger of the metal's shade over the ring, or teeth run together in glare. What lies
+	// there is not known.
+	const wideAt = new Set(runs.filter((r) => r.state === 1 && r.len > Math.max(1.6 * toothLen, 0.9 * pitch0)));
+	if (wideAt.size) runs = join(runs.map((r) => (wideAt.has(r) ? { ...r, state: -1 as State } : r)));
 	// A tooth cut by a stretch not read (a finger's edge, its shadow) still shows the flank on its
 	// read side: its middle lies half a tooth's width from that flank, the width the whole teeth
 	// have. Cut on both sides, or showing more or much less than a tooth, it joins the stretch.
@@ -240,7 +268,8 @@ export function readProfile(s: Float64Array): ProfileReading | ProfileFailure {
 	const unseenLen = runs.filter((r) => r.state === -1).reduce((a, r) => a + r.len, 0);
 	if (unseenLen > 0.35 * n) return { failure: 'unseen' };
 	const teethRuns = runs.filter((r) => r.state === 1);
-	if (teethRuns.length < 5) return { failure: 'few' };
+	// Three teeth at least: a 4-1 has no more (its reading is never high, see \`few\` below).
+	if (teethRuns.length < 3) return { failure: 'few' };
 	const centre = (r: Run) => cut.get(r) ?? r.start + r.len / 2;
 	const idxOf = new Map(runs.map((r, i) => [r, i]));
 	const gapsAfter = teethRuns.map((r, i) => {
@@ -254,11 +283,11 @@ export function readProfile(s: Float64Array): ProfileReading | ProfileFailure {
 		return true;
 	});
 	const knownGaps = gapsAfter.filter((_, i) => known[i]);
-	if (knownGaps.length < 4) return { failure: 'few' };
+	if (knownGaps.length < Math.min(4, teethRuns.length)) return { failure: 'few' };
 	const med = medianOf(knownGaps);
 	const guess = Math.round(n / med);
 	let best: { teeth: number; ks: number[]; err: number; drift: number; sumOk: boolean } | null = null;
-	for (let N = Math.max(6, guess - 2); N <= guess + 2; N++) {
+	for (let N = Math.max(3, guess - 2); N <= guess + 2; N++) {
 		const p = n / N;
 		const ks = gapsAfter.map((g) => Math.max(1, Math.round(g / p)));
 		const sumOk = ks.reduce((a, b) => a + b, 0) === N;
@@ -311,7 +340,7 @@ export function readProfile(s: Float64Array): ProfileReading | ProfileFailure {
 		drift: clamp01(1 - (best.drift - 0.25) / 0.35),
 		width: clamp01(1 - (sd / duty - 0.08) / 0.4),
 		levels: clamp01((separation - 0.25) / 0.35),
-		cycles: strongestHarmonic(s, 6, Math.min(200, Math.floor(n / 8))) === N ? 1 : 0.5,
+		cycles: strongestHarmonic(s, Math.min(6, N), Math.min(200, Math.floor(n / 8))) === N ? 1 : 0.5,
 		sum: best.sumOk ? 1 : 0.3,
 		// How much of the ring was read, in teeth: a tooth beside a stretch not read takes its
 		// spaces into that stretch, so the teeth not seen can far outnumber the angles not read (a
@@ -320,6 +349,9 @@ export function readProfile(s: Float64Array): ProfileReading | ProfileFailure {
 		// Most wheels have one gap; a tooth lost in glare or shadow reads as a second one, as regular
 		// as a real one: a reading with more gaps is not high, whatever else it shows.
 		gaps: gaps.length > 1 ? 0.7 : 1,
+		// Under five teeth (a 4-1 shows three), the spacings are too few to check one another the
+		// way a longer run of teeth does: any three runs a quarter turn apart read as a 4-1.
+		few: teethRuns.length < 5 ? 0.6 : 1,
 		faint: gapsAt.some((g) => {
 			const from = centre(teethRuns[g.i]!);
 			return faintAt.some((x) => (((x - from) % n) + n) % n < gapsAfter[g.i]!);
@@ -336,6 +368,7 @@ export function readProfile(s: Float64Array): ProfileReading | ProfileFailure {
 		factors.cycles *
 		factors.sum *
 		factors.gaps *
+		factors.few *
 		factors.faint *
 		(0.5 + 0.5 * factors.read);
 	const seen = teethRuns.map((r, i) => ({ phi: toPhi(centre(r)), position: pos[i]! }));
