@@ -138,7 +138,8 @@ describe('dxfNumber', () => {
 			fc.property(fc.double({ min: -1e9, max: 1e9, noNaN: true }), (v) => {
 				expect(dxfNumber(v)).toBe(reference(v));
 			}),
-			{ numRuns: 20_000 }
+			// Found by this property: 16 digits of ten-millionths, where the double's shortest decimal drops one.
+			{ numRuns: 20_000, examples: [[-586831298.297162]] }
 		);
 		fc.assert(
 			fc.property(fc.double({ min: -1e-3, max: 1e-3, noNaN: true }), (v) => {

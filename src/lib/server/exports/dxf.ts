@@ -27,14 +27,16 @@ const lineTypes = [
 /**
  * A coordinate as makerjs's DXF writes it, String(makerjs.round(v)), without its cost: turning a
  * fraction into its shortest decimal is most of a DXF's time, and a rounded value's shortest
- * decimal is its whole ten-millionths with the point put in (exact below 2^53 of them, far past
- * any wheel). Values below 1e-6, which JavaScript writes with an exponent, go the long way.
+ * decimal is its whole ten-millionths with the point put in while there are at most 15 digits of
+ * them (a double keeps any 15; at 16, from 1e8 mm, the nearest double's shortest decimal may drop
+ * the last). Values past that, far past any wheel, and below 1e-6, which JavaScript writes with an
+ * exponent, go the long way.
  */
 export function dxfNumber(v: number): string {
 	if (v % 1 === 0) return String(v);
 	const q = Math.round((v + Number.EPSILON) * 1e7);
 	const a = q < 0 ? -q : q;
-	if (!(a >= 10 && a <= Number.MAX_SAFE_INTEGER)) return String(q / 1e7);
+	if (!(a >= 10 && a < 1e15)) return String(q / 1e7);
 	const whole = Math.floor(a / 1e7);
 	let f = a - whole * 1e7;
 	const text = q < 0 ? '-' + whole : '' + whole;
