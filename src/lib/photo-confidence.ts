@@ -13,6 +13,9 @@ export type ConfidenceWord = 'high' | 'medium' | 'low';
  * right); 34 at or above 0.85, all right. 0.85 stands. t01..t24 afterwards: 72 readings, 60
  * answered, all 60 right, 38 at or above 0.85. With the outline found from the ring where the
  * edges and taps gave none (06:37 UTC): c01..c16 the same; t01..t24 62 answered, all right, 39 high.
+ * With the teeth read from their shadows where nothing read by colour (07:00 UTC; such a reading is
+ * scaled by 0.8 and never reaches 0.85): c01..c16 unchanged (41 answered, 38 right, the 3 wrong at
+ * 0.56; 34 high, all right); t01..t24 63 answered, all right, 39 high. 0.85 stands.
  *
  * Before that (2026-12-03, 06:15 UTC), after
  * the reading read both tilts of a nearly round outline, took thin runs off the pitch for space and

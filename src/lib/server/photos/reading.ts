@@ -12,6 +12,7 @@ import { conicEllipse, ellipseError, fitConic, type Conic, type Ellipse } from '
 import type { Pt } from './fit';
 import { fitTipEllipse, rayEdges } from './edges';
 import { affinePose, circlePoses, mapPoint, type Camera, type Homography } from './plane';
+import { flankProfile } from './flank';
 import { outlineFromRing } from './outline';
 import { readProfile, type ProfileReading } from './profile';
 import { bandMean, normalise, projectColour, radialMean, samplePolar, type Grey } from './ring';
@@ -75,6 +76,8 @@ const fail = (field: string, message: string, advice: string[] = [], ellipse?: E
 
 /** Under this confidence no reading is answered: the image is refused as unreadable. */
 const ANSWER_FLOOR = 0.3;
+/** A reading from shadows alone is scaled by this, so it never reads high (see readShadows). */
+const SHADOW_CAP = 0.8;
 // Wheel radius in the working image: ~20 samples per pitch at 72 positions, far from the limit.
 const WORK_RADIUS = 450;
 const ADVICE =
@@ -239,6 +242,25 @@ function readRing(img: Grey, pose: Homography, radiusPx: number, na: number, tra
 	return { profile: read, lightOnDark: p2.lightOnDark, pose };
 }
 
+/**
+ * Where no reading by colour is answered: the teeth read from their shadows (flank.ts) round each
+ * pose tried, the most regular kept. Never high: with the metal and the background the same shade,
+ * nothing but shadows shows the teeth, and a shadow can fall where no tooth is.
+ */
+function readShadows(img: Grey, poses: { pose: Homography; el: Ellipse }[], trace?: Trace): RingReading | null {
+	let best: RingReading | null = null;
+	for (const { pose, el } of poses) {
+		const profile = flankProfile(img, pose, el.a, 2048, trace);
+		if (!profile) continue;
+		const read = readProfile(profile);
+		trace?.('shadows', { profile, read });
+		if ('failure' in read) continue;
+		read.confidence *= SHADOW_CAP;
+		if (!best || read.confidence > best.profile.confidence) best = { profile: read, lightOnDark: true, pose };
+	}
+	return best;
+}
+
 /** Image angle (degrees ccw from +x, y up, 0..360) of a point seen from a centre. */
 const imageAngle = (c: Pt, p: Pt) => ((((Math.atan2(-(p.y - c.y), p.x - c.x) * 180) / Math.PI) % 360) + 360) % 360;
 const r3 = (v: number) => Math.round(v * 1000) / 1000;
@@ -374,18 +396,28 @@ async function read(image: Buffer, taps: PhotoTaps, started: number, trace?: Tra
 	// glare or shadow may be making a gap in one of them: the other's confidence counts against it.
 	const coarseBest = pick?.ring;
 	const fineOk = fine && 'profile' in fine ? fine : null;
-	const best = fineOk && coarseBest && fineOk.profile.confidence < coarseBest.profile.confidence ? coarseBest : (fineOk ?? coarseBest);
-	const other = best === fineOk ? coarseBest : fineOk;
-	if (best && other && (other.profile.teeth !== best.profile.teeth || other.profile.missing !== best.profile.missing))
-		best.profile.confidence *= 1 - other.profile.confidence;
+	const bestByColour =
+		fineOk && coarseBest && fineOk.profile.confidence < coarseBest.profile.confidence ? coarseBest : (fineOk ?? coarseBest);
+	const other = bestByColour === fineOk ? coarseBest : fineOk;
+	if (
+		bestByColour &&
+		other &&
+		(other.profile.teeth !== bestByColour.profile.teeth || other.profile.missing !== bestByColour.profile.missing)
+	)
+		bestByColour.profile.confidence *= 1 - other.profile.confidence;
 	trace?.('ring', { poses: poses.map((p) => p.pose), coarse: coarse.map((c) => c.ring), fine });
 	const readings = fine ? [fine, ...coarse.map((c) => c.ring)] : coarse.map((c) => c.ring);
-	const shown = storedEllipse(pick?.el ?? ellipse);
+	const refusedAt = storedEllipse(pick?.el ?? ellipse);
 	// A reading too irregular to answer says why the others failed, when one did (several outlines
 	// are read, and one of them can find some odd pattern on a wheel with no gap at all). Too
 	// irregular: under 0.3. On the calibration images (c01..c16, three tap sets), before the outline
 	// was sharpened from the ring, every reading under 0.5 was wrong (0.16, 0.37) and the lowest
 	// right one 0.51; 0.3 keeps room for right ones.
+	let best: RingReading | null = bestByColour ?? null;
+	if (!best || best.profile.confidence < ANSWER_FLOOR || best.profile.missing * 2 > best.profile.teeth) {
+		const fromShadows = readShadows(img, poses, trace);
+		if (fromShadows) best = fromShadows;
+	}
 	if (!best || best.profile.confidence < ANSWER_FLOOR || best.profile.missing * 2 > best.profile.teeth) {
 		const kinds = new Set(readings.map((r) => ('failure' in r ? r.failure : '')));
 		if (kinds.has('contrast'))
@@ -393,20 +425,27 @@ async function read(image: Buffer, taps: PhotoTaps, started: number, trace?: Tra
 				'image',
 				`image: the wheel hardly stands out from the background where the taps put it; ${ADVICE}`,
 				[LIGHT_ADVICE, ...advice],
-				shown
+				refusedAt
 			);
 		if (kinds.has('nogap'))
-			return fail('image', 'image: the teeth are evenly spaced all round with no gap; this reading is for missing-tooth wheels', [], shown);
+			return fail(
+				'image',
+				'image: the teeth are evenly spaced all round with no gap; this reading is for missing-tooth wheels',
+				[],
+				refusedAt
+			);
 		if (kinds.has('gap-unseen') || kinds.has('unseen'))
 			return fail(
 				'image',
 				'image: part of the ring of teeth is hidden, outside the photo or lost in shadow or glare, and the gap was not seen; photograph the whole wheel, the rim clear, in even light',
 				[CLEAR_ADVICE, FRAME_ADVICE, ...advice],
-				shown
+				refusedAt
 			);
-		return fail('image', UNREADABLE, best ? [...advice, LIGHT_ADVICE] : [...advice, TAP_ADVICE, LIGHT_ADVICE], shown);
+		return fail('image', UNREADABLE, best ? [...advice, LIGHT_ADVICE] : [...advice, TAP_ADVICE, LIGHT_ADVICE], refusedAt);
 	}
 	const read = best.profile;
+	const readEl = poses.find((p) => p.pose === best.pose)?.el ?? pick?.el ?? ellipse;
+	const shown = storedEllipse(readEl);
 
 	// Back to the stored image's pixels for everything answered.
 	const at = (rho: number, phi: number) => toStored(mapPoint(best.pose, rho * Math.cos(phi), rho * Math.sin(phi)));
@@ -419,7 +458,7 @@ async function read(image: Buffer, taps: PhotoTaps, started: number, trace?: Tra
 		})
 		.sort((a, b) => a.n - b.n);
 	const unseen = read.unseen.map((u) => ({ fromDeg: r1(imageAngle(c, at(1, u.from))), toDeg: r1(imageAngle(c, at(1, u.to))) }));
-	const radiusPx = (pick?.el ?? ellipse).a / scale;
+	const radiusPx = readEl.a / scale;
 	return {
 		ok: true,
 		teeth: read.teeth,
