@@ -280,7 +280,8 @@ export function readEdgeLog(log: EdgeLog, design?: EdgeLogDesign): EdgeLogReadin
 	for (let j = 0; gapPitches >= 3 && j < m; j++) {
 		const ratio = sp[j]! / ref[j]!;
 		const below = Math.floor(ratio);
-		if (below < gapPitches || below > gapPitches + 1 || Math.abs(ratio - below - 0.5) > clearly) continue;
+		// Only a near tie between the gap's count and one more (written so a NaN, from spaces of no time, is passed by).
+		if (!(below >= gapPitches && below <= gapPitches + 1 && Math.abs(ratio - below - 0.5) <= clearly)) continue;
 		// Of the two counts, the one whose length at the gaps' pace is nearer.
 		const atGapPace = (count: number) => Math.abs(ratio - (typicalGap * count) / gapPitches);
 		pitches[j] = atGapPace(below) <= atGapPace(below + 1) ? below : below + 1;
