@@ -30,21 +30,24 @@ const refused = (what: string) => new Error(`${what} refused`);
 const long = { time: 2000, warmupTime: 300 };
 
 describe('export routes, a file made anew (check + file)', () => {
+	const shape = () => {
+		const c = checkWheelShape(wheelQuery());
+		if (!c.ok) throw refused('wheel');
+		return c.value;
+	};
 	bench(
 		'wheel.dxf',
 		() => {
-			const c = checkWheelShape(wheelQuery());
-			if (!c.ok) throw refused('wheel');
-			wheelDxf(c.value.spec, c.value.units);
+			const { spec, units } = shape();
+			wheelDxf(spec, units);
 		},
 		long
 	);
 	bench(
 		'wheel.svg',
 		() => {
-			const c = checkWheelShape(wheelQuery());
-			if (!c.ok) throw refused('wheel');
-			wheelSvg(c.value.spec, c.value.units);
+			const { spec, units } = shape();
+			wheelSvg(spec, units);
 		},
 		long
 	);
