@@ -308,6 +308,16 @@ async function read(image: Buffer, taps: PhotoTaps, started: number, trace?: Tra
 	const edgeFit = fitTipEllipse(edges, { centre, tips, radius: mean, tipTolerance, centreTolerance: 0.1 * far + 25 * scale, seeds });
 	let conic: Conic | null = null;
 	let ellipse: Ellipse | null = null;
+	// An outline moved to where the ring it lays over shows the tips, pass after pass from `el`.
+	const sharpen = (el: Ellipse, passes: number): [Conic, Ellipse] | null => {
+		let sharpened: [Conic, Ellipse] | null = null;
+		for (let pass = 0, from = el; pass < passes; pass++) {
+			const next = outlineFromRing(img, affinePose(from.cx, from.cy, from.a, from.b, from.angleDeg), from.a);
+			if (!next) break;
+			[sharpened, from] = [[next.conic, next.ellipse], next.ellipse];
+		}
+		return sharpened;
+	};
 	if (edgeFit && edgeFit.support >= 0.12) [conic, ellipse] = [edgeFit.conic, edgeFit.ellipse];
 	else if (tapOk) [conic, ellipse] = [tapConic, tapEllipse];
 	else {
@@ -315,17 +325,9 @@ async function read(image: Buffer, taps: PhotoTaps, started: number, trace?: Tra
 		// crowding the edges): the ring laid round the edges' weak best, or round the circle through
 		// the taps, may still show where the tips are; an outline found there must pass by every tap.
 		for (const start of [edgeFit?.ellipse, { cx: centre.x, cy: centre.y, a: mean, b: mean, angleDeg: 0 }]) {
-			if (!start) continue;
-			let from = start;
-			let found: { conic: Conic; ellipse: Ellipse } | null = null;
-			for (let pass = 0; pass < 3; pass++) {
-				const next = outlineFromRing(img, affinePose(from.cx, from.cy, from.a, from.b, from.angleDeg), from.a);
-				if (!next) break;
-				[found, from] = [next, next.ellipse];
-			}
-			const el = found?.ellipse;
-			if (found && el && tips.every((t) => Math.abs(ellipseError(el, t)) <= tipTolerance)) {
-				[conic, ellipse] = [found.conic, el];
+			const found = start && sharpen(start, 3);
+			if (found && tips.every((t) => Math.abs(ellipseError(found[1], t)) <= tipTolerance)) {
+				[conic, ellipse] = found;
 				break;
 			}
 		}
@@ -360,15 +362,6 @@ async function read(image: Buffer, taps: PhotoTaps, started: number, trace?: Tra
 	// The outline sharpened from the ring it lays over (twice: the first pass straightens most of
 	// it), read first among them: taps 15 px off or a single tapped tip leave the fit a few per cent
 	// off, enough to lose the teeth, and the ring itself shows where the tips are.
-	const sharpen = (el: Ellipse): [Conic, Ellipse] | null => {
-		let sharpened: [Conic, Ellipse] | null = null;
-		for (let pass = 0, from = el; pass < 2; pass++) {
-			const next = outlineFromRing(img, affinePose(from.cx, from.cy, from.a, from.b, from.angleDeg), from.a);
-			if (!next) break;
-			[sharpened, from] = [[next.conic, next.ellipse], next.ellipse];
-		}
-		return sharpened;
-	};
 	const posesOf = ([q, el]: [Conic, Ellipse]) => {
 		const affine = affinePose(el.cx, el.cy, el.a, el.b, el.angleDeg);
 		// Both tilts even on a nearly round outline: a tilt flattens the ellipse only by its cosine
@@ -379,7 +372,7 @@ async function read(image: Buffer, taps: PhotoTaps, started: number, trace?: Tra
 	const poses: { pose: Homography; el: Ellipse }[] = outlines.flatMap(posesOf);
 	const coarse = poses.map(({ pose, el }) => ({ el, ring: readRing(img, pose, el.a, 1024, trace) }));
 	if (!coarse.some((c) => 'profile' in c.ring && c.ring.profile.confidence >= HIGH_CONFIDENCE)) {
-		const sharpened = sharpen(ellipse);
+		const sharpened = sharpen(ellipse, 2);
 		if (sharpened) alternatives.unshift(sharpened);
 		for (const p of alternatives.flatMap(posesOf)) {
 			poses.push(p);
@@ -413,12 +406,11 @@ async function read(image: Buffer, taps: PhotoTaps, started: number, trace?: Tra
 	// irregular: under 0.3. On the calibration images (c01..c16, three tap sets), before the outline
 	// was sharpened from the ring, every reading under 0.5 was wrong (0.16, 0.37) and the lowest
 	// right one 0.51; 0.3 keeps room for right ones.
+	const answerable = (r: RingReading | null): r is RingReading =>
+		r !== null && r.profile.confidence >= ANSWER_FLOOR && r.profile.missing * 2 <= r.profile.teeth;
 	let best: RingReading | null = bestByColour ?? null;
-	if (!best || best.profile.confidence < ANSWER_FLOOR || best.profile.missing * 2 > best.profile.teeth) {
-		const fromShadows = readShadows(img, poses, trace);
-		if (fromShadows) best = fromShadows;
-	}
-	if (!best || best.profile.confidence < ANSWER_FLOOR || best.profile.missing * 2 > best.profile.teeth) {
+	if (!answerable(best)) best = readShadows(img, poses, trace) ?? best;
+	if (!answerable(best)) {
 		const kinds = new Set(readings.map((r) => ('failure' in r ? r.failure : '')));
 		if (kinds.has('contrast'))
 			return fail(
