@@ -5,9 +5,9 @@
 // Either way one dark mark per pitch, so the marks' spacing gives the pitch and one long dark run
 // (the cast shadow filling a gap) or a stretch with no mark for two pitches or more, the gap.
 import type { Homography } from './plane';
+import { strongestHarmonic } from './profile';
+import type { Trace } from './reading';
 import { samplePolar, type Grey } from './ring';
-
-type Trace = (stage: string, data: Record<string, unknown>) => void;
 
 /** How far inside the tips the marks are read (unit frame): within the teeth of any wheel with teeth 4 % of its radius deep or more. */
 const BAND: [number, number] = [0.955, 0.99];
@@ -36,7 +36,7 @@ function darkness(img: Grey, pose: Homography, na: number, radiusPx: number, tra
 	// within a pitch and a half each side (8° at least) is the lit level there, so the middle of a
 	// gap of two missing teeth in shadow still sees the lit tooth beyond it. The pitch from the
 	// band's strongest repeat round the ring.
-	const cycles = strongestRepeat(v, 3, Math.min(120, na / 8));
+	const cycles = strongestHarmonic(v, 3, Math.min(120, na / 8));
 	const w = Math.ceil(Math.max((8 / 360) * na, (1.6 * na) / cycles));
 	const lit = new Float64Array(na);
 	for (let i = 0; i < na; i++) {
@@ -118,26 +118,4 @@ export function flankProfile(img: Grey, pose: Homography, radiusPx: number, na =
 		for (let d = Math.floor(from); d < to; d++) out[at(d)] = 0;
 	}
 	return out;
-}
-
-/** The whole number of cycles round the ring at which the profile repeats most strongly. */
-function strongestRepeat(s: Float64Array, from: number, to: number): number {
-	const n = s.length;
-	let mean = 0;
-	for (const v of s) mean += v;
-	mean /= n;
-	let best = from;
-	let bestPower = -1;
-	for (let h = from; h <= to; h++) {
-		let re = 0;
-		let im = 0;
-		for (let i = 0; i < n; i++) {
-			const a = (2 * Math.PI * h * i) / n;
-			re += (s[i]! - mean) * Math.cos(a);
-			im += (s[i]! - mean) * Math.sin(a);
-		}
-		const p = re * re + im * im;
-		if (p > bestPower) [best, bestPower] = [h, p];
-	}
-	return best;
 }

@@ -96,7 +96,7 @@ const medianOf = (a: number[]) => {
 };
 
 /** Power of the profile at each whole number of cycles round the ring; the strongest one. */
-function strongestHarmonic(s: Float64Array, from: number, to: number): number {
+export function strongestHarmonic(s: Float64Array, from: number, to: number): number {
 	const n = s.length;
 	let mean = 0;
 	let m = 0;
